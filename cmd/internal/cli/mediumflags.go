@@ -1,0 +1,126 @@
+package cli
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/media"
+	"github.com/spf13/pflag"
+)
+
+// mediumFlags are the flags that say where the fluid is. Every command that
+// needs a medium binds them.
+type mediumFlags struct {
+	temp, offset, salinity, depth, pressure, altitude, humidity, latitude string
+}
+
+const mediumFlagHelp = `
+Medium conditions:
+  Water: --temp (default 20 °C), --salinity for sea water (default 35 g/kg of
+  reference-composition salinity; a bare number or psu is practical salinity
+  PSS-78, g/kg or ‰ is reference-composition salinity), and either --depth
+  below the surface or an absolute --pressure (default: one standard
+  atmosphere at the surface). For a lake at altitude, --altitude sets the
+  surface pressure from the standard atmosphere.
+  Air: --altitude is geometric height above mean sea level (converted to
+  geopotential height for the US Standard Atmosphere 1976 / ISO 2533);
+  without --temp the air has the standard-atmosphere temperature there
+  (15 °C at sea level) plus --temp-offset; with --temp the measured
+  temperature is used and the pressure is still the standard one for the
+  altitude, unless --pressure (absolute) is given. --humidity is relative
+  humidity in % (default 0).
+  Pressures are absolute; sea pressure (absolute less 101325 Pa) is printed
+  for water as "sea pressure".`
+
+func (m *mediumFlags) bind(fs *pflag.FlagSet) {
+	fs.StringVar(&m.temp, "temp", "", "temperature, e.g. 12C, 285K, 54F (bare number: °C)")
+	fs.StringVar(&m.offset, "temp-offset", "", "air only: offset from the standard-atmosphere temperature, e.g. 5K")
+	fs.StringVar(&m.salinity, "salinity", "", "sea water: 35psu (practical) or 35g/kg (reference composition); bare number is practical")
+	fs.StringVar(&m.depth, "depth", "", "water: depth below the surface, e.g. 30m, 100ft")
+	fs.StringVar(&m.pressure, "pressure", "", "absolute pressure, e.g. 101.325kPa, 2bar, 1atm")
+	fs.StringVar(&m.altitude, "altitude", "", "geometric altitude above mean sea level, e.g. 1500m, 5000ft")
+	fs.StringVar(&m.humidity, "humidity", "", "air only: relative humidity, e.g. 60% (bare number: %)")
+	fs.StringVar(&m.latitude, "latitude", "", "sea water with --depth: latitude in degrees for gravity (default 45)")
+}
+
+// parseFlag reads one flag's text as kind k; empty text gives NaN.
+func parseFlag(name, text string, k quantity.Kind) (float64, error) {
+	if text == "" {
+		return math.NaN(), nil
+	}
+	v, err := quantity.Parse(k, text)
+	if err != nil {
+		return 0, usagef("--%s: %v", name, err)
+	}
+	return v.SI, nil
+}
+
+// conditions returns the media conditions for the named medium.
+func (m *mediumFlags) conditions(medium string) (media.Conditions, error) {
+	c := media.Unset(medium)
+	var err error
+	fields := []struct {
+		name, text string
+		kind       quantity.Kind
+		dst        *float64
+	}{
+		{"temp", m.temp, quantity.Temperature, &c.TemperatureC},
+		{"salinity", m.salinity, quantity.Salinity, &c.SalinityPractical},
+		{"depth", m.depth, quantity.Height, &c.DepthM},
+		{"pressure", m.pressure, quantity.Pressure, &c.PressurePa},
+		{"altitude", m.altitude, quantity.Height, &c.AltitudeM},
+		{"humidity", m.humidity, quantity.Humidity, &c.HumidityPercent},
+		{"latitude", m.latitude, quantity.Number, &c.LatitudeDeg},
+	}
+	for _, f := range fields {
+		if *f.dst, err = parseFlag(f.name, f.text, f.kind); err != nil {
+			return c, err
+		}
+	}
+	if m.offset != "" {
+		v, err := quantity.Parse(quantity.Temperature, m.offset)
+		if err != nil {
+			return c, usagef("--temp-offset: %v", err)
+		}
+		if v.Unit == "" || v.Unit == "C" || v.Unit == "°C" || v.Unit == "degC" || v.Unit == "K" {
+			c.TemperatureOffset = v.SI
+			if v.Unit == "K" {
+				c.TemperatureOffset = v.SI + media.ZeroCelsiusK
+			}
+		} else {
+			return c, usagef("--temp-offset: %q: give the offset in K or °C, e.g. 5K", m.offset)
+		}
+	}
+	if !math.IsNaN(c.TemperatureC) && !math.IsNaN(c.TemperatureOffset) {
+		return c, usagef("--temp-offset applies to the standard-atmosphere temperature; give either --temp or --temp-offset, not both")
+	}
+	if !math.IsNaN(c.DepthM) && !math.IsNaN(c.PressurePa) {
+		return c, usagef("give either --depth or --pressure, not both")
+	}
+	return c, nil
+}
+
+// lookupMedium parses the flags and evaluates the medium.
+func (m *mediumFlags) lookup(medium string) (media.Properties, error) {
+	c, err := m.conditions(medium)
+	if err != nil {
+		return media.Properties{}, err
+	}
+	p, err := media.Lookup(c)
+	if err != nil {
+		return p, fmt.Errorf("%v", trimPkg(err))
+	}
+	return p, nil
+}
+
+// trimPkg removes the library's "media: " or "regime: " prefix for users.
+func trimPkg(err error) string {
+	s := err.Error()
+	for _, p := range []string{"media: ", "regime: "} {
+		if len(s) > len(p) && s[:len(p)] == p {
+			return s[len(p):]
+		}
+	}
+	return s
+}

@@ -1,0 +1,284 @@
+// Package quantity reads values with units as people type them on the
+// command line and in data sheets ("12 mm", "0.4 m/s", "18 °C", "3.2±0.4 cm",
+// "35 psu") and converts them to the SI values the library works in.
+//
+// A bare number for a dimensional quantity is an error, so a 12 mm fish is
+// never read as 12 m. Temperature without a unit is °C, salinity without a
+// unit is practical salinity, relative humidity and efficiency without a unit
+// are percent and fraction respectively.
+package quantity
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"unicode"
+	"unicode/utf8"
+)
+
+// Kind is the physical quantity a text is read as.
+type Kind int
+
+// Quantities that can be parsed.
+const (
+	Length      Kind = iota // m
+	Height                  // m; a depth or altitude, also in feet
+	Speed                   // m/s, or body lengths per second
+	Temperature             // °C
+	Pressure                // Pa
+	Salinity                // practical salinity (unitless)
+	Humidity                // % relative humidity
+	Mass                    // kg
+	Frequency               // Hz
+	Density                 // kg/m³
+	Area                    // m²
+	Fraction                // 0–1 (efficiency); also in %
+	Number                  // plain number (drag coefficient, factors)
+	Time                    // s
+	ShearRate               // 1/s
+)
+
+// Value is a parsed quantity in the library's units (see each Kind).
+type Value struct {
+	SI            float64 // value in the kind's library unit
+	SD            float64 // standard uncertainty, same unit; 0 when none was given
+	Unit          string  // the unit as recognised ("mm", "°C", …); "" for a bare number
+	PerBodyLength bool    // Speed given in BL/s: SI and SD are body lengths per second
+	Absolute      bool    // Salinity given in g/kg (reference composition), already converted to SP
+}
+
+type conv struct {
+	factor, offset float64 // SI = v*factor + offset
+	note           string  // marks special handling
+}
+
+var units = map[Kind]map[string]conv{
+	Length: {"nm": {1e-9, 0, ""}, "µm": {1e-6, 0, ""}, "um": {1e-6, 0, ""}, "mm": {1e-3, 0, ""}, "cm": {1e-2, 0, ""}, "m": {1, 0, ""}, "km": {1e3, 0, ""}},
+	Height: {"mm": {1e-3, 0, ""}, "cm": {1e-2, 0, ""}, "m": {1, 0, ""}, "km": {1e3, 0, ""}, "ft": {0.3048, 0, ""}},
+	Speed: {"µm/s": {1e-6, 0, ""}, "um/s": {1e-6, 0, ""}, "mm/s": {1e-3, 0, ""}, "cm/s": {1e-2, 0, ""}, "m/s": {1, 0, ""},
+		"km/h": {1 / 3.6, 0, ""}, "kn": {1852.0 / 3600, 0, ""}, "kt": {1852.0 / 3600, 0, ""}, "BL/s": {1, 0, "bl"}},
+	Temperature: {"C": {1, 0, ""}, "°C": {1, 0, ""}, "degC": {1, 0, ""}, "K": {1, -273.15, ""}, "F": {5.0 / 9, -32 * 5.0 / 9, ""}, "°F": {5.0 / 9, -32 * 5.0 / 9, ""}},
+	Pressure: {"Pa": {1, 0, ""}, "kPa": {1e3, 0, ""}, "hPa": {1e2, 0, ""}, "MPa": {1e6, 0, ""}, "bar": {1e5, 0, ""},
+		"mbar": {1e2, 0, ""}, "dbar": {1e4, 0, ""}, "atm": {101325, 0, ""}},
+	Salinity:  {"psu": {1, 0, ""}, "PSU": {1, 0, ""}, "g/kg": {35.0 / 35.16504, 0, "abs"}, "‰": {35.0 / 35.16504, 0, "abs"}},
+	Humidity:  {"%": {1, 0, ""}},
+	Mass:      {"µg": {1e-9, 0, ""}, "ug": {1e-9, 0, ""}, "mg": {1e-6, 0, ""}, "g": {1e-3, 0, ""}, "kg": {1, 0, ""}},
+	Frequency: {"Hz": {1, 0, ""}, "kHz": {1e3, 0, ""}, "/s": {1, 0, ""}, "1/s": {1, 0, ""}, "/min": {1.0 / 60, 0, ""}, "1/min": {1.0 / 60, 0, ""}},
+	Density:   {"kg/m3": {1, 0, ""}, "kg/m³": {1, 0, ""}, "g/cm3": {1e3, 0, ""}, "g/cm³": {1e3, 0, ""}, "g/mL": {1e3, 0, ""}, "g/ml": {1e3, 0, ""}},
+	Area:      {"µm2": {1e-12, 0, ""}, "um2": {1e-12, 0, ""}, "mm2": {1e-6, 0, ""}, "cm2": {1e-4, 0, ""}, "m2": {1, 0, ""}, "µm²": {1e-12, 0, ""}, "mm²": {1e-6, 0, ""}, "cm²": {1e-4, 0, ""}, "m²": {1, 0, ""}},
+	Fraction:  {"%": {0.01, 0, ""}},
+	Number:    {},
+	Time:      {"µs": {1e-6, 0, ""}, "us": {1e-6, 0, ""}, "ms": {1e-3, 0, ""}, "s": {1, 0, ""}, "min": {60, 0, ""}, "h": {3600, 0, ""}},
+	ShearRate: {"1/s": {1, 0, ""}, "/s": {1, 0, ""}, "s-1": {1, 0, ""}, "s⁻¹": {1, 0, ""}},
+}
+
+// bareOK lists kinds whose bare numbers have a stated meaning.
+var bareOK = map[Kind]bool{Temperature: true, Salinity: true, Humidity: true, Fraction: true, Number: true}
+
+var examples = map[Kind]string{
+	Length: "12mm", Height: "250m", Speed: "0.4m/s", Temperature: "18C", Pressure: "101.325kPa",
+	Salinity: "35psu", Humidity: "60%", Mass: "2.5g", Frequency: "8Hz", Density: "1050kg/m3",
+	Area: "2cm2", Fraction: "0.2", Number: "0.47", Time: "0.5s", ShearRate: "10/s",
+}
+
+var names = map[Kind]string{
+	Length: "length", Height: "depth or altitude", Speed: "speed", Temperature: "temperature", Pressure: "pressure",
+	Salinity: "salinity", Humidity: "relative humidity", Mass: "mass", Frequency: "frequency", Density: "density",
+	Area: "area", Fraction: "fraction", Number: "number", Time: "time", ShearRate: "shear rate",
+}
+
+// Example returns an accepted way to write a value of kind k.
+func Example(k Kind) string { return examples[k] }
+
+// Units lists the units accepted for kind k, in a stable order.
+func Units(k Kind) []string {
+	order := []string{"nm", "µm", "um", "mm", "cm", "m", "km", "ft", "µm/s", "um/s", "mm/s", "cm/s", "m/s", "km/h", "kn", "kt", "BL/s",
+		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "%",
+		"µg", "ug", "mg", "g", "kg", "Hz", "kHz", "/s", "1/s", "/min", "1/min", "kg/m3", "kg/m³", "g/cm3", "g/cm³", "g/mL", "g/ml",
+		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹"}
+	var out []string
+	for _, u := range order {
+		if _, ok := units[k][u]; ok {
+			out = append(out, u)
+		}
+	}
+	return out
+}
+
+// Parse reads text as a value of kind k. Uncertainty may follow the value as
+// "±" or "+-" and a second number, in the same unit, in its own unit, or in
+// percent of the value: "12±1mm", "12mm+-1mm", "12mm±8%".
+func Parse(k Kind, text string) (Value, error) {
+	if _, ok := units[k]; !ok {
+		return Value{}, fmt.Errorf("unknown quantity kind %d", int(k))
+	}
+	s := strings.TrimSpace(strings.ReplaceAll(text, "−", "-"))
+	if s == "" {
+		return Value{}, fmt.Errorf("empty %s; write a value such as %s", names[k], examples[k])
+	}
+	if !utf8.ValidString(s) {
+		return Value{}, fmt.Errorf("%q is not valid UTF-8 text", text)
+	}
+	main, unc, hasUnc := splitUncertainty(s)
+	num, unit, err := splitNumber(main)
+	if err != nil {
+		return Value{}, fmt.Errorf("%s %q: %v; write a value such as %s", names[k], text, err, examples[k])
+	}
+	var sdNum float64
+	var sdUnit string
+	if hasUnc {
+		sdNum, sdUnit, err = splitNumber(unc)
+		if err != nil {
+			return Value{}, fmt.Errorf("%s %q: uncertainty: %v; write it as 12±1mm or 12mm±8%%", names[k], text, err)
+		}
+		if sdNum < 0 {
+			return Value{}, fmt.Errorf("%s %q: uncertainty must not be negative", names[k], text)
+		}
+		if unit == "" && sdUnit != "" && sdUnit != "%" {
+			unit = sdUnit // "12±1mm": both numbers in mm
+		}
+	}
+	v := Value{}
+	c, err := lookupUnit(k, unit, text)
+	if err != nil {
+		return Value{}, err
+	}
+	v.Unit = unit
+	v.SI = num*c.factor + c.offset
+	v.PerBodyLength = c.note == "bl"
+	v.Absolute = c.note == "abs"
+	if hasUnc {
+		switch {
+		case sdUnit == "%" && k != Humidity && !(k == Fraction && unit == "%"):
+			v.SD = math.Abs(num*c.factor) * sdNum / 100
+		case sdUnit == "" || sdUnit == unit:
+			v.SD = sdNum * c.factor
+		default:
+			sc, err := lookupUnit(k, sdUnit, text)
+			if err != nil {
+				return Value{}, err
+			}
+			if sc.note != c.note {
+				return Value{}, fmt.Errorf("%s %q: value and uncertainty must be of the same kind of unit", names[k], text)
+			}
+			v.SD = sdNum * sc.factor // a difference: no offset
+		}
+	}
+	if math.IsNaN(v.SI) || math.IsInf(v.SI, 0) || math.IsNaN(v.SD) || math.IsInf(v.SD, 0) {
+		return Value{}, fmt.Errorf("%s %q is not a finite number", names[k], text)
+	}
+	return v, nil
+}
+
+func lookupUnit(k Kind, unit, text string) (conv, error) {
+	if unit == "" {
+		if bareOK[k] {
+			return conv{factor: 1}, nil
+		}
+		return conv{}, fmt.Errorf("%s %q has no unit; write it with one, for example %s (accepted: %s)", names[k], strings.TrimSpace(text), examples[k], strings.Join(Units(k), ", "))
+	}
+	c, ok := units[k][unit]
+	if !ok {
+		c, ok = units[k][normalise(unit)]
+	}
+	if !ok {
+		accepted := strings.Join(Units(k), ", ")
+		if bareOK[k] && k != Number {
+			accepted += ", or a bare number"
+		}
+		if k == Number {
+			return conv{}, fmt.Errorf("%s %q must be a plain number without a unit, for example %s", names[k], strings.TrimSpace(text), examples[k])
+		}
+		return conv{}, fmt.Errorf("%s %q: unknown unit %q; accepted: %s", names[k], strings.TrimSpace(text), unit, accepted)
+	}
+	return c, nil
+}
+
+// normalise maps common spellings onto the table's keys.
+func normalise(u string) string {
+	r := strings.NewReplacer("μ", "µ", "·", "", " ", "", "^", "", "**", "")
+	u = r.Replace(u)
+	switch strings.ToLower(u) {
+	case "bl/s", "bls-1", "bl s-1", "l/s", "bodylengths/s":
+		return "BL/s"
+	case "ms-1":
+		return "m/s"
+	case "kmh", "kph", "km/hr":
+		return "km/h"
+	case "knot", "knots", "kts":
+		return "kn"
+	case "kgm-3":
+		return "kg/m3"
+	case "gcm-3":
+		return "g/cm3"
+	case "hz":
+		return "Hz"
+	case "deg c", "degc", "celsius":
+		return "C"
+	case "kelvin":
+		return "K"
+	case "pa":
+		return "Pa"
+	case "kpa":
+		return "kPa"
+	case "hpa":
+		return "hPa"
+	case "percent":
+		return "%"
+	case "per min", "perminute":
+		return "/min"
+	case "s^-1":
+		return "1/s"
+	}
+	return u
+}
+
+// splitUncertainty splits "12±1mm" into "12", "1mm"; "12mm±8%" into "12mm", "8%".
+func splitUncertainty(s string) (main, unc string, ok bool) {
+	for _, sep := range []string{"±", "+-", "+/-"} {
+		if i := strings.Index(s, sep); i > 0 {
+			return strings.TrimSpace(s[:i]), strings.TrimSpace(s[i+len(sep):]), true
+		}
+	}
+	return s, "", false
+}
+
+// splitNumber splits "12.5mm" or "12.5 mm" or "-3e-2 K" into its number and unit.
+func splitNumber(s string) (float64, string, error) {
+	s = strings.TrimSpace(s)
+	end := 0
+	for end < len(s) {
+		c := s[end]
+		if c >= '0' && c <= '9' || c == '.' || c == '+' || c == '-' {
+			end++
+			continue
+		}
+		if (c == 'e' || c == 'E') && end > 0 && end+1 < len(s) {
+			n := s[end+1]
+			if n >= '0' && n <= '9' || ((n == '-' || n == '+') && end+2 < len(s) && s[end+2] >= '0' && s[end+2] <= '9') {
+				end += 2
+				continue
+			}
+		}
+		break
+	}
+	if end == 0 {
+		return 0, "", fmt.Errorf("no number")
+	}
+	num := s[:end]
+	unit := strings.TrimSpace(s[end:])
+	f, err := strconv.ParseFloat(num, 64)
+	if err != nil {
+		return 0, "", fmt.Errorf("%q is not a number", num)
+	}
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return 0, "", fmt.Errorf("not a finite number")
+	}
+	for _, r := range unit {
+		if unicode.IsControl(r) {
+			return 0, "", fmt.Errorf("control character in unit")
+		}
+	}
+	return f, unit, nil
+}

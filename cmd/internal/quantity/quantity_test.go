@@ -1,0 +1,120 @@
+package quantity
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+// Conversion factors: SI definitions (BIPM SI Brochure, 9th ed.); the knot
+// is 1852 m/h and the foot 0.3048 m exactly (international definitions);
+// one standard atmosphere is 101325 Pa exactly.
+func TestParse(t *testing.T) {
+	cases := []struct {
+		k      Kind
+		in     string
+		si, sd float64
+	}{
+		{Length, "12mm", 0.012, 0},
+		{Length, "12 mm", 0.012, 0},
+		{Length, "2.5µm", 2.5e-6, 0},
+		{Length, "2.5μm", 2.5e-6, 0}, // Greek mu
+		{Length, "2.5um", 2.5e-6, 0},
+		{Length, "1.2e-3 m", 1.2e-3, 0},
+		{Length, "12±1mm", 0.012, 0.001},
+		{Length, "12+-1mm", 0.012, 0.001},
+		{Length, "12mm±8%", 0.012, 0.00096},
+		{Length, "12mm ± 0.1cm", 0.012, 0.001},
+		{Height, "1000ft", 304.8, 0},
+		{Speed, "36km/h", 10, 0},
+		{Speed, "1kn", 1852.0 / 3600, 0},
+		{Speed, "3 BL/s", 3, 0},
+		{Speed, "30 µm/s", 30e-6, 0},
+		{Temperature, "18", 18, 0},
+		{Temperature, "18C", 18, 0},
+		{Temperature, "18 °C", 18, 0},
+		{Temperature, "291.15K", 18, 0},
+		{Temperature, "212F", 100, 0},
+		{Temperature, "20±0.5C", 20, 0.5},
+		{Temperature, "68F±1F", 20, 5.0 / 9},
+		{Temperature, "−1.5C", -1.5, 0},
+		{Pressure, "1atm", 101325, 0},
+		{Pressure, "1013.25hPa", 101325, 0},
+		{Pressure, "100dbar", 1e6, 0},
+		{Salinity, "35", 35, 0},
+		{Salinity, "35psu", 35, 0},
+		{Salinity, "35.16504g/kg", 35, 0},
+		{Humidity, "60", 60, 0},
+		{Humidity, "60%", 60, 0},
+		{Humidity, "60±5%", 60, 5},
+		{Mass, "2.5g", 2.5e-3, 0},
+		{Mass, "40µg", 40e-9, 0},
+		{Frequency, "120/min", 2, 0},
+		{Frequency, "8Hz", 8, 0},
+		{Density, "1.05g/cm3", 1050, 0},
+		{Density, "1050 kg/m³", 1050, 0},
+		{Area, "2cm2", 2e-4, 0},
+		{Fraction, "0.2", 0.2, 0},
+		{Fraction, "20%", 0.2, 0},
+		{Number, "0.47", 0.47, 0},
+	}
+	for _, c := range cases {
+		v, err := Parse(c.k, c.in)
+		if err != nil {
+			t.Errorf("Parse(%q): %v", c.in, err)
+			continue
+		}
+		if math.Abs(v.SI-c.si) > 1e-12*math.Max(1, math.Abs(c.si)) || math.Abs(v.SD-c.sd) > 1e-12*math.Max(1, math.Abs(c.sd)) {
+			t.Errorf("Parse(%q) = %g ± %g, want %g ± %g", c.in, v.SI, v.SD, c.si, c.sd)
+		}
+	}
+	if v, _ := Parse(Speed, "3BL/s"); !v.PerBodyLength {
+		t.Errorf("BL/s not marked as per body length")
+	}
+	if v, _ := Parse(Salinity, "35g/kg"); !v.Absolute {
+		t.Errorf("g/kg not marked as absolute salinity")
+	}
+}
+
+func TestParseErrors(t *testing.T) {
+	cases := []struct {
+		k    Kind
+		in   string
+		want string
+	}{
+		{Length, "12", "has no unit; write it with one, for example 12mm"},
+		{Speed, "0.4", "has no unit"},
+		{Length, "12 furlongs", "unknown unit \"furlongs\"; accepted: nm, µm"},
+		{Length, "", "empty length"},
+		{Length, "mm", "no number"},
+		{Length, "NaN mm", "no number"},
+		{Length, "Inf m", "no number"},
+		{Length, "1e999 m", "not a number"},
+		{Length, "12±-1mm", "must not be negative"},
+		{Speed, "3BL/s±0.1m/s", "same kind of unit"},
+		{Number, "3 mm", "plain number"},
+		{Temperature, "20 X", "unknown unit"},
+	}
+	for _, c := range cases {
+		_, err := Parse(c.k, c.in)
+		if err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("Parse(%q) error = %v, want it to contain %q", c.in, err, c.want)
+		}
+	}
+}
+
+// FuzzParse checks that no input makes the parser panic or return a
+// non-finite value without an error.
+func FuzzParse(f *testing.F) {
+	for _, s := range []string{"12mm", "12±1mm", "12mm±8%", "3 BL/s", "20C", "1e-3 m", "±", "+-", "1e", "-", "µ", "35‰"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		for k := Length; k <= ShearRate; k++ {
+			v, err := Parse(k, s)
+			if err == nil && (math.IsNaN(v.SI) || math.IsInf(v.SI, 0) || math.IsNaN(v.SD) || v.SD < 0) {
+				t.Fatalf("Parse(%d, %q) = %+v without error", k, s, v)
+			}
+		}
+	})
+}
