@@ -1,0 +1,245 @@
+package regime
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/flowregime/flowregime/media"
+)
+
+// Organism is one organism's measurements. Optional values are NaN when not
+// measured.
+type Organism struct {
+	Body      Body
+	Speed     float64 // m/s
+	Frequency float64 // stroke (tail beat or wingbeat) frequency, Hz
+	Amplitude float64 // peak-to-peak tail-tip or wing-tip excursion, m
+	Mass      float64 // kg
+
+	Span        float64 // wingspan, m
+	WingLength  float64 // one wing, m
+	Chord       float64 // mean wing chord, m
+	WingArea    float64 // both wings, m²
+	StrokeAngle float64 // peak-to-peak stroke amplitude, rad
+
+	Efficiency    float64 // propulsive efficiency of a swimmer, 0–1; NaN means 1 (towing power)
+	InducedFactor float64 // NaN means DefaultInducedFactor
+	ProfileCD     float64 // NaN means the attached-flow default
+	Disc          string  // DiscSpan (default) or DiscStroke
+	Diffusivity   float64 // solute diffusivity, m²/s; NaN means dissolved O₂ in water
+}
+
+// NewOrganism returns an Organism with every optional value unset.
+func NewOrganism(b Body, speed float64) Organism {
+	n := math.NaN()
+	return Organism{Body: b, Speed: speed, Frequency: n, Amplitude: n, Mass: n, Span: n, WingLength: n,
+		Chord: n, WingArea: n, StrokeAngle: n, Efficiency: n, InducedFactor: n, ProfileCD: n, Diffusivity: n}
+}
+
+// Power kinds.
+const (
+	PowerTowing   = "towing"   // drag × speed, efficiency 1
+	PowerSwimming = "swimming" // drag × speed ÷ efficiency
+	PowerFlight   = "flight"   // induced + parasite + profile
+)
+
+// Power is the power needed to move at the given speed.
+type Power struct {
+	Kind       string
+	Total      float64 // W
+	Efficiency float64 // swimmers
+	Flight     *FlightPower
+}
+
+// Result is everything computed for one organism.
+type Result struct {
+	Medium           media.Properties
+	ShearRate        float64 // characteristic shear rate U/L, 1/s
+	Viscosity        float64 // viscosity used, Pa·s
+	Reynolds         float64 // on the body length (sphere: diameter)
+	Regime           string
+	BoundaryLayer    string // streamlined bodies at Re ≥ 1000
+	Strouhal         float64
+	StrouhalBand     string
+	AdvanceRatio     float64
+	ReducedFrequency float64
+	Drag             DragResult
+	Power            Power
+	CoastTime        float64 // s; only in the viscous regime
+	CoastDistance    float64 // m
+	Peclet           float64
+	Diffusivity      float64 // m²/s
+	Warnings         []Warning
+}
+
+// Calc computes Reynolds and Strouhal numbers, regime, drag and power for
+// one organism in a medium.
+func Calc(o Organism, m media.Properties) (Result, error) {
+	n := math.NaN()
+	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n}
+	if err := o.Body.Validate(); err != nil {
+		return r, err
+	}
+	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
+		return r, fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
+	}
+	for _, c := range []struct {
+		name string
+		v    float64
+	}{{"frequency", o.Frequency}, {"amplitude", o.Amplitude}, {"mass", o.Mass}, {"span", o.Span},
+		{"wing length", o.WingLength}, {"chord", o.Chord}, {"wing area", o.WingArea}, {"stroke angle", o.StrokeAngle},
+		{"diffusivity", o.Diffusivity}} {
+		if !math.IsNaN(c.v) && !(c.v > 0 && !math.IsInf(c.v, 0)) {
+			return r, fmt.Errorf("regime: %s must be positive, got %g", c.name, c.v)
+		}
+	}
+	r.Warnings = append(r.Warnings, m.Warnings...)
+	l := o.Body.Length
+	r.ShearRate = o.Speed / l
+	r.Viscosity = m.ApparentViscosity(r.ShearRate)
+	nu := r.Viscosity / m.Density
+	r.Reynolds = Reynolds(o.Speed, l, nu)
+	r.Regime = Classify(r.Reynolds)
+	if o.Body.Shape == Spheroid {
+		r.BoundaryLayer = BoundaryLayer(r.Reynolds)
+	}
+
+	// Stroke kinematics.
+	switch {
+	case !math.IsNaN(o.Frequency) && !math.IsNaN(o.Amplitude):
+		r.Strouhal = Strouhal(o.Frequency, o.Amplitude, o.Speed)
+		r.StrouhalBand = StrouhalBand(r.Strouhal)
+		if ref := refLength(o); o.Amplitude > ref {
+			r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(o), ref))
+		}
+		if r.Strouhal < 0.05 || r.Strouhal > 1.0 {
+			r.Warnings = append(r.Warnings, warnf(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what cruising animals show (Taylor, Nudds & Thomas 2003 found 0.2–0.4 in cruising flyers and swimmers); check frequency, amplitude and speed", r.Strouhal))
+		}
+	case !math.IsNaN(o.Frequency):
+		r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"))
+	case !math.IsNaN(o.Amplitude):
+		r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"))
+	}
+	wings := o.wings()
+	if !math.IsNaN(o.Frequency) && wings.Length > 0 {
+		phi := wings.StrokeAngle
+		if phi > 0 {
+			r.AdvanceRatio = AdvanceRatio(o.Speed, phi, o.Frequency, wings.Length)
+		}
+		if c := wings.MeanChord(); c > 0 {
+			r.ReducedFrequency = ReducedFrequency(o.Frequency, c, o.Speed)
+		}
+	}
+
+	// Drag.
+	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity}
+	drag, err := Drag(o.Body, flow)
+	if err != nil {
+		return r, err
+	}
+	r.Drag = drag
+	r.Warnings = append(r.Warnings, drag.Warnings...)
+
+	// Power.
+	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
+	switch {
+	case flyer:
+		k := o.InducedFactor
+		if math.IsNaN(k) {
+			k = DefaultInducedFactor
+		}
+		fp, err := Flight(FlightInput{
+			Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, InducedFactor: k,
+			Disc: o.Disc, Wings: wings,
+			BodyDrag: func(u float64) float64 {
+				d, err := Drag(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity})
+				if err != nil {
+					return math.NaN()
+				}
+				return d.Chosen.Force
+			},
+		})
+		if err != nil {
+			return r, err
+		}
+		r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
+		r.Warnings = append(r.Warnings, fp.Warnings...)
+	default:
+		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
+			r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"))
+		}
+		eff := o.Efficiency
+		r.Power = Power{Kind: PowerSwimming, Efficiency: eff}
+		if math.IsNaN(eff) {
+			eff = 1
+			r.Power = Power{Kind: PowerTowing, Efficiency: 1}
+		}
+		if !(eff > 0 && eff <= 1) {
+			return r, fmt.Errorf("regime: efficiency must be in (0, 1], got %g", eff)
+		}
+		r.Power.Total = SwimmingPower(drag.Chosen.Force, o.Speed, eff)
+	}
+
+	// Low-Re extras.
+	if r.Reynolds < 1 {
+		vol := BodyVolume(o.Body)
+		mass := o.Mass
+		if math.IsNaN(mass) {
+			mass = m.Density * vol // neutrally buoyant when no mass is given
+		}
+		if !math.IsNaN(mass) && !math.IsNaN(vol) {
+			r.CoastTime, r.CoastDistance = Coasting(mass+0.5*m.Density*vol, o.Speed, drag.Chosen.Force)
+		}
+	}
+	switch {
+	case !math.IsNaN(o.Diffusivity):
+		r.Diffusivity = o.Diffusivity
+	case m.Medium == media.KindFreshWater || m.Medium == media.KindSeawater:
+		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivity25C, m.TemperatureC, r.Viscosity)
+	}
+	if !math.IsNaN(r.Diffusivity) {
+		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)
+	}
+	return r, nil
+}
+
+func (o Organism) wings() Wings {
+	w := Wings{Span: o.Span, Length: o.WingLength, Frequency: o.Frequency, StrokeAngle: o.StrokeAngle, ProfileCD: o.ProfileCD}
+	if math.IsNaN(w.Length) && !math.IsNaN(o.Span) {
+		w.Length = o.Span / 2
+	}
+	switch {
+	case !math.IsNaN(o.WingArea):
+		w.Area = o.WingArea
+	case !math.IsNaN(o.Chord) && w.Length > 0:
+		w.Area = 2 * w.Length * o.Chord
+	}
+	if math.IsNaN(w.StrokeAngle) && !math.IsNaN(o.Amplitude) && w.Length > 0 && o.Amplitude <= 2*w.Length {
+		// Tip excursion A = 2R sin(Φ/2) (Nudds, Taylor & Thomas 2004, Proc. R. Soc. B 271, 2071, with b = 2R).
+		w.StrokeAngle = 2 * math.Asin(o.Amplitude/(2*w.Length))
+	}
+	if math.IsNaN(w.StrokeAngle) {
+		w.StrokeAngle = 0
+	}
+	if math.IsNaN(w.Frequency) {
+		w.Frequency = 0
+	}
+	if math.IsNaN(w.Length) {
+		w.Length = 0
+	}
+	return w
+}
+
+func refLength(o Organism) float64 {
+	if !math.IsNaN(o.Span) {
+		return o.Span
+	}
+	return o.Body.Length
+}
+
+func refName(o Organism) string {
+	if !math.IsNaN(o.Span) {
+		return "wingspan"
+	}
+	return "body length"
+}

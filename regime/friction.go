@@ -1,0 +1,59 @@
+package regime
+
+import "math"
+
+// Skin-friction coefficients of a flat plate, one side, averaged over the
+// length L, on the wetted area, with Re_L = UL/ν.
+
+// BlasiusCf returns the laminar mean skin friction C_f = 1.32824/√Re_L
+// (twice Blasius' wall-shear constant f”(0) = 0.332057, ×2 for the mean).
+// Laminar boundary layers, about 1e3 < Re_L < 5e5.
+//
+// Reference: Blasius, H. (1908), Grenzschichten in Flüssigkeiten mit kleiner
+// Reibung, Z. Math. Phys. 56, 1–37; Schlichting, H. (1979), Boundary-Layer
+// Theory, 7th ed., ch. 7.
+func BlasiusCf(re float64) float64 { return 1.32824 / math.Sqrt(re) }
+
+// PrandtlSchlichtingCf returns the turbulent flat-plate friction
+// C_f = 0.455/(log₁₀ Re_L)^2.58, for 5e5 < Re_L < 1e9.
+//
+// Reference: Schlichting, H. (1979), Boundary-Layer Theory, 7th ed.,
+// ch. 21 (Prandtl–Schlichting, 1932).
+func PrandtlSchlichtingCf(re float64) float64 { return 0.455 / math.Pow(math.Log10(re), 2.58) }
+
+// ITTC1957Cf returns the ITTC-1957 model–ship correlation line
+// C_F = 0.075/(log₁₀ Re − 2)², for Re ≳ 1e5. It is not a flat-plate law: it
+// holds about 12 % form allowance at model scale.
+//
+// Reference: ITTC (1957), Proc. 8th International Towing Tank Conference,
+// Madrid; ITTC Recommended Procedure 7.5-02-02-02 (2017).
+func ITTC1957Cf(re float64) float64 {
+	x := math.Log10(re) - 2
+	return 0.075 / (x * x)
+}
+
+// TransitionCf returns the mean skin friction of a plate whose boundary layer
+// is laminar up to Re_cr and turbulent (Prandtl–Schlichting) after it,
+// C_f = C_f,turb − A/Re_L with A = Re_cr (C_f,turb − C_f,lam) at Re_cr, so
+// that it meets the laminar law at Re_cr. With Re_cr = 5e5, A = 1614
+// (Schlichting's Table 21.1 gives the rounded 1700).
+//
+// Reference: Prandtl, L. (1927), as in Schlichting (1979), ch. 21.
+func TransitionCf(re, reCr float64) float64 {
+	if re <= reCr {
+		return BlasiusCf(re)
+	}
+	a := reCr * (PrandtlSchlichtingCf(reCr) - BlasiusCf(reCr))
+	return PrandtlSchlichtingCf(re) - a/re
+}
+
+// HoernerFormFactor returns the ratio of a streamlined body of revolution's
+// drag to its skin friction on the wetted area, 1 + 1.5(d/l)^1.5 + 7(d/l)³,
+// at fineness ratio l/d.
+//
+// Reference: Hoerner, S. F. (1965), Fluid-Dynamic Drag, published by the
+// author, ch. 6.
+func HoernerFormFactor(l, d float64) float64 {
+	r := d / l
+	return 1 + 1.5*math.Pow(r, 1.5) + 7*r*r*r
+}

@@ -1,0 +1,339 @@
+package regime
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/flowregime/flowregime/media"
+)
+
+// Warning is a typed note on a result; see the Warn codes.
+type Warning = media.Warning
+
+// Warning codes used by this package.
+const (
+	WarnLawOutOfRange = "correlation-out-of-range"
+	WarnDragCrisis    = "drag-crisis"
+	WarnGeometry      = "geometry"
+	WarnStrouhal      = "strouhal-outside-animals"
+	WarnInconsistent  = "inconsistent-inputs"
+	WarnModel         = "model-limit"
+)
+
+func warnf(code, format string, args ...any) Warning {
+	return Warning{Code: code, Message: fmt.Sprintf(format, args...)}
+}
+
+// Shape is the idealised body shape used to pick drag laws.
+type Shape string
+
+// Shapes.
+const (
+	Sphere   Shape = "sphere"   // length is the diameter
+	Spheroid Shape = "spheroid" // prolate spheroid moving along its axis: length and maximum diameter
+	Rod      Shape = "rod"      // straight slender rod moving along its axis: length and diameter
+	Cylinder Shape = "cylinder" // circular cylinder moving broadside: length (span) and diameter
+	Measured Shape = "measured" // a measured drag coefficient on a stated reference area
+)
+
+// Shapes lists the accepted shapes.
+var Shapes = []Shape{Sphere, Spheroid, Rod, Cylinder, Measured}
+
+// ParseShape returns the shape named by s.
+func ParseShape(s string) (Shape, error) {
+	for _, sh := range Shapes {
+		if strings.EqualFold(s, string(sh)) {
+			return sh, nil
+		}
+	}
+	names := make([]string, len(Shapes))
+	for i, sh := range Shapes {
+		names[i] = string(sh)
+	}
+	return "", fmt.Errorf("regime: unknown shape %q; accepted: %s", s, strings.Join(names, ", "))
+}
+
+// Body is an organism's size and shape.
+type Body struct {
+	Shape    Shape
+	Length   float64 // m; the diameter for a sphere; the span for a cylinder
+	Diameter float64 // m; maximum diameter (spheroid, rod, cylinder); ignored for a sphere
+	// For Measured: the drag coefficient and the area it refers to (m²).
+	DragCoefficient float64
+	ReferenceArea   float64
+}
+
+// Validate checks the body's dimensions.
+func (b Body) Validate() error {
+	if !(b.Length > 0) || math.IsInf(b.Length, 0) {
+		return fmt.Errorf("regime: length must be a positive size, got %g m", b.Length)
+	}
+	switch b.Shape {
+	case Sphere:
+	case Spheroid, Rod, Cylinder:
+		if !(b.Diameter > 0) || math.IsInf(b.Diameter, 0) {
+			return fmt.Errorf("regime: a %s needs a positive diameter as well as its length", b.Shape)
+		}
+		if b.Shape != Cylinder && b.Diameter > b.Length {
+			return fmt.Errorf("regime: a %s's diameter (%g m) must not exceed its length (%g m); for a flattened body give the longest axis as length", b.Shape, b.Diameter, b.Length)
+		}
+	case Measured:
+		if !(b.DragCoefficient > 0) || !(b.ReferenceArea > 0) || math.IsInf(b.DragCoefficient, 0) || math.IsInf(b.ReferenceArea, 0) {
+			return fmt.Errorf("regime: a measured body needs a positive drag coefficient and reference area")
+		}
+	default:
+		_, err := ParseShape(string(b.Shape))
+		return err
+	}
+	return nil
+}
+
+// Flow is the relative motion of body and fluid.
+type Flow struct {
+	Speed     float64 // m/s
+	Density   float64 // kg/m³
+	Viscosity float64 // dynamic viscosity, Pa·s (apparent, for a non-Newtonian fluid)
+}
+
+// Estimate is one drag law's answer.
+type Estimate struct {
+	Law           string
+	Source        string
+	Force         float64 // N
+	Coefficient   float64 // drag coefficient on ReferenceArea
+	ReferenceArea float64 // m²
+	AreaName      string  // which area the coefficient refers to
+	Reynolds      float64 // on the law's own length
+	Basis         string  // that length, in words
+	ReMin, ReMax  float64 // published range of Reynolds on Basis
+	InRange       bool
+}
+
+// Law is a drag law: its name, source, published range and the range in
+// which this package chooses it.
+type Law struct {
+	Name     string
+	Shape    Shape
+	Source   string
+	Basis    string  // the length its Reynolds number is on
+	AreaName string  // the area its coefficient is on
+	ReMin    float64 // published range (Re on Basis)
+	ReMax    float64
+	ChooseLo float64 // chosen when ChooseLo < Re ≤ ChooseHi, Re on the shape's ChoiceLength
+	ChooseHi float64
+	eval     func(b Body, f Flow, re float64) (cd, area float64)
+	basisLen func(b Body) float64
+}
+
+func frontalSphere(d float64) float64 { return math.Pi * d * d / 4 }
+
+func equalVolumeDiameter(b Body) float64 {
+	switch b.Shape {
+	case Rod:
+		return math.Cbrt(1.5 * b.Diameter * b.Diameter * b.Length)
+	case Spheroid:
+		return math.Cbrt(b.Length * b.Diameter * b.Diameter)
+	}
+	return b.Length
+}
+
+func rodSphericity(l, d float64) float64 {
+	deq := math.Cbrt(1.5 * d * d * l)
+	return deq * deq / (d*l + d*d/2)
+}
+
+func length(b Body) float64   { return b.Length }
+func diameter(b Body) float64 { return b.Diameter }
+
+// linear wraps a creeping-flow force law as a coefficient on area.
+func linear(force func(b Body, f Flow) float64, area func(b Body) float64) func(Body, Flow, float64) (float64, float64) {
+	return func(b Body, f Flow, _ float64) (float64, float64) {
+		a := area(b)
+		return force(b, f) / (0.5 * f.Density * f.Speed * f.Speed * a), a
+	}
+}
+
+func sphereCD(fn func(re float64) float64) func(Body, Flow, float64) (float64, float64) {
+	return func(b Body, _ Flow, re float64) (float64, float64) { return fn(re), frontalSphere(b.Length) }
+}
+
+func frictionLaw(cf func(re float64) float64) func(Body, Flow, float64) (float64, float64) {
+	return func(b Body, _ Flow, re float64) (float64, float64) {
+		return cf(re) * HoernerFormFactor(b.Length, b.Diameter), ProlateSpheroidArea(b.Length, b.Diameter)
+	}
+}
+
+const (
+	srcStokes   = "Stokes 1851, Trans. Camb. Phil. Soc. 9"
+	srcHB       = "Oberbeck 1876; Happel & Brenner 1965, Low Reynolds Number Hydrodynamics, ch. 4"
+	srcCGW      = "Clift, Grace & Weber 1978, Bubbles, Drops, and Particles, Table 5.2"
+	srcHL       = "Haider & Levenspiel 1989, Powder Technol. 58, 63"
+	srcHoerner  = "Hoerner 1965, Fluid-Dynamic Drag, ch. 6 (form factor on wetted area)"
+	wettedArea  = "wetted area of the prolate spheroid"
+	frontalArea = "frontal area πd²/4"
+	eqSphere    = "frontal area of the equal-volume sphere"
+	projected   = "projected area d × length"
+	inf         = math.MaxFloat64
+)
+
+// Laws lists every drag law, grouped by shape, in the order they are tried.
+var Laws = []Law{
+	{Name: "Stokes", Shape: Sphere, Source: srcStokes, Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, eval: sphereCD(StokesCD), basisLen: length},
+	{Name: "Proudman–Pearson", Shape: Sphere, Source: "Proudman & Pearson 1957, J. Fluid Mech. 2, 237", Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, eval: sphereCD(ProudmanPearsonCD), basisLen: length},
+	{Name: "Oseen", Shape: Sphere, Source: "Oseen 1910, Ark. Mat. Astr. Fys. 6", Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 1, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(OseenCD), basisLen: length},
+	{Name: "standard drag curve", Shape: Sphere, Source: srcCGW, Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 1e6, ChooseLo: 1, ChooseHi: inf, eval: sphereCD(StandardCurveCD), basisLen: length},
+	{Name: "Schiller–Naumann", Shape: Sphere, Source: "Schiller & Naumann 1933, Z. Ver. Dtsch. Ing. 77, 318", Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 800, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(SchillerNaumannCD), basisLen: length},
+	{Name: "Clift–Gauvin", Shape: Sphere, Source: "Clift & Gauvin 1970, Proc. Chemeca '70; in Clift, Grace & Weber 1978", Basis: "diameter", AreaName: frontalArea,
+		ReMin: 0, ReMax: 3e5, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(CliftGauvinCD), basisLen: length},
+	{Name: "Newton quadratic", Shape: Sphere, Source: "constant C_D = 0.44 (common practice, e.g. Perry's Chemical Engineers' Handbook)", Basis: "diameter", AreaName: frontalArea,
+		ReMin: 1e3, ReMax: 2e5, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(func(float64) float64 { return NewtonCD }), basisLen: length},
+
+	{Name: "Stokes prolate spheroid", Shape: Spheroid, Source: srcHB, Basis: "length", AreaName: frontalArea,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
+		}, diameterFrontal)},
+	{Name: "Haider–Levenspiel", Shape: Spheroid, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: 0.1, ChooseHi: 1e4, basisLen: equalVolumeDiameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) {
+			deq := equalVolumeDiameter(b)
+			return HaiderLevenspielCD(re, Sphericity(b.Length, b.Diameter)), frontalSphere(deq)
+		}},
+	{Name: "laminar skin friction (Blasius) × form factor", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e4, ChooseHi: 5e5, eval: frictionLaw(BlasiusCf), basisLen: length},
+	{Name: "transitional skin friction (Blasius to Prandtl–Schlichting at Re 5e5) × form factor", Shape: Spheroid, Source: "Prandtl 1927; Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: 5e5, ReMax: 1e9, ChooseLo: 5e5, ChooseHi: inf, eval: frictionLaw(func(re float64) float64 { return TransitionCf(re, 5e5) }), basisLen: length},
+	{Name: "turbulent skin friction (Prandtl–Schlichting) × form factor", Shape: Spheroid, Source: "Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(PrandtlSchlichtingCf), basisLen: length},
+	{Name: "ITTC-1957 line × form factor", Shape: Spheroid, Source: "ITTC 1957, 8th ITTC, Madrid; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: 1e5, ReMax: 1e10, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(ITTC1957Cf), basisLen: length},
+
+	{Name: "slender rod (Cox)", Shape: Rod, Source: "Cox 1970, J. Fluid Mech. 44, 791", Basis: "length", AreaName: frontalArea,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2)
+		}, diameterFrontal)},
+	{Name: "Stokes prolate spheroid of the same length and diameter", Shape: Rod, Source: srcHB, Basis: "length", AreaName: frontalArea,
+		ReMin: 0, ReMax: 0.1, ChooseLo: -1, ChooseHi: -1, basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
+		}, diameterFrontal)},
+	{Name: "Haider–Levenspiel", Shape: Rod, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: 0.1, ChooseHi: inf, basisLen: equalVolumeDiameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) {
+			return HaiderLevenspielCD(re, rodSphericity(b.Length, b.Diameter)), frontalSphere(equalVolumeDiameter(b))
+		}},
+
+	{Name: "Lamb (Oseen cylinder)", Shape: Cylinder, Source: "Lamb 1911, Phil. Mag. 21, 112", Basis: "diameter", AreaName: projected,
+		ReMin: 0, ReMax: 0.5, ChooseLo: 0, ChooseHi: 0.7, basisLen: diameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) { return LambCylinderCD(re), b.Diameter * b.Length }},
+	{Name: "cylinder fit (White)", Shape: Cylinder, Source: "White 2006, Viscous Fluid Flow, 3rd ed.", Basis: "diameter", AreaName: projected,
+		ReMin: 1, ReMax: 2e5, ChooseLo: 0.7, ChooseHi: inf, basisLen: diameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) { return WhiteCylinderCD(re), b.Diameter * b.Length }},
+
+	{Name: "measured drag coefficient", Shape: Measured, Source: "user-supplied C_D and reference area", Basis: "length", AreaName: "the stated reference area",
+		ReMin: 0, ReMax: inf, ChooseLo: 0, ChooseHi: inf, basisLen: length,
+		eval: func(b Body, _ Flow, _ float64) (float64, float64) { return b.DragCoefficient, b.ReferenceArea }},
+}
+
+// ChoiceLength is the length whose Reynolds number picks the law: the
+// diameter of a sphere or cylinder, the length of other shapes.
+func ChoiceLength(b Body) float64 {
+	if b.Shape == Cylinder {
+		return b.Diameter
+	}
+	return b.Length
+}
+
+func diameterFrontal(b Body) float64 { return frontalSphere(b.Diameter) }
+
+// Range returns the law's published range as text.
+func (l Law) Range() string {
+	switch {
+	case l.ReMax >= inf:
+		return fmt.Sprintf("Re ≥ %g", l.ReMin)
+	case l.ReMin <= 0:
+		return fmt.Sprintf("Re ≤ %g", l.ReMax)
+	}
+	return fmt.Sprintf("%g ≤ Re ≤ %g", l.ReMin, l.ReMax)
+}
+
+// DragResult is the chosen estimate, every law's estimate for the shape, and
+// warnings.
+type DragResult struct {
+	Chosen    Estimate
+	Estimates []Estimate
+	Warnings  []Warning
+}
+
+// Drag evaluates every law for the body's shape and chooses the one whose
+// choice range holds the case (see each Law's ChooseLo–ChooseHi).
+func Drag(b Body, f Flow) (DragResult, error) {
+	if err := b.Validate(); err != nil {
+		return DragResult{}, err
+	}
+	if err := f.validate(); err != nil {
+		return DragResult{}, err
+	}
+	var res DragResult
+	chosen := -1
+	reChoice := f.Density * f.Speed * ChoiceLength(b) / f.Viscosity
+	for _, l := range Laws {
+		if l.Shape != b.Shape {
+			continue
+		}
+		re := f.Density * f.Speed * l.basisLen(b) / f.Viscosity
+		cd, area := l.eval(b, f, re)
+		e := Estimate{
+			Law: l.Name, Source: l.Source, Coefficient: cd, ReferenceArea: area, AreaName: l.AreaName,
+			Force: 0.5 * f.Density * f.Speed * f.Speed * cd * area, Reynolds: re, Basis: l.Basis,
+			ReMin: l.ReMin, ReMax: l.ReMax, InRange: re >= l.ReMin && re <= l.ReMax,
+		}
+		if chosen < 0 && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
+			chosen = len(res.Estimates)
+		}
+		res.Estimates = append(res.Estimates, e)
+	}
+	if chosen < 0 {
+		return DragResult{}, fmt.Errorf("regime: no drag law covers a %s at this Reynolds number", b.Shape)
+	}
+	res.Chosen = res.Estimates[chosen]
+	c := res.Chosen
+	if !c.InRange {
+		res.Warnings = append(res.Warnings, warnf(WarnLawOutOfRange, "drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c)))
+	}
+	if b.Shape == Sphere && c.Reynolds > 2e5 {
+		res.Warnings = append(res.Warnings, warnf(WarnDragCrisis, "drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds))
+	}
+	if b.Shape == Rod && b.Length/(b.Diameter/2) < 10 {
+		res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2)))
+	}
+	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {
+		if r := b.Length / b.Diameter; r < 2 || r > 10 {
+			res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r))
+		}
+	}
+	return res, nil
+}
+
+func lawRange(e Estimate) string {
+	return Law{ReMin: e.ReMin, ReMax: e.ReMax}.Range()
+}
+
+func (f Flow) validate() error {
+	switch {
+	case !(f.Speed > 0) || math.IsInf(f.Speed, 0):
+		return fmt.Errorf("regime: speed must be positive, got %g m/s", f.Speed)
+	case !(f.Density > 0) || math.IsInf(f.Density, 0):
+		return fmt.Errorf("regime: fluid density must be positive, got %g kg/m³", f.Density)
+	case !(f.Viscosity > 0) || math.IsInf(f.Viscosity, 0):
+		return fmt.Errorf("regime: fluid viscosity must be positive, got %g Pa·s", f.Viscosity)
+	}
+	return nil
+}

@@ -1,0 +1,97 @@
+package regime
+
+import "math"
+
+// Reynolds returns Re = U L / ν for speed u (m/s), length l (m) and
+// kinematic viscosity nu (m²/s).
+func Reynolds(u, l, nu float64) float64 { return u * l / nu }
+
+// Strouhal returns St = f A / U for stroke frequency f (Hz), peak-to-peak
+// amplitude a (m) of the tail or wing tip, and forward speed u (m/s).
+//
+// Reference: Taylor, G. K., Nudds, R. L. & Thomas, A. L. R. (2003), Flying
+// and swimming animals cruise at a Strouhal number tuned for high power
+// efficiency, Nature 425, 707–711.
+func Strouhal(f, a, u float64) float64 { return f * a / u }
+
+// Efficient cruising band of the Strouhal number, 0.2 < St < 0.4 (Taylor,
+// Nudds & Thomas 2003, Nature 425, 707).
+const (
+	StrouhalLow  = 0.2
+	StrouhalHigh = 0.4
+)
+
+// StrouhalBand says where st lies against the efficient cruising band:
+// "below", "within" or "above".
+func StrouhalBand(st float64) string {
+	switch {
+	case st < StrouhalLow:
+		return "below"
+	case st > StrouhalHigh:
+		return "above"
+	}
+	return "within"
+}
+
+// AdvanceRatio returns J = V/(2ΦnR), forward speed over mean wing-tip
+// flapping speed, for speed v (m/s), stroke amplitude phi (rad,
+// peak-to-peak), wingbeat frequency n (Hz) and wing length r (m); 0 in
+// hover.
+//
+// Reference: Ellington, C. P. (1984), The aerodynamics of hovering insect
+// flight. III. Kinematics, Phil. Trans. R. Soc. Lond. B 305, 41–78.
+func AdvanceRatio(v, phi, n, r float64) float64 { return v / (2 * phi * n * r) }
+
+// ReducedFrequency returns k = ωc/(2U) = πfc/U for frequency f (Hz), mean
+// chord c (m) and reference speed u (m/s); this package takes the forward
+// speed as the reference.
+func ReducedFrequency(f, c, u float64) float64 { return math.Pi * f * c / u }
+
+// Regime names, by the Reynolds number on the body's characteristic length.
+// The boundaries Re = 1 and Re = 1000 are common practice (see Vogel, S.
+// (1994), Life in Moving Fluids, 2nd ed., Princeton, ch. 5), not sharp
+// physical limits.
+const (
+	RegimeViscous      = "viscous"      // Re < 1: creeping flow, drag ∝ speed, no coasting
+	RegimeIntermediate = "intermediate" // 1 ≤ Re < 1000: viscous and inertial forces both matter
+	RegimeInertial     = "inertial"     // Re ≥ 1000: inertia dominates, drag ∝ speed², wakes
+)
+
+// Regimes lists the regime names in order of Reynolds number.
+var Regimes = []string{RegimeViscous, RegimeIntermediate, RegimeInertial}
+
+// Classify returns the flow regime for a Reynolds number.
+func Classify(re float64) string {
+	switch {
+	case re < 1:
+		return RegimeViscous
+	case re < 1000:
+		return RegimeIntermediate
+	}
+	return RegimeInertial
+}
+
+// Boundary-layer states of a streamlined body.
+const (
+	LayerLaminar   = "laminar"
+	LayerTurbulent = "turbulent"
+)
+
+// TransitionReynolds is the length Reynolds number at which a flat-plate
+// boundary layer is taken to turn turbulent, 5e5 (common practice for low
+// free-stream turbulence; Schlichting 1979, Boundary-Layer Theory, ch. 16,
+// gives 3e5–3e6 depending on disturbances).
+const TransitionReynolds = 5e5
+
+// BoundaryLayer returns "laminar" or "turbulent" for a streamlined body at
+// length Reynolds number re ≥ 1000, and "" below, where a thin boundary
+// layer does not form.
+func BoundaryLayer(re float64) string {
+	switch {
+	case re < 1000:
+		return ""
+	case re < TransitionReynolds:
+		return LayerLaminar
+	}
+	return LayerTurbulent
+}
