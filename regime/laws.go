@@ -168,9 +168,10 @@ const (
 	srcStokes   = "Stokes 1851, Trans. Camb. Phil. Soc. 9"
 	srcHB       = "Oberbeck 1876; Happel & Brenner 1965, Low Reynolds Number Hydrodynamics, ch. 4"
 	srcCGW      = "Clift, Grace & Weber 1978, Bubbles, Drops, and Particles, Table 5.2"
-	srcHL       = "Haider & Levenspiel 1989, Powder Technol. 58, 63"
+	srcHL       = "Haider & Levenspiel 1989, Powder Technol. 58, 63 (freely moving non-spherical particles)"
+	srcBrenner  = "Brenner 1961, J. Fluid Mech. 11, 604 (Oseen correction for any shape)"
 	srcHoerner  = "Hoerner 1965, Fluid-Dynamic Drag, ch. 6 (form factor on wetted area)"
-	wettedArea  = "wetted area of the prolate spheroid"
+	wettedArea  = "wetted area of the prolate spheroid, with Hoerner's form factor"
 	frontalArea = "frontal area πd²/4"
 	eqSphere    = "frontal area of the equal-volume sphere"
 	projected   = "projected area d × length"
@@ -199,19 +200,24 @@ var Laws = []Law{
 		eval: linear(func(b Body, f Flow) float64 {
 			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
 		}, diameterFrontal)},
+	{Name: "Oseen–Brenner spheroid", Shape: Spheroid, Source: srcBrenner, Basis: "length", AreaName: frontalArea,
+		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return OseenCorrection(ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter), f.Density, f.Viscosity)
+		}, diameterFrontal)},
 	{Name: "Haider–Levenspiel", Shape: Spheroid, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
-		ReMin: 0, ReMax: 2.6e5, ChooseLo: 0.1, ChooseHi: 1e4, basisLen: equalVolumeDiameter,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: 1, ChooseHi: 1e3, basisLen: equalVolumeDiameter,
 		eval: func(b Body, _ Flow, re float64) (float64, float64) {
 			deq := equalVolumeDiameter(b)
 			return HaiderLevenspielCD(re, Sphericity(b.Length, b.Diameter)), frontalSphere(deq)
 		}},
-	{Name: "laminar skin friction (Blasius) × form factor", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e4, ChooseHi: 5e5, eval: frictionLaw(BlasiusCf), basisLen: length},
-	{Name: "transitional skin friction (Blasius to Prandtl–Schlichting at Re 5e5) × form factor", Shape: Spheroid, Source: "Prandtl 1927; Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+	{Name: "skin friction, laminar (Blasius)", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: 5e5, eval: frictionLaw(BlasiusCf), basisLen: length},
+	{Name: "skin friction, transition at Re 5e5", Shape: Spheroid, Source: "Prandtl 1927; Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 5e5, ReMax: 1e9, ChooseLo: 5e5, ChooseHi: inf, eval: frictionLaw(func(re float64) float64 { return TransitionCf(re, 5e5) }), basisLen: length},
-	{Name: "turbulent skin friction (Prandtl–Schlichting) × form factor", Shape: Spheroid, Source: "Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+	{Name: "skin friction, turbulent (Prandtl–Schlichting)", Shape: Spheroid, Source: "Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(PrandtlSchlichtingCf), basisLen: length},
-	{Name: "ITTC-1957 line × form factor", Shape: Spheroid, Source: "ITTC 1957, 8th ITTC, Madrid; " + srcHoerner, Basis: "length", AreaName: wettedArea,
+	{Name: "skin friction, ITTC-1957 line", Shape: Spheroid, Source: "ITTC 1957, 8th ITTC, Madrid; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 1e5, ReMax: 1e10, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(ITTC1957Cf), basisLen: length},
 
 	{Name: "slender rod (Cox)", Shape: Rod, Source: "Cox 1970, J. Fluid Mech. 44, 791", Basis: "length", AreaName: frontalArea,
@@ -224,8 +230,13 @@ var Laws = []Law{
 		eval: linear(func(b Body, f Flow) float64 {
 			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
 		}, diameterFrontal)},
+	{Name: "Oseen–Brenner rod", Shape: Rod, Source: "Cox 1970; " + srcBrenner, Basis: "length", AreaName: frontalArea,
+		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return OseenCorrection(SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2), f.Density, f.Viscosity)
+		}, diameterFrontal)},
 	{Name: "Haider–Levenspiel", Shape: Rod, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
-		ReMin: 0, ReMax: 2.6e5, ChooseLo: 0.1, ChooseHi: inf, basisLen: equalVolumeDiameter,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: 1, ChooseHi: inf, basisLen: equalVolumeDiameter,
 		eval: func(b Body, _ Flow, re float64) (float64, float64) {
 			return HaiderLevenspielCD(re, rodSphericity(b.Length, b.Diameter)), frontalSphere(equalVolumeDiameter(b))
 		}},
@@ -272,8 +283,10 @@ type DragResult struct {
 	Warnings  []Warning
 }
 
-// Drag evaluates every law for the body's shape and chooses the one whose
-// choice range holds the case (see each Law's ChooseLo–ChooseHi).
+// Drag evaluates the laws for the body's shape and chooses the one whose
+// choice range holds the case (see each Law's ChooseLo–ChooseHi). Estimates
+// holds the chosen law's and every other law within two decades of Re of
+// its published range, each flagged in or out of range.
 func Drag(b Body, f Flow) (DragResult, error) {
 	if err := b.Validate(); err != nil {
 		return DragResult{}, err
@@ -295,7 +308,11 @@ func Drag(b Body, f Flow) (DragResult, error) {
 			Force: 0.5 * f.Density * f.Speed * f.Speed * cd * area, Reynolds: re, Basis: l.Basis,
 			ReMin: l.ReMin, ReMax: l.ReMax, InRange: re >= l.ReMin && re <= l.ReMax,
 		}
-		if chosen < 0 && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
+		isChosen := chosen < 0 && reChoice > l.ChooseLo && reChoice <= l.ChooseHi
+		if !isChosen && !applicable(e) {
+			continue
+		}
+		if isChosen {
 			chosen = len(res.Estimates)
 		}
 		res.Estimates = append(res.Estimates, e)
@@ -314,12 +331,24 @@ func Drag(b Body, f Flow) (DragResult, error) {
 	if b.Shape == Rod && b.Length/(b.Diameter/2) < 10 {
 		res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2)))
 	}
+	if c.Law == "Haider–Levenspiel" && (b.Shape == Spheroid || b.Shape == Rod) {
+		res.Warnings = append(res.Warnings, warnf(WarnModel, "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"))
+	}
 	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {
 		if r := b.Length / b.Diameter; r < 2 || r > 10 {
 			res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r))
 		}
 	}
 	return res, nil
+}
+
+// applicable reports whether an estimate is worth showing beside the chosen
+// one: finite, and within two decades of Re of its law's published range.
+func applicable(e Estimate) bool {
+	if math.IsNaN(e.Force) || math.IsInf(e.Force, 0) || e.Force <= 0 {
+		return false
+	}
+	return e.Reynolds >= e.ReMin/100 && e.Reynolds <= e.ReMax*100
 }
 
 func lawRange(e Estimate) string {

@@ -394,3 +394,12 @@ func TestSphereLawChoice(t *testing.T) {
 		}
 	}
 }
+
+// Brenner (1961): for a sphere the general Oseen correction is Oseen's
+// F = 3πμdU (1 + 3Re/16).
+func TestOseenBrennerSphere(t *testing.T) {
+	const mu, rho, d, u = 1e-3, 1000.0, 1e-3, 5e-4
+	fs := 3 * math.Pi * mu * d * u
+	re := rho * u * d / mu
+	checkRel(t, "Brenner sphere", OseenCorrection(fs, rho, mu), fs*(1+3*re/16), 1e-12)
+}

@@ -72,8 +72,8 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 	}
 	rhoF, mu := m.Density, m.DynamicViscosity
 	drho := p.Density - rhoF
-	if math.Abs(drho) <= 1e-9*rhoF {
-		return s, fmt.Errorf("regime: particle density %.6g kg/m³ equals the medium's (%.6g kg/m³): it neither sinks nor rises", p.Density, rhoF)
+	if math.Abs(drho) <= 1e-5*rhoF { // equal within the medium density's own accuracy
+		return s, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, rhoF)
 	}
 	d, phi := p.Diameter, 1.0
 	s.Law, s.Source, s.Basis = "Clift–Gauvin", "Clift & Gauvin 1970; in Clift, Grace & Weber 1978", "diameter"

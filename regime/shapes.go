@@ -103,3 +103,14 @@ func LambCylinderCD(re float64) float64 {
 // Reference: White, F. M. (2006), Viscous Fluid Flow, 3rd ed., McGraw-Hill,
 // ch. 3.
 func WhiteCylinderCD(re float64) float64 { return 1 + 10*math.Pow(re, -2.0/3) }
+
+// OseenCorrection returns the creeping-flow drag fS (N) of a body translating
+// along an axis of symmetry corrected for the first effect of inertia,
+// F = F_S (1 + F_S ρ/(16πμ²)), valid for any shape at Re ≲ 1; for a sphere
+// it is Oseen's (1 + 3Re/16).
+//
+// Reference: Brenner, H. (1961), The Oseen resistance of a particle of
+// arbitrary shape, J. Fluid Mech. 11, 604–610.
+func OseenCorrection(fS, rho, mu float64) float64 {
+	return fS * (1 + fS*rho/(16*math.Pi*mu*mu))
+}

@@ -37,6 +37,8 @@ const (
 	Number                  // plain number (drag coefficient, factors)
 	Time                    // s
 	ShearRate               // 1/s
+	Angle                   // rad; bare numbers are degrees
+	Diffusivity             // m²/s
 )
 
 // Value is a parsed quantity in the library's units (see each Kind).
@@ -71,21 +73,26 @@ var units = map[Kind]map[string]conv{
 	Number:    {},
 	Time:      {"µs": {1e-6, 0, ""}, "us": {1e-6, 0, ""}, "ms": {1e-3, 0, ""}, "s": {1, 0, ""}, "min": {60, 0, ""}, "h": {3600, 0, ""}},
 	ShearRate: {"1/s": {1, 0, ""}, "/s": {1, 0, ""}, "s-1": {1, 0, ""}, "s⁻¹": {1, 0, ""}},
+	Angle:     {"deg": {math.Pi / 180, 0, ""}, "°": {math.Pi / 180, 0, ""}, "rad": {1, 0, ""}},
+	Diffusivity: {"m2/s": {1, 0, ""}, "m²/s": {1, 0, ""}, "cm2/s": {1e-4, 0, ""}, "cm²/s": {1e-4, 0, ""},
+		"mm2/s": {1e-6, 0, ""}, "mm²/s": {1e-6, 0, ""}, "µm2/s": {1e-12, 0, ""}, "µm²/s": {1e-12, 0, ""}},
 }
 
 // bareOK lists kinds whose bare numbers have a stated meaning.
-var bareOK = map[Kind]bool{Temperature: true, Salinity: true, Humidity: true, Fraction: true, Number: true}
+var bareOK = map[Kind]bool{Temperature: true, Salinity: true, Humidity: true, Fraction: true, Number: true, Angle: true}
 
 var examples = map[Kind]string{
 	Length: "12mm", Height: "250m", Speed: "0.4m/s", Temperature: "18C", Pressure: "101.325kPa",
 	Salinity: "35psu", Humidity: "60%", Mass: "2.5g", Frequency: "8Hz", Density: "1050kg/m3",
-	Area: "2cm2", Fraction: "0.2", Number: "0.47", Time: "0.5s", ShearRate: "10/s",
+	Area: "2cm2", Fraction: "0.2", Number: "0.47", Time: "0.5s", ShearRate: "10/s", Angle: "120deg",
+	Diffusivity: "2.1e-9m2/s",
 }
 
 var names = map[Kind]string{
 	Length: "length", Height: "depth or altitude", Speed: "speed", Temperature: "temperature", Pressure: "pressure",
 	Salinity: "salinity", Humidity: "relative humidity", Mass: "mass", Frequency: "frequency", Density: "density",
 	Area: "area", Fraction: "fraction", Number: "number", Time: "time", ShearRate: "shear rate",
+	Angle: "angle", Diffusivity: "diffusivity",
 }
 
 // Example returns an accepted way to write a value of kind k.
@@ -96,7 +103,8 @@ func Units(k Kind) []string {
 	order := []string{"nm", "µm", "um", "mm", "cm", "m", "km", "ft", "µm/s", "um/s", "mm/s", "cm/s", "m/s", "km/h", "kn", "kt", "BL/s",
 		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "%",
 		"µg", "ug", "mg", "g", "kg", "Hz", "kHz", "/s", "1/s", "/min", "1/min", "kg/m3", "kg/m³", "g/cm3", "g/cm³", "g/mL", "g/ml",
-		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹"}
+		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹", "deg", "°", "rad",
+		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s"}
 	var out []string
 	for _, u := range order {
 		if _, ok := units[k][u]; ok {
@@ -173,6 +181,9 @@ func Parse(k Kind, text string) (Value, error) {
 
 func lookupUnit(k Kind, unit, text string) (conv, error) {
 	if unit == "" {
+		if k == Angle {
+			return units[Angle]["deg"], nil
+		}
 		if bareOK[k] {
 			return conv{factor: 1}, nil
 		}

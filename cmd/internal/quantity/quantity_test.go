@@ -57,6 +57,10 @@ func TestParse(t *testing.T) {
 		{Fraction, "0.2", 0.2, 0},
 		{Fraction, "20%", 0.2, 0},
 		{Number, "0.47", 0.47, 0},
+		{Angle, "90", math.Pi / 2, 0},
+		{Angle, "90deg", math.Pi / 2, 0},
+		{Angle, "1.5rad", 1.5, 0},
+		{Diffusivity, "2.1e-5cm2/s", 2.1e-9, 0},
 	}
 	for _, c := range cases {
 		v, err := Parse(c.k, c.in)
@@ -110,7 +114,7 @@ func FuzzParse(f *testing.F) {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {
-		for k := Length; k <= ShearRate; k++ {
+		for k := Length; k <= Diffusivity; k++ {
 			v, err := Parse(k, s)
 			if err == nil && (math.IsNaN(v.SI) || math.IsInf(v.SI, 0) || math.IsNaN(v.SD) || v.SD < 0) {
 				t.Fatalf("Parse(%d, %q) = %+v without error", k, s, v)

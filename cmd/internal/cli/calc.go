@@ -1,0 +1,286 @@
+package cli
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/cmd/internal/report"
+	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
+	"github.com/spf13/cobra"
+)
+
+// organismFlags are the organism's measurements as typed.
+type organismFlags struct {
+	length, diameter, shape, speed, freq, amplitude, mass, span, wingLength, chord, wingArea      string
+	strokeAngle, efficiency, dragCoefficient, area, inducedFactor, profileDrag, disc, diffusivity string
+}
+
+func (f *organismFlags) bind(cmd *cobra.Command) {
+	fs := cmd.Flags()
+	fs.StringVar(&f.length, "length", "", "characteristic length: body length, or the diameter of a sphere, e.g. 12mm")
+	fs.StringVar(&f.diameter, "diameter", "", "maximum body diameter (spheroid, rod, cylinder), e.g. 2.5mm")
+	fs.StringVar(&f.shape, "shape", "", "sphere, spheroid, rod, cylinder or measured (default: spheroid with --diameter, else sphere)")
+	fs.StringVar(&f.speed, "speed", "", "swimming or flight speed, e.g. 0.4m/s, 30um/s, 3BL/s")
+	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min")
+	fs.StringVar(&f.amplitude, "amplitude", "", "peak-to-peak tail-tip or wing-tip excursion, e.g. 4cm")
+	fs.StringVar(&f.mass, "mass", "", "body mass, e.g. 20g")
+	fs.StringVar(&f.span, "span", "", "wingspan tip to tip (flyers), e.g. 35cm")
+	fs.StringVar(&f.wingLength, "wing-length", "", "one wing, root to tip (default: half the span), e.g. 2.5mm")
+	fs.StringVar(&f.chord, "chord", "", "mean wing chord, e.g. 8cm")
+	fs.StringVar(&f.wingArea, "wing-area", "", "area of both wings, e.g. 200cm2 (or give --chord)")
+	fs.StringVar(&f.strokeAngle, "stroke-angle", "", "peak-to-peak wing stroke amplitude, e.g. 120deg (default: from --amplitude and wing length)")
+	fs.StringVar(&f.efficiency, "efficiency", "", "propulsive efficiency of a swimmer, 0–1 or % (default 1: towing power)")
+	fs.StringVar(&f.dragCoefficient, "drag-coefficient", "", "measured drag coefficient (with --area; sets --shape measured)")
+	fs.StringVar(&f.area, "area", "", "reference area of the measured drag coefficient, e.g. 3cm2")
+	fs.StringVar(&f.inducedFactor, "induced-factor", "", fmt.Sprintf("induced-power factor k of flight (default %g, common practice)", regime.DefaultInducedFactor))
+	fs.StringVar(&f.profileDrag, "profile-drag", "", "profile-drag coefficient of the wings (default: flat-plate skin friction, a lower bound)")
+	fs.StringVar(&f.disc, "disc", regime.DiscSpan, "actuator disc of flight: span (circle of the wingspan) or stroke (area swept by the wings)")
+	fs.StringVar(&f.diffusivity, "diffusivity", "", "solute diffusivity for the Péclet number, e.g. 2e-9m2/s (default: dissolved O2 in water)")
+}
+
+// optional parses a flag, returning NaN when it is empty.
+func optional(name, text string, k quantity.Kind) (quantity.Value, error) {
+	if text == "" {
+		return quantity.Value{SI: math.NaN()}, nil
+	}
+	v, err := quantity.Parse(k, text)
+	if err != nil {
+		return v, usagef("--%s: %v", name, err)
+	}
+	return v, nil
+}
+
+// flagReader parses flags one after another and keeps the first error.
+type flagReader struct{ err error }
+
+func (r *flagReader) value(name, text string, k quantity.Kind) float64 {
+	if r.err != nil {
+		return math.NaN()
+	}
+	v, err := optional(name, text, k)
+	if err != nil {
+		r.err = err
+		return math.NaN()
+	}
+	return v.SI
+}
+
+// organism turns the flags into a regime.Organism.
+func (f *organismFlags) organism() (regime.Organism, error) {
+	var o regime.Organism
+	if f.length == "" {
+		return o, usagef("--length is required, e.g. --length 12mm (a sphere's diameter, or the body length)")
+	}
+	if f.speed == "" {
+		return o, usagef("--speed is required, e.g. --speed 0.4m/s or --speed 3BL/s")
+	}
+	var rd flagReader
+	length := rd.value("length", f.length, quantity.Length)
+	dia := rd.value("diameter", f.diameter, quantity.Length)
+	if rd.err != nil {
+		return o, rd.err
+	}
+	sp, err := optional("speed", f.speed, quantity.Speed)
+	if err != nil {
+		return o, err
+	}
+	speed := sp.SI
+	if sp.PerBodyLength {
+		speed *= length
+	}
+	shape := regime.Sphere
+	if !math.IsNaN(dia) {
+		shape = regime.Spheroid
+	}
+	if f.dragCoefficient != "" || f.area != "" {
+		shape = regime.Measured
+	}
+	if f.shape != "" {
+		s, err := regime.ParseShape(f.shape)
+		if err != nil {
+			return o, usagef("--shape: %s", trimPkg(err))
+		}
+		shape = s
+	}
+	b := regime.Body{Shape: shape, Length: length, Diameter: dia}
+	if shape == regime.Measured {
+		if f.dragCoefficient == "" || f.area == "" {
+			return o, usagef("a measured body needs both --drag-coefficient and --area (the area the coefficient refers to)")
+		}
+		b.DragCoefficient = rd.value("drag-coefficient", f.dragCoefficient, quantity.Number)
+		b.ReferenceArea = rd.value("area", f.area, quantity.Area)
+	}
+	o = regime.NewOrganism(b, speed)
+	o.Frequency = rd.value("freq", f.freq, quantity.Frequency)
+	o.Amplitude = rd.value("amplitude", f.amplitude, quantity.Length)
+	o.Mass = rd.value("mass", f.mass, quantity.Mass)
+	o.Span = rd.value("span", f.span, quantity.Length)
+	o.WingLength = rd.value("wing-length", f.wingLength, quantity.Length)
+	o.Chord = rd.value("chord", f.chord, quantity.Length)
+	o.WingArea = rd.value("wing-area", f.wingArea, quantity.Area)
+	o.StrokeAngle = rd.value("stroke-angle", f.strokeAngle, quantity.Angle)
+	o.Efficiency = rd.value("efficiency", f.efficiency, quantity.Fraction)
+	o.InducedFactor = rd.value("induced-factor", f.inducedFactor, quantity.Number)
+	o.ProfileCD = rd.value("profile-drag", f.profileDrag, quantity.Number)
+	o.Diffusivity = rd.value("diffusivity", f.diffusivity, quantity.Diffusivity)
+	o.Disc = f.disc
+	if rd.err != nil {
+		return o, rd.err
+	}
+	if err := b.Validate(); err != nil {
+		return o, usagef("%s", trimPkg(err))
+	}
+	return o, nil
+}
+
+type calcOptions struct {
+	organism organismFlags
+	medium   string
+	flags    mediumFlags
+	format   string
+}
+
+const calcConventions = `
+Conventions:
+  Reynolds number Re = U L / ν on the --length (for a sphere its diameter);
+  each drag law also reports Re on its own length (diameter, length, or the
+  diameter of the sphere of equal volume). Drag coefficients state their
+  reference area: frontal πd²/4 for spheres, the wetted area of the prolate
+  spheroid for skin-friction laws, d × length for cylinders, the given
+  --area for a measured coefficient. The Strouhal number St = f A / U uses
+  the peak-to-peak amplitude A; the efficient cruising band is 0.2–0.4
+  (Taylor, Nudds & Thomas 2003). The reduced frequency k = π f c / U uses the
+  forward speed U. Regimes: viscous Re < 1, intermediate 1–1000, inertial
+  ≥ 1000 (common practice); streamlined bodies also get a laminar or
+  turbulent boundary layer (transition at Re 5e5).
+  Power: swimmers get drag × speed ÷ efficiency (towing power at efficiency
+  1). In air, with --mass and --span, flight power is induced (momentum
+  theory, Rankine–Froude in hover, Glauert in forward flight, factor
+  --induced-factor) + parasite (the body's drag × speed) + profile (blade
+  element over both wings with --profile-drag).
+  'flowregime laws' lists every drag law with its source and range.`
+
+func newCalcCmd(s Streams) *cobra.Command {
+	o := &calcOptions{}
+	cmd := &cobra.Command{
+		Use:   "calc --length <L> --speed <U> [flags]",
+		Short: "Reynolds and Strouhal numbers, regime, drag and power of one organism",
+		Long: `Compute, for one organism in its medium, the Reynolds number, the flow regime,
+the Strouhal number of its stroke, the drag from the law whose range fits
+(with every other law's estimate beside it) and the power it needs.
+` + calcConventions + "\n" + mediumFlagHelp + "\n\n" + estimateNotice,
+		Example: `  # a bacterium
+  flowregime calc --length 2um --diameter 1um --speed 30um/s --medium freshwater --temp 25C
+  # a trout cruising
+  flowregime calc --length 30cm --diameter 5cm --speed 2BL/s --freq 4Hz --amplitude 6cm --medium freshwater --temp 12C
+  # a swift in level flight
+  flowregime calc --length 16cm --diameter 3.5cm --speed 10m/s --mass 40g --span 42cm --chord 4cm --freq 8Hz --amplitude 20cm --medium air --altitude 500m`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := report.CheckFormat(o.format); err != nil {
+				return usageError{err}
+			}
+			return runCalc(o, s)
+		},
+	}
+	o.organism.bind(cmd)
+	cmd.Flags().StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater or seawater")
+	o.flags.bind(cmd.Flags())
+	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
+	return cmd
+}
+
+func runCalc(o *calcOptions, s Streams) error {
+	org, err := o.organism.organism()
+	if err != nil {
+		return err
+	}
+	m, err := o.flags.lookup(o.medium)
+	if err != nil {
+		return err
+	}
+	r, err := regime.Calc(org, m)
+	if err != nil {
+		return fmt.Errorf("%s", trimPkg(err))
+	}
+	switch o.format {
+	case report.FormatJSON:
+		return report.JSON(s.Out, newCalcJSON(r))
+	case report.FormatCSV:
+		return report.Fields(s.Out, o.format, append(calcFields(r), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
+	}
+	if err := report.Fields(s.Out, o.format, calcFields(r)); err != nil {
+		return err
+	}
+	fmt.Fprintln(s.Out, "\nDrag by every law for this shape (chosen law first):")
+	if err := report.Table(s.Out, []string{"law", "Re", "Re on", "C_D", "reference area (m²)", "drag (N)", "in range"}, estimateRows(r.Drag)); err != nil {
+		return err
+	}
+	fmt.Fprintf(s.Out, "C_D of %s is on the %s.\n", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName)
+	report.List(s.Out, "Medium", []string{fmt.Sprintf("%s at %s °C: ρ = %s kg/m³, μ = %s Pa·s", m.Medium, report.Num(m.TemperatureC, 4), report.Num(m.Density, 6), report.Num(m.DynamicViscosity, 5))})
+	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
+	return nil
+}
+
+func estimateRows(d regime.DragResult) [][]string {
+	var rows [][]string
+	add := func(e regime.Estimate) {
+		in := "yes"
+		if !e.InRange {
+			in = "no (" + regime.Law{ReMin: e.ReMin, ReMax: e.ReMax}.Range() + ")"
+		}
+		rows = append(rows, []string{e.Law, report.Num(e.Reynolds, 4), e.Basis, report.Num(e.Coefficient, 4), report.Num(e.ReferenceArea, 4), report.Num(e.Force, 4), in})
+	}
+	add(d.Chosen)
+	for _, e := range d.Estimates {
+		if e.Law != d.Chosen.Law {
+			add(e)
+		}
+	}
+	return rows
+}
+
+func calcFields(r regime.Result) []report.Field {
+	fs := []report.Field{
+		report.F("reynolds", "Reynolds number (on --length)", r.Reynolds, 4),
+		{Key: "regime", Label: "flow regime", Value: r.Regime},
+	}
+	if r.BoundaryLayer != "" {
+		fs = append(fs, report.Field{Key: "boundary_layer", Label: "boundary layer", Value: r.BoundaryLayer})
+	}
+	opt := func(key, label string, v float64, sig int) {
+		if !math.IsNaN(v) {
+			fs = append(fs, report.F(key, label, v, sig))
+		}
+	}
+	opt("strouhal", "Strouhal number (peak-to-peak)", r.Strouhal, 3)
+	if r.StrouhalBand != "" {
+		fs = append(fs, report.Field{Key: "strouhal_band", Label: "St vs cruising band 0.2–0.4", Value: r.StrouhalBand})
+	}
+	opt("advance_ratio", "advance ratio J", r.AdvanceRatio, 3)
+	opt("reduced_frequency", "reduced frequency k (on forward speed)", r.ReducedFrequency, 3)
+	fs = append(fs,
+		report.Field{Key: "drag_law", Label: "drag law", Value: r.Drag.Chosen.Law},
+		report.F("drag_coefficient", "drag coefficient", r.Drag.Chosen.Coefficient, 4),
+		report.F("drag_N", "drag (N)", r.Drag.Chosen.Force, 4),
+		report.Field{Key: "power_kind", Label: "power", Value: r.Power.Kind},
+		report.F("power_W", "power needed (W)", r.Power.Total, 4),
+	)
+	if f := r.Power.Flight; f != nil {
+		fs = append(fs,
+			report.F("induced_power_W", "  induced power (W)", f.Induced, 4),
+			report.F("parasite_power_W", "  parasite power (W)", f.Parasite, 4),
+			report.F("profile_power_W", "  profile power (W)", f.Profile, 4),
+			report.F("hover_induced_power_W", "  induced power in hover (W)", f.HoverInduced, 4),
+			report.F("profile_drag_coefficient", "  profile-drag coefficient", f.ProfileCD, 3),
+		)
+	}
+	opt("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3)
+	opt("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3)
+	opt("peclet", "Péclet number (on --length)", r.Peclet, 3)
+	opt("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3)
+	return fs
+}

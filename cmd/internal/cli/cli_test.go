@@ -1,0 +1,180 @@
+package cli
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"strings"
+	"testing"
+)
+
+// run executes the command line in-process on a fresh command tree.
+func run(t *testing.T, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code = Main(args, Streams{In: strings.NewReader(""), Out: &out, Err: &errb})
+	return out.String(), errb.String(), code
+}
+
+func decode(t *testing.T, s string) map[string]any {
+	t.Helper()
+	var m map[string]any
+	if err := json.Unmarshal([]byte(s), &m); err != nil {
+		t.Fatalf("bad JSON: %v\n%s", err, s)
+	}
+	return m
+}
+
+func num(t *testing.T, m map[string]any, path ...string) float64 {
+	t.Helper()
+	var v any = m
+	for _, p := range path {
+		mm, ok := v.(map[string]any)
+		if !ok {
+			t.Fatalf("%v: not an object at %q", path, p)
+		}
+		v = mm[p]
+	}
+	f, ok := v.(float64)
+	if !ok {
+		t.Fatalf("%v = %v, not a number", path, v)
+	}
+	return f
+}
+
+// The medium command's JSON names are read by scripts. Values: water at
+// 20 °C is 998.2067 kg/m³ (Tanaka et al. 2001) and 1.0016 mPa·s (ISO/TR
+// 3666:1998).
+func TestMediumJSON(t *testing.T) {
+	out, errs, code := run(t, "medium", "freshwater", "--temp", "20C", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	for _, k := range []string{"medium", "temperature_C", "pressure_Pa", "density_kg_m3", "dynamic_viscosity_Pa_s", "kinematic_viscosity_m2_s", "methods", "warnings"} {
+		if _, ok := m[k]; !ok {
+			t.Errorf("JSON lacks %q", k)
+		}
+	}
+	if d := num(t, m, "density_kg_m3"); math.Abs(d-998.2067) > 0.02 {
+		t.Errorf("density %g", d)
+	}
+	if mu := num(t, m, "dynamic_viscosity_Pa_s"); math.Abs(mu/1.0016e-3-1) > 1e-4 {
+		t.Errorf("viscosity %g", mu)
+	}
+}
+
+func TestMediumTableAndCSV(t *testing.T) {
+	out, _, code := run(t, "medium", "seawater", "--temp", "12C", "--depth", "40m")
+	if code != 0 || !strings.Contains(out, "density (kg/m³)") || !strings.Contains(out, "Methods:") || !strings.Contains(out, "EOS-80") {
+		t.Errorf("table output (exit %d):\n%s", code, out)
+	}
+	out, _, _ = run(t, "medium", "air", "--altitude", "1500m", "--format", "csv")
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	if len(lines) != 2 || !strings.HasPrefix(lines[0], "medium,temperature_C,pressure_Pa") {
+		t.Errorf("csv output:\n%s", out)
+	}
+}
+
+func TestBadInputIsOneLine(t *testing.T) {
+	cases := []struct {
+		args []string
+		want string
+		code int
+	}{
+		{[]string{"medium", "oil"}, "unknown medium \"oil\"", ExitFailure},
+		{[]string{"medium"}, "needs one argument", ExitUsage},
+		{[]string{"medium", "freshwater", "--temp", "-5C"}, "below its freezing point", ExitFailure},
+		{[]string{"medium", "freshwater", "--depth", "30"}, "--depth: depth or altitude \"30\" has no unit", ExitUsage},
+		{[]string{"medium", "air", "--format", "xml"}, "--format \"xml\"", ExitUsage},
+		{[]string{"medium", "air", "--bogus"}, "unknown flag", ExitUsage},
+		{[]string{"calc", "--length", "12", "--speed", "1m/s"}, "--length: length \"12\" has no unit; write it with one, for example 12mm", ExitUsage},
+		{[]string{"calc", "--length", "-12mm", "--speed", "1m/s"}, "length must be a positive size", ExitUsage},
+		{[]string{"calc", "--length", "12mm", "--speed", "0m/s"}, "speed must be positive", ExitFailure},
+		{[]string{"calc", "--length", "12mm", "--speed", "1m/s", "--shape", "blob"}, "unknown shape \"blob\"", ExitUsage},
+		{[]string{"calc", "--length", "12mm"}, "--speed is required", ExitUsage},
+		{[]string{"settle", "--diameter", "1mm", "--density", "998.206kg/m3", "--temp", "20C"}, "neither sinks nor rises", ExitFailure},
+		{[]string{"settle", "--diameter", "1mm"}, "needs --diameter and --density", ExitUsage},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.args...)
+		if code != c.code || !strings.Contains(errs, c.want) || strings.Count(errs, "\n") != 1 || strings.Contains(errs, "goroutine") {
+			t.Errorf("%v: exit %d, stderr %q; want exit %d and one line containing %q", c.args, code, errs, c.code, c.want)
+		}
+	}
+}
+
+// A trout in 12 °C fresh water: JSON carries the documented names and
+// values that follow from the inputs (St = fA/U = 4 × 0.06 / 0.6 = 0.4).
+func TestCalcJSONFish(t *testing.T) {
+	out, errs, code := run(t, "calc", "--length", "30cm", "--diameter", "5cm", "--speed", "2BL/s", "--freq", "4Hz",
+		"--amplitude", "6cm", "--medium", "freshwater", "--temp", "12C", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	if st := num(t, m, "strouhal"); math.Abs(st-0.4) > 1e-12 {
+		t.Errorf("strouhal %g, want 0.4", st)
+	}
+	nu := num(t, m, "medium", "kinematic_viscosity_m2_s")
+	if re := num(t, m, "reynolds"); math.Abs(re/(0.6*0.3/nu)-1) > 1e-12 {
+		t.Errorf("reynolds %g", re)
+	}
+	drag := m["drag"].(map[string]any)
+	if drag["law"] != "skin friction, laminar (Blasius)" || len(drag["estimates"].([]any)) < 2 {
+		t.Errorf("drag %v", drag)
+	}
+	if p := num(t, m, "power", "total_W"); math.Abs(p/(num(t, m, "drag", "force_N")*0.6)-1) > 1e-12 {
+		t.Errorf("towing power %g", p)
+	}
+}
+
+func TestCalcFlyerAndMicrobe(t *testing.T) {
+	out, errs, code := run(t, "calc", "--length", "16cm", "--diameter", "3.5cm", "--speed", "10m/s", "--mass", "40g",
+		"--span", "42cm", "--chord", "4cm", "--freq", "8Hz", "--amplitude", "20cm", "--medium", "air", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	p := m["power"].(map[string]any)
+	sum := p["induced_W"].(float64) + p["parasite_W"].(float64) + p["profile_W"].(float64)
+	if p["kind"] != "flight" || math.Abs(sum/p["total_W"].(float64)-1) > 1e-12 {
+		t.Errorf("flight power %v", p)
+	}
+	out, _, code = run(t, "calc", "--length", "2um", "--diameter", "1um", "--speed", "30um/s", "--temp", "25C", "--format", "json")
+	m = decode(t, out)
+	if code != 0 || m["regime"] != "viscous" || m["coasting_distance_m"] == nil || m["peclet"] == nil {
+		t.Errorf("microbe: %s", out)
+	}
+	out, _, code = run(t, "calc", "--length", "2um", "--speed", "30um/s")
+	if code != 0 || !strings.Contains(out, "Stokes") || !strings.Contains(out, "Warnings") && strings.Contains(out, "NaN") {
+		t.Errorf("table: %s", out)
+	}
+	if strings.Contains(out, "NaN") {
+		t.Errorf("NaN in output:\n%s", out)
+	}
+}
+
+func TestSettleJSON(t *testing.T) {
+	out, errs, code := run(t, "settle", "--diameter", "20um", "--density", "2650kg/m3", "--temp", "20C", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	if m["direction"] != "sinking" || num(t, m, "terminal_speed_m_s") <= 0 {
+		t.Errorf("settle: %s", out)
+	}
+	out, _, _ = run(t, "settle", "--diameter", "2mm", "--density", "0.9g/cm3", "--format", "json")
+	if decode(t, out)["direction"] != "rising" {
+		t.Errorf("oil drop: %s", out)
+	}
+}
+
+func TestLawsListing(t *testing.T) {
+	out, _, code := run(t, "laws")
+	for _, w := range []string{"Stokes", "Proudman–Pearson", "standard drag curve", "Clift–Gauvin", "Lamb", "Cox", "ITTC-1957", "Hoerner"} {
+		if code != 0 || !strings.Contains(out, w) {
+			t.Errorf("laws lacks %q", w)
+		}
+	}
+}

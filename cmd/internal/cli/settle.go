@@ -1,0 +1,153 @@
+package cli
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/cmd/internal/report"
+	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
+	"github.com/spf13/cobra"
+)
+
+type settleOptions struct {
+	diameter, length, density, shape string
+	medium                           string
+	flags                            mediumFlags
+	format                           string
+}
+
+func newSettleCmd(s Streams) *cobra.Command {
+	o := &settleOptions{}
+	cmd := &cobra.Command{
+		Use:   "settle --diameter <d> --density <ρ> [flags]",
+		Short: "Terminal sinking or rising speed of a particle, egg, seed or spore",
+		Long: `Solve the balance of drag and buoyant weight for the terminal speed of a
+rigid particle, across regimes, with a drag law continuous in Re: Clift–Gauvin
+(1970) for a sphere, Haider–Levenspiel (1989) for a prolate spheroid (give
+--length too). Re is on the diameter (of the equal-volume sphere for a
+spheroid). In air the Cunningham slip correction (Davies 1945 constants) is
+applied; it matters below about 10 µm (spores, pollen, bacteria).
+` + mediumFlagHelp + "\n\n" + estimateNotice,
+		Example: `  flowregime settle --diameter 150um --density 1.06g/cm3 --medium seawater --temp 10C
+  flowregime settle --diameter 25um --density 1100kg/m3 --medium air --humidity 70%`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := report.CheckFormat(o.format); err != nil {
+				return usageError{err}
+			}
+			return runSettle(o, s)
+		},
+	}
+	fs := cmd.Flags()
+	fs.StringVar(&o.diameter, "diameter", "", "particle diameter (maximum diameter of a spheroid), e.g. 150um")
+	fs.StringVar(&o.length, "length", "", "spheroid only: length along the axis, e.g. 400um")
+	fs.StringVar(&o.density, "density", "", "particle density, e.g. 1.06g/cm3 or 1060kg/m3")
+	fs.StringVar(&o.shape, "shape", "", "sphere or spheroid (default: spheroid with --length, else sphere)")
+	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater or seawater")
+	o.flags.bind(fs)
+	fs.StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
+	return cmd
+}
+
+func (o *settleOptions) particle() (regime.Particle, error) {
+	if o.diameter == "" || o.density == "" {
+		return regime.Particle{}, usagef("settle needs --diameter and --density, e.g. --diameter 150um --density 1.06g/cm3")
+	}
+	var rd flagReader
+	p := regime.Particle{
+		Diameter: rd.value("diameter", o.diameter, quantity.Length),
+		Length:   rd.value("length", o.length, quantity.Length),
+		Density:  rd.value("density", o.density, quantity.Density),
+		Shape:    regime.Sphere,
+	}
+	if rd.err != nil {
+		return p, rd.err
+	}
+	if o.length != "" {
+		p.Shape = regime.Spheroid
+	}
+	if o.shape != "" {
+		s, err := regime.ParseShape(o.shape)
+		if err != nil || (s != regime.Sphere && s != regime.Spheroid) {
+			return p, usagef("--shape %q: settle accepts sphere or spheroid", o.shape)
+		}
+		p.Shape = s
+	}
+	if p.Shape == regime.Spheroid && o.length == "" {
+		return p, usagef("a spheroid needs --length as well as --diameter")
+	}
+	return p, nil
+}
+
+func runSettle(o *settleOptions, s Streams) error {
+	p, err := o.particle()
+	if err != nil {
+		return err
+	}
+	m, err := o.flags.lookup(o.medium)
+	if err != nil {
+		return err
+	}
+	r, err := regime.Settle(p, m)
+	if err != nil {
+		return fmt.Errorf("%s", trimPkg(err))
+	}
+	ws := append(append([]media.Warning{}, m.Warnings...), r.Warnings...)
+	switch o.format {
+	case report.FormatJSON:
+		return report.JSON(s.Out, settleJSON{
+			Speed: r.Speed, Direction: r.Direction, Reynolds: r.Reynolds, ReynoldsBasis: r.Basis,
+			Drag:        settleDragJSON{Law: r.Law, Source: r.Source, Coefficient: r.Coefficient, Force: r.Force},
+			StokesSpeed: r.StokesSpeed, Archimedes: r.Archimedes, Cunningham: r.Cunningham, Knudsen: report.Opt(r.Knudsen),
+			Medium: newMediumJSON(m), Warnings: nonNil(warningTexts(ws)),
+		})
+	case report.FormatCSV:
+		return report.Fields(s.Out, o.format, append(settleFields(r), report.Field{Key: "warnings", Value: strings.Join(warningTexts(ws), "; ")}))
+	}
+	if err := report.Fields(s.Out, o.format, settleFields(r)); err != nil {
+		return err
+	}
+	report.List(s.Out, "Medium", []string{fmt.Sprintf("%s at %s °C: ρ = %s kg/m³, μ = %s Pa·s", m.Medium, report.Num(m.TemperatureC, 4), report.Num(m.Density, 6), report.Num(m.DynamicViscosity, 5))})
+	report.List(s.Out, "Warnings", warningTexts(ws))
+	return nil
+}
+
+func settleFields(r regime.Settling) []report.Field {
+	fs := []report.Field{
+		report.F("terminal_speed_m_s", "terminal speed (m/s)", r.Speed, 4),
+		{Key: "direction", Label: "direction", Value: r.Direction},
+		report.F("reynolds", "Reynolds number (on the "+r.Basis+")", r.Reynolds, 4),
+		{Key: "drag_law", Label: "drag law", Value: r.Law},
+		report.F("drag_coefficient", "drag coefficient (frontal area)", r.Coefficient, 4),
+		report.F("drag_N", "drag = buoyant weight (N)", r.Force, 4),
+		report.F("stokes_speed_m_s", "Stokes' law speed, for comparison (m/s)", r.StokesSpeed, 4),
+		report.F("archimedes", "Archimedes number", r.Archimedes, 4),
+	}
+	if r.Knudsen == r.Knudsen {
+		fs = append(fs, report.F("knudsen", "Knudsen number 2λ/d", r.Knudsen, 3), report.F("cunningham", "Cunningham slip factor", r.Cunningham, 4))
+	}
+	return fs
+}
+
+type settleJSON struct {
+	Speed         float64        `json:"terminal_speed_m_s"`
+	Direction     string         `json:"direction"`
+	Reynolds      float64        `json:"reynolds"`
+	ReynoldsBasis string         `json:"reynolds_on"`
+	Drag          settleDragJSON `json:"drag"`
+	StokesSpeed   float64        `json:"stokes_speed_m_s"`
+	Archimedes    float64        `json:"archimedes"`
+	Cunningham    float64        `json:"cunningham"`
+	Knudsen       *float64       `json:"knudsen,omitempty"`
+	Medium        mediumJSON     `json:"medium"`
+	Warnings      []string       `json:"warnings"`
+}
+
+type settleDragJSON struct {
+	Law         string  `json:"law"`
+	Source      string  `json:"source"`
+	Coefficient float64 `json:"coefficient"`
+	Force       float64 `json:"force_N"`
+}
