@@ -27,9 +27,18 @@ func WaterViscosity(tK, rho float64) float64 {
 	}
 	mu0 := 100 * math.Sqrt(tb) / sum // eq. (11)
 	x, y := 1/tb-1, rb-1
+	var px [6]float64
+	var py [7]float64
+	px[0], py[0] = 1, 1
+	for i := 1; i < len(px); i++ {
+		px[i] = px[i-1] * x
+	}
+	for j := 1; j < len(py); j++ {
+		py[j] = py[j-1] * y
+	}
 	inner := 0.0
 	for _, c := range r12Hij {
-		inner += c.h * math.Pow(x, float64(c.i)) * math.Pow(y, float64(c.j))
+		inner += c.h * px[c.i] * py[c.j]
 	}
 	mu1 := math.Exp(rb * inner) // eq. (12)
 	return muStar * mu0 * mu1   // eq. (10) with μ̄₂ = 1
@@ -66,9 +75,27 @@ func WaterDensityIF97(tK, pPa float64) float64 {
 	)
 	pi, tau := pPa/pStar, tStar/tK
 	a, b := 7.1-pi, tau-1.222
+	// Integer powers by repeated multiplication: a^k for k = 0…31 and
+	// b^j for j = −41…17, indexed j+41.
+	var pa [32]float64
+	var pb [59]float64
+	pa[0] = 1
+	for k := 1; k < len(pa); k++ {
+		pa[k] = pa[k-1] * a
+	}
+	pb[41] = 1
+	for j := 1; j <= 17; j++ {
+		pb[41+j] = pb[40+j] * b
+	}
+	for j, bi := 1, 1/b; j <= 41; j++ {
+		pb[41-j] = pb[42-j] * bi
+	}
 	gammaPi := 0.0
 	for _, c := range if97Region1 {
-		gammaPi += -c.n * float64(c.i) * math.Pow(a, float64(c.i-1)) * math.Pow(b, float64(c.j))
+		if c.i == 0 {
+			continue // the I = 0 terms do not depend on π
+		}
+		gammaPi += -c.n * float64(c.i) * pa[c.i-1] * pb[41+c.j]
 	}
 	v := pi * gammaPi * r * tK / pPa // Table 4: v = (RT/p) π γ_π
 	return 1 / v

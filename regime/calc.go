@@ -73,8 +73,14 @@ type Result struct {
 }
 
 // Calc computes Reynolds and Strouhal numbers, regime, drag and power for
-// one organism in a medium.
-func Calc(o Organism, m media.Properties) (Result, error) {
+// one organism in a medium, with every applicable drag law's estimate.
+func Calc(o Organism, m media.Properties) (Result, error) { return calc(o, m, true) }
+
+// CalcChosen is [Calc] with only the chosen drag law evaluated, for batch
+// work where the other estimates are not reported.
+func CalcChosen(o Organism, m media.Properties) (Result, error) { return calc(o, m, false) }
+
+func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	n := math.NaN()
 	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n}
 	if err := o.Body.Validate(); err != nil {
@@ -133,12 +139,12 @@ func Calc(o Organism, m media.Properties) (Result, error) {
 
 	// Drag.
 	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity}
-	drag, err := Drag(o.Body, flow)
+	dr, err := drag(o.Body, flow, all)
 	if err != nil {
 		return r, err
 	}
-	r.Drag = drag
-	r.Warnings = append(r.Warnings, drag.Warnings...)
+	r.Drag = dr
+	r.Warnings = append(r.Warnings, dr.Warnings...)
 
 	// Power.
 	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
@@ -152,7 +158,7 @@ func Calc(o Organism, m media.Properties) (Result, error) {
 			Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, InducedFactor: k,
 			Disc: o.Disc, Wings: wings,
 			BodyDrag: func(u float64) float64 {
-				d, err := Drag(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity})
+				d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity})
 				if err != nil {
 					return math.NaN()
 				}
@@ -177,7 +183,7 @@ func Calc(o Organism, m media.Properties) (Result, error) {
 		if !(eff > 0 && eff <= 1) {
 			return r, fmt.Errorf("regime: efficiency must be in (0, 1], got %g", eff)
 		}
-		r.Power.Total = SwimmingPower(drag.Chosen.Force, o.Speed, eff)
+		r.Power.Total = SwimmingPower(dr.Chosen.Force, o.Speed, eff)
 	}
 
 	// Low-Re extras.
@@ -188,7 +194,7 @@ func Calc(o Organism, m media.Properties) (Result, error) {
 			mass = m.Density * vol // neutrally buoyant when no mass is given
 		}
 		if !math.IsNaN(mass) && !math.IsNaN(vol) {
-			r.CoastTime, r.CoastDistance = Coasting(mass+0.5*m.Density*vol, o.Speed, drag.Chosen.Force)
+			r.CoastTime, r.CoastDistance = Coasting(mass+0.5*m.Density*vol, o.Speed, dr.Chosen.Force)
 		}
 	}
 	switch {

@@ -287,7 +287,22 @@ type DragResult struct {
 // choice range holds the case (see each Law's ChooseLo–ChooseHi). Estimates
 // holds the chosen law's and every other law within two decades of Re of
 // its published range, each flagged in or out of range.
-func Drag(b Body, f Flow) (DragResult, error) {
+func Drag(b Body, f Flow) (DragResult, error) { return drag(b, f, true) }
+
+// DragChosen is [Drag] without the other laws' estimates, for batch work.
+func DragChosen(b Body, f Flow) (DragResult, error) { return drag(b, f, false) }
+
+func (l *Law) estimate(b Body, f Flow) Estimate {
+	re := f.Density * f.Speed * l.basisLen(b) / f.Viscosity
+	cd, area := l.eval(b, f, re)
+	return Estimate{
+		Law: l.Name, Source: l.Source, Coefficient: cd, ReferenceArea: area, AreaName: l.AreaName,
+		Force: 0.5 * f.Density * f.Speed * f.Speed * cd * area, Reynolds: re, Basis: l.Basis,
+		ReMin: l.ReMin, ReMax: l.ReMax, InRange: re >= l.ReMin && re <= l.ReMax,
+	}
+}
+
+func drag(b Body, f Flow, all bool) (DragResult, error) {
 	if err := b.Validate(); err != nil {
 		return DragResult{}, err
 	}
@@ -295,32 +310,31 @@ func Drag(b Body, f Flow) (DragResult, error) {
 		return DragResult{}, err
 	}
 	var res DragResult
-	chosen := -1
 	reChoice := f.Density * f.Speed * ChoiceLength(b) / f.Viscosity
-	for _, l := range Laws {
-		if l.Shape != b.Shape {
-			continue
+	var chosen *Law
+	for i := range Laws {
+		l := &Laws[i]
+		if l.Shape == b.Shape && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
+			chosen = l
+			break
 		}
-		re := f.Density * f.Speed * l.basisLen(b) / f.Viscosity
-		cd, area := l.eval(b, f, re)
-		e := Estimate{
-			Law: l.Name, Source: l.Source, Coefficient: cd, ReferenceArea: area, AreaName: l.AreaName,
-			Force: 0.5 * f.Density * f.Speed * f.Speed * cd * area, Reynolds: re, Basis: l.Basis,
-			ReMin: l.ReMin, ReMax: l.ReMax, InRange: re >= l.ReMin && re <= l.ReMax,
-		}
-		isChosen := chosen < 0 && reChoice > l.ChooseLo && reChoice <= l.ChooseHi
-		if !isChosen && !applicable(e) {
-			continue
-		}
-		if isChosen {
-			chosen = len(res.Estimates)
-		}
-		res.Estimates = append(res.Estimates, e)
 	}
-	if chosen < 0 {
+	if chosen == nil {
 		return DragResult{}, fmt.Errorf("regime: no drag law covers a %s at this Reynolds number", b.Shape)
 	}
-	res.Chosen = res.Estimates[chosen]
+	res.Chosen = chosen.estimate(b, f)
+	if all {
+		res.Estimates = append(res.Estimates, res.Chosen)
+		for i := range Laws {
+			l := &Laws[i]
+			if l.Shape != b.Shape || l == chosen {
+				continue
+			}
+			if e := l.estimate(b, f); applicable(e) {
+				res.Estimates = append(res.Estimates, e)
+			}
+		}
+	}
 	c := res.Chosen
 	if !c.InRange {
 		res.Warnings = append(res.Warnings, warnf(WarnLawOutOfRange, "drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c)))

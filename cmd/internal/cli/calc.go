@@ -5,7 +5,7 @@ import (
 	"math"
 	"strings"
 
-	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
@@ -41,99 +41,27 @@ func (f *organismFlags) bind(cmd *cobra.Command) {
 	fs.StringVar(&f.diffusivity, "diffusivity", "", "solute diffusivity for the Péclet number, e.g. 2e-9m2/s (default: dissolved O2 in water)")
 }
 
-// optional parses a flag, returning NaN when it is empty.
-func optional(name, text string, k quantity.Kind) (quantity.Value, error) {
-	if text == "" {
-		return quantity.Value{SI: math.NaN()}, nil
+// source returns the organism flags as an inputs.Source.
+func (f *organismFlags) source() inputs.Flags {
+	return inputs.Flags{
+		"length": f.length, "diameter": f.diameter, "shape": f.shape, "speed": f.speed, "frequency": f.freq,
+		"amplitude": f.amplitude, "mass": f.mass, "span": f.span, "wing_length": f.wingLength, "chord": f.chord,
+		"wing_area": f.wingArea, "stroke_angle": f.strokeAngle, "efficiency": f.efficiency,
+		"drag_coefficient": f.dragCoefficient, "area": f.area, "induced_factor": f.inducedFactor,
+		"profile_drag": f.profileDrag, "disc": f.disc, "diffusivity": f.diffusivity,
 	}
-	v, err := quantity.Parse(k, text)
-	if err != nil {
-		return v, usagef("--%s: %v", name, err)
-	}
-	return v, nil
 }
 
-// flagReader parses flags one after another and keeps the first error.
-type flagReader struct{ err error }
-
-func (r *flagReader) value(name, text string, k quantity.Kind) float64 {
-	if r.err != nil {
-		return math.NaN()
+// merge returns one source of organism and medium flags.
+func merge(a, b inputs.Flags) inputs.Flags {
+	out := inputs.Flags{}
+	for k, v := range a {
+		out[k] = v
 	}
-	v, err := optional(name, text, k)
-	if err != nil {
-		r.err = err
-		return math.NaN()
+	for k, v := range b {
+		out[k] = v
 	}
-	return v.SI
-}
-
-// organism turns the flags into a regime.Organism.
-func (f *organismFlags) organism() (regime.Organism, error) {
-	var o regime.Organism
-	if f.length == "" {
-		return o, usagef("--length is required, e.g. --length 12mm (a sphere's diameter, or the body length)")
-	}
-	if f.speed == "" {
-		return o, usagef("--speed is required, e.g. --speed 0.4m/s or --speed 3BL/s")
-	}
-	var rd flagReader
-	length := rd.value("length", f.length, quantity.Length)
-	dia := rd.value("diameter", f.diameter, quantity.Length)
-	if rd.err != nil {
-		return o, rd.err
-	}
-	sp, err := optional("speed", f.speed, quantity.Speed)
-	if err != nil {
-		return o, err
-	}
-	speed := sp.SI
-	if sp.PerBodyLength {
-		speed *= length
-	}
-	shape := regime.Sphere
-	if !math.IsNaN(dia) {
-		shape = regime.Spheroid
-	}
-	if f.dragCoefficient != "" || f.area != "" {
-		shape = regime.Measured
-	}
-	if f.shape != "" {
-		s, err := regime.ParseShape(f.shape)
-		if err != nil {
-			return o, usagef("--shape: %s", trimPkg(err))
-		}
-		shape = s
-	}
-	b := regime.Body{Shape: shape, Length: length, Diameter: dia}
-	if shape == regime.Measured {
-		if f.dragCoefficient == "" || f.area == "" {
-			return o, usagef("a measured body needs both --drag-coefficient and --area (the area the coefficient refers to)")
-		}
-		b.DragCoefficient = rd.value("drag-coefficient", f.dragCoefficient, quantity.Number)
-		b.ReferenceArea = rd.value("area", f.area, quantity.Area)
-	}
-	o = regime.NewOrganism(b, speed)
-	o.Frequency = rd.value("freq", f.freq, quantity.Frequency)
-	o.Amplitude = rd.value("amplitude", f.amplitude, quantity.Length)
-	o.Mass = rd.value("mass", f.mass, quantity.Mass)
-	o.Span = rd.value("span", f.span, quantity.Length)
-	o.WingLength = rd.value("wing-length", f.wingLength, quantity.Length)
-	o.Chord = rd.value("chord", f.chord, quantity.Length)
-	o.WingArea = rd.value("wing-area", f.wingArea, quantity.Area)
-	o.StrokeAngle = rd.value("stroke-angle", f.strokeAngle, quantity.Angle)
-	o.Efficiency = rd.value("efficiency", f.efficiency, quantity.Fraction)
-	o.InducedFactor = rd.value("induced-factor", f.inducedFactor, quantity.Number)
-	o.ProfileCD = rd.value("profile-drag", f.profileDrag, quantity.Number)
-	o.Diffusivity = rd.value("diffusivity", f.diffusivity, quantity.Diffusivity)
-	o.Disc = f.disc
-	if rd.err != nil {
-		return o, rd.err
-	}
-	if err := b.Validate(); err != nil {
-		return o, usagef("%s", trimPkg(err))
-	}
-	return o, nil
+	return out
 }
 
 type calcOptions struct {
@@ -194,15 +122,17 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 }
 
 func runCalc(o *calcOptions, s Streams) error {
-	org, err := o.organism.organism()
+	src := merge(o.organism.source(), o.flags.source())
+	src["medium"] = o.medium
+	in, err := inputs.Build(src, o.medium)
 	if err != nil {
-		return err
+		return usageError{err}
 	}
-	m, err := o.flags.lookup(o.medium)
+	m, err := media.Lookup(in.Conditions)
 	if err != nil {
-		return err
+		return fmt.Errorf("%s", trimPkg(err))
 	}
-	r, err := regime.Calc(org, m)
+	r, err := regime.Calc(in.Organism, m)
 	if err != nil {
 		return fmt.Errorf("%s", trimPkg(err))
 	}

@@ -2,9 +2,8 @@ package cli
 
 import (
 	"fmt"
-	"math"
 
-	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/media"
 	"github.com/spf13/pflag"
 )
@@ -44,72 +43,23 @@ func (m *mediumFlags) bind(fs *pflag.FlagSet) {
 	fs.StringVar(&m.latitude, "latitude", "", "sea water with --depth: latitude in degrees for gravity (default 45)")
 }
 
-// parseFlag reads one flag's text as kind k; empty text gives NaN.
-func parseFlag(name, text string, k quantity.Kind) (float64, error) {
-	if text == "" {
-		return math.NaN(), nil
+// source returns the medium flags as an inputs.Source.
+func (m *mediumFlags) source() inputs.Flags {
+	return inputs.Flags{
+		"temperature": m.temp, "temp_offset": m.offset, "salinity": m.salinity, "depth": m.depth,
+		"pressure": m.pressure, "altitude": m.altitude, "humidity": m.humidity, "latitude": m.latitude,
 	}
-	v, err := quantity.Parse(k, text)
-	if err != nil {
-		return 0, usagef("--%s: %v", name, err)
-	}
-	return v.SI, nil
 }
 
-// conditions returns the media conditions for the named medium.
-func (m *mediumFlags) conditions(medium string) (media.Conditions, error) {
-	c := media.Unset(medium)
-	var err error
-	fields := []struct {
-		name, text string
-		kind       quantity.Kind
-		dst        *float64
-	}{
-		{"temp", m.temp, quantity.Temperature, &c.TemperatureC},
-		{"salinity", m.salinity, quantity.Salinity, &c.SalinityPractical},
-		{"depth", m.depth, quantity.Height, &c.DepthM},
-		{"pressure", m.pressure, quantity.Pressure, &c.PressurePa},
-		{"altitude", m.altitude, quantity.Height, &c.AltitudeM},
-		{"humidity", m.humidity, quantity.Humidity, &c.HumidityPercent},
-		{"latitude", m.latitude, quantity.Number, &c.LatitudeDeg},
-	}
-	for _, f := range fields {
-		if *f.dst, err = parseFlag(f.name, f.text, f.kind); err != nil {
-			return c, err
-		}
-	}
-	if m.offset != "" {
-		v, err := quantity.Parse(quantity.Temperature, m.offset)
-		if err != nil {
-			return c, usagef("--temp-offset: %v", err)
-		}
-		if v.Unit == "" || v.Unit == "C" || v.Unit == "°C" || v.Unit == "degC" || v.Unit == "K" {
-			c.TemperatureOffset = v.SI
-			if v.Unit == "K" {
-				c.TemperatureOffset = v.SI + media.ZeroCelsiusK
-			}
-		} else {
-			return c, usagef("--temp-offset: %q: give the offset in K or °C, e.g. 5K", m.offset)
-		}
-	}
-	if !math.IsNaN(c.TemperatureC) && !math.IsNaN(c.TemperatureOffset) {
-		return c, usagef("--temp-offset applies to the standard-atmosphere temperature; give either --temp or --temp-offset, not both")
-	}
-	if !math.IsNaN(c.DepthM) && !math.IsNaN(c.PressurePa) {
-		return c, usagef("give either --depth or --pressure, not both")
-	}
-	return c, nil
-}
-
-// lookupMedium parses the flags and evaluates the medium.
+// lookup parses the flags and evaluates the named medium.
 func (m *mediumFlags) lookup(medium string) (media.Properties, error) {
-	c, err := m.conditions(medium)
+	c, err := inputs.Conditions(m.source(), medium)
 	if err != nil {
-		return media.Properties{}, err
+		return media.Properties{}, usageError{err}
 	}
 	p, err := media.Lookup(c)
 	if err != nil {
-		return p, fmt.Errorf("%v", trimPkg(err))
+		return p, fmt.Errorf("%s", trimPkg(err))
 	}
 	return p, nil
 }

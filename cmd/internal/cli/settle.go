@@ -2,6 +2,7 @@ package cli
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
@@ -55,15 +56,24 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 	if o.diameter == "" || o.density == "" {
 		return regime.Particle{}, usagef("settle needs --diameter and --density, e.g. --diameter 150um --density 1.06g/cm3")
 	}
-	var rd flagReader
-	p := regime.Particle{
-		Diameter: rd.value("diameter", o.diameter, quantity.Length),
-		Length:   rd.value("length", o.length, quantity.Length),
-		Density:  rd.value("density", o.density, quantity.Density),
-		Shape:    regime.Sphere,
-	}
-	if rd.err != nil {
-		return p, rd.err
+	p := regime.Particle{Shape: regime.Sphere, Length: math.NaN()}
+	for _, f := range []struct {
+		flag, text string
+		kind       quantity.Kind
+		dst        *float64
+	}{
+		{"diameter", o.diameter, quantity.Length, &p.Diameter},
+		{"length", o.length, quantity.Length, &p.Length},
+		{"density", o.density, quantity.Density, &p.Density},
+	} {
+		if f.text == "" {
+			continue
+		}
+		v, err := quantity.Parse(f.kind, f.text)
+		if err != nil {
+			return p, usagef("--%s: %v", f.flag, err)
+		}
+		*f.dst = v.SI
 	}
 	if o.length != "" {
 		p.Shape = regime.Spheroid

@@ -117,7 +117,12 @@ func Units(k Kind) []string {
 // Parse reads text as a value of kind k. Uncertainty may follow the value as
 // "±" or "+-" and a second number, in the same unit, in its own unit, or in
 // percent of the value: "12±1mm", "12mm+-1mm", "12mm±8%".
-func Parse(k Kind, text string) (Value, error) {
+func Parse(k Kind, text string) (Value, error) { return ParseDefault(k, text, "") }
+
+// ParseDefault is [Parse] with a default unit for text that carries none,
+// as when a data sheet's header says "length (mm)" and its cells hold
+// bare numbers. A unit in the text wins over the default.
+func ParseDefault(k Kind, text, defUnit string) (Value, error) {
 	if _, ok := units[k]; !ok {
 		return Value{}, fmt.Errorf("unknown quantity kind %d", int(k))
 	}
@@ -145,6 +150,12 @@ func Parse(k Kind, text string) (Value, error) {
 		}
 		if unit == "" && sdUnit != "" && sdUnit != "%" {
 			unit = sdUnit // "12±1mm": both numbers in mm
+		}
+	}
+	if unit == "" && defUnit != "" {
+		unit = defUnit
+		if hasUnc && sdUnit == "" {
+			sdUnit = defUnit
 		}
 	}
 	v := Value{}
@@ -292,4 +303,13 @@ func splitNumber(s string) (float64, string, error) {
 		}
 	}
 	return f, unit, nil
+}
+
+// KnownUnit reports whether u is an accepted unit of kind k.
+func KnownUnit(k Kind, u string) bool {
+	if _, ok := units[k][u]; ok {
+		return true
+	}
+	_, ok := units[k][normalise(u)]
+	return ok
 }

@@ -122,3 +122,24 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+func TestParseDefault(t *testing.T) {
+	cases := []struct {
+		in, def string
+		si, sd  float64
+	}{
+		{"12", "mm", 0.012, 0},
+		{"12cm", "mm", 0.12, 0},
+		{"12±1", "mm", 0.012, 0.001},
+		{"12±8%", "mm", 0.012, 0.00096},
+	}
+	for _, c := range cases {
+		v, err := ParseDefault(Length, c.in, c.def)
+		if err != nil || math.Abs(v.SI-c.si) > 1e-15 || math.Abs(v.SD-c.sd) > 1e-15 {
+			t.Errorf("ParseDefault(%q, %q) = %+v, %v", c.in, c.def, v, err)
+		}
+	}
+	if v, _ := ParseDefault(Temperature, "300", "K"); math.Abs(v.SI-26.85) > 1e-12 {
+		t.Errorf("header unit K not applied: %g", v.SI)
+	}
+}
