@@ -118,8 +118,11 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		if ref := refLength(o); o.Amplitude > ref {
 			r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(o), ref))
 		}
-		if r.Strouhal < 0.05 || r.Strouhal > 1.0 {
-			r.Warnings = append(r.Warnings, warnf(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what cruising animals show (Taylor, Nudds & Thomas 2003 found 0.2–0.4 in cruising flyers and swimmers); check frequency, amplitude and speed", r.Strouhal))
+		// Screening bound 0.05–1: common practice, no single source; cruising
+		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
+		// manoeuvres and slow hovering flight go beyond it.
+		if r.Strouhal < StrouhalScreenLow || r.Strouhal > StrouhalScreenHigh {
+			r.Warnings = append(r.Warnings, warnf(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal))
 		}
 	case !math.IsNaN(o.Frequency):
 		r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"))

@@ -21,6 +21,13 @@ const (
 	StrouhalHigh = 0.4
 )
 
+// Screening bounds of the Strouhal number in survey data: values outside
+// are flagged (common practice, no single source).
+const (
+	StrouhalScreenLow  = 0.05
+	StrouhalScreenHigh = 1.0
+)
+
 // StrouhalBand says where st lies against the efficient cruising band:
 // "below", "within" or "above".
 func StrouhalBand(st float64) string {

@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
@@ -124,7 +125,7 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 func runCalc(o *calcOptions, s Streams) error {
 	src := merge(o.organism.source(), o.flags.source())
 	src["medium"] = o.medium
-	in, err := inputs.Build(src, o.medium)
+	in, err := inputs.Build(src, o.medium, false)
 	if err != nil {
 		return usageError{err}
 	}
@@ -213,4 +214,13 @@ func calcFields(r regime.Result) []report.Field {
 	opt("peclet", "Péclet number (on --length)", r.Peclet, 3)
 	opt("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3)
 	return fs
+}
+
+// parseFlagValue checks one flag's text against its field's kind.
+func parseFlagValue(f inputs.Field, text string) (float64, error) {
+	v, err := quantity.Parse(f.Kind, text)
+	if err != nil {
+		return 0, usagef("--%s: %v", f.Flag, err)
+	}
+	return v.SI, nil
 }

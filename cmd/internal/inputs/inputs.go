@@ -23,6 +23,39 @@ type Field struct {
 	Aliases []string      // other header names, lower case
 }
 
+// Field indices, in the order of Fields.
+const (
+	Length = iota
+	Diameter
+	Shape
+	Speed
+	Frequency
+	Amplitude
+	Mass
+	Span
+	WingLength
+	Chord
+	WingArea
+	StrokeAngle
+	Efficiency
+	DragCoefficient
+	Area
+	InducedFactor
+	ProfileDrag
+	Disc
+	Diffusivity
+	Medium
+	Temperature
+	TempOffset
+	Salinity
+	Depth
+	Pressure
+	Altitude
+	Humidity
+	Latitude
+	NumFields
+)
+
 // Fields lists every input in a fixed order.
 var Fields = []Field{
 	{Name: "length", Flag: "length", Kind: quantity.Length, Aliases: []string{"body length", "bl", "size", "total length", "tl", "standard length", "sl", "fork length", "l"}},
@@ -55,22 +88,32 @@ var Fields = []Field{
 	{Name: "latitude", Flag: "latitude", Kind: quantity.Number, Aliases: []string{"lat"}},
 }
 
-// ByName returns the field with the canonical name.
-func ByName(name string) (Field, bool) {
-	for _, f := range Fields {
+// Index returns the index of the field with the canonical name, or −1.
+func Index(name string) int {
+	for i, f := range Fields {
 		if f.Name == name {
-			return f, true
+			return i
 		}
 	}
-	return Field{}, false
+	return -1
 }
+
+// FieldError is an input that could not be read.
+type FieldError struct {
+	Field int    // index into Fields
+	Label string // "--length" or `column "length (mm)"`
+	Err   error
+}
+
+func (e *FieldError) Error() string { return e.Label + ": " + e.Err.Error() }
+func (e *FieldError) Unwrap() error { return e.Err }
 
 // Source gives the text of a field for one organism: from a flag, or from a
 // table cell with the column's unit as default. Label names the origin in
 // errors ("--length", `column "length (mm)"`). ok is false when the field is
 // not given at all.
 type Source interface {
-	Lookup(field string) (text, defUnit, label string, ok bool)
+	Lookup(field int) (text, defUnit, label string, ok bool)
 }
 
 // reader parses fields from a Source and keeps the first error.
@@ -79,28 +122,27 @@ type reader struct {
 	err error
 }
 
-func (r *reader) value(name string) quantity.Value {
+func (r *reader) value(field int) quantity.Value {
 	nan := quantity.Value{SI: math.NaN()}
 	if r.err != nil {
 		return nan
 	}
-	text, unit, label, ok := r.src.Lookup(name)
-	if !ok || strings.TrimSpace(text) == "" {
+	text, unit, label, ok := r.src.Lookup(field)
+	if !ok || text == "" {
 		return nan
 	}
-	f, _ := ByName(name)
-	v, err := quantity.ParseDefault(f.Kind, text, unit)
+	v, err := quantity.ParseDefault(Fields[field].Kind, text, unit)
 	if err != nil {
-		r.err = fmt.Errorf("%s: %v", label, err)
+		r.err = &FieldError{Field: field, Label: label, Err: err}
 		return nan
 	}
 	return v
 }
 
-func (r *reader) num(name string) float64 { return r.value(name).SI }
+func (r *reader) num(field int) float64 { return r.value(field).SI }
 
-func (r *reader) text(name string) (string, string) {
-	text, _, label, ok := r.src.Lookup(name)
+func (r *reader) text(field int) (string, string) {
+	text, _, label, ok := r.src.Lookup(field)
 	if !ok {
 		return "", label
 	}
@@ -111,33 +153,39 @@ func (r *reader) text(name string) (string, string) {
 type Input struct {
 	Organism   regime.Organism
 	Conditions media.Conditions
-	Values     map[string]quantity.Value // parsed numeric fields that were given, for uncertainty
+	Values     []quantity.Value // parsed numeric fields by index (SI NaN when not given); nil unless asked for
 }
 
 // Build reads an organism and its medium conditions from src. defaultMedium
-// applies when no medium is given.
-func Build(src Source, defaultMedium string) (Input, error) {
+// applies when no medium is given. With keep, Values holds every parsed
+// field, for uncertainty propagation.
+func Build(src Source, defaultMedium string, keep bool) (Input, error) {
 	rd := &reader{src: src}
 	var in Input
-	lengthText, lengthLabel := rd.text("length")
+	lengthText, lengthLabel := rd.text(Length)
 	if lengthText == "" {
 		return in, fmt.Errorf("%s is required, e.g. 12mm (a sphere's diameter, or the body length)", orName(lengthLabel, "length"))
 	}
-	speedText, speedLabel := rd.text("speed")
+	speedText, speedLabel := rd.text(Speed)
 	if speedText == "" {
 		return in, fmt.Errorf("%s is required, e.g. 0.4m/s or 3BL/s", orName(speedLabel, "speed"))
 	}
-	in.Values = map[string]quantity.Value{}
-	val := func(name string) float64 {
-		v := rd.value(name)
-		if !math.IsNaN(v.SI) {
-			in.Values[name] = v
+	if keep {
+		in.Values = make([]quantity.Value, NumFields)
+		for i := range in.Values {
+			in.Values[i].SI = math.NaN()
+		}
+	}
+	val := func(field int) float64 {
+		v := rd.value(field)
+		if keep {
+			in.Values[field] = v
 		}
 		return v.SI
 	}
-	length := val("length")
-	dia := val("diameter")
-	sp := rd.value("speed")
+	length := val(Length)
+	dia := val(Diameter)
+	sp := rd.value(Speed)
 	if rd.err != nil {
 		return in, rd.err
 	}
@@ -146,18 +194,20 @@ func Build(src Source, defaultMedium string) (Input, error) {
 		speed *= length
 		sp = quantity.Value{SI: speed, SD: sp.SD * length, Unit: "m/s"}
 	}
-	in.Values["speed"] = sp
+	if keep {
+		in.Values[Speed] = sp
+	}
 
 	shape := regime.Sphere
 	if !math.IsNaN(dia) {
 		shape = regime.Spheroid
 	}
-	cdText, _ := rd.text("drag_coefficient")
-	areaText, _ := rd.text("area")
+	cdText, _ := rd.text(DragCoefficient)
+	areaText, _ := rd.text(Area)
 	if cdText != "" || areaText != "" {
 		shape = regime.Measured
 	}
-	if s, label := rd.text("shape"); s != "" {
+	if s, label := rd.text(Shape); s != "" {
 		sh, err := regime.ParseShape(s)
 		if err != nil {
 			return in, fmt.Errorf("%s: %s", label, strings.TrimPrefix(err.Error(), "regime: "))
@@ -169,23 +219,23 @@ func Build(src Source, defaultMedium string) (Input, error) {
 		if cdText == "" || areaText == "" {
 			return in, fmt.Errorf("a measured body needs both a drag coefficient and its reference area")
 		}
-		b.DragCoefficient = rd.num("drag_coefficient")
-		b.ReferenceArea = rd.num("area")
+		b.DragCoefficient = rd.num(DragCoefficient)
+		b.ReferenceArea = rd.num(Area)
 	}
 	o := regime.NewOrganism(b, speed)
-	o.Frequency = val("frequency")
-	o.Amplitude = val("amplitude")
-	o.Mass = val("mass")
-	o.Span = val("span")
-	o.WingLength = val("wing_length")
-	o.Chord = val("chord")
-	o.WingArea = val("wing_area")
-	o.StrokeAngle = val("stroke_angle")
-	o.Efficiency = val("efficiency")
-	o.InducedFactor = rd.num("induced_factor")
-	o.ProfileCD = rd.num("profile_drag")
-	o.Diffusivity = rd.num("diffusivity")
-	o.Disc, _ = rd.text("disc")
+	o.Frequency = val(Frequency)
+	o.Amplitude = val(Amplitude)
+	o.Mass = val(Mass)
+	o.Span = val(Span)
+	o.WingLength = val(WingLength)
+	o.Chord = val(Chord)
+	o.WingArea = val(WingArea)
+	o.StrokeAngle = val(StrokeAngle)
+	o.Efficiency = val(Efficiency)
+	o.InducedFactor = rd.num(InducedFactor)
+	o.ProfileCD = rd.num(ProfileDrag)
+	o.Diffusivity = rd.num(Diffusivity)
+	o.Disc, _ = rd.text(Disc)
 	if rd.err != nil {
 		return in, rd.err
 	}
@@ -194,7 +244,7 @@ func Build(src Source, defaultMedium string) (Input, error) {
 	}
 	in.Organism = o
 
-	medium, _ := rd.text("medium")
+	medium, _ := rd.text(Medium)
 	if medium == "" {
 		medium = defaultMedium
 	}
@@ -218,30 +268,30 @@ func Conditions(src Source, medium string) (media.Conditions, error) {
 	return (&reader{src: src}).conditions(medium, nil)
 }
 
-func (rd *reader) conditions(medium string, values map[string]quantity.Value) (media.Conditions, error) {
+func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
 	c := media.Unset(strings.ToLower(medium))
-	get := func(name string) float64 {
-		v := rd.value(name)
-		if values != nil && !math.IsNaN(v.SI) {
-			values[name] = v
+	get := func(field int) float64 {
+		v := rd.value(field)
+		if values != nil {
+			values[field] = v
 		}
 		return v.SI
 	}
-	c.TemperatureC = get("temperature")
-	c.SalinityPractical = get("salinity")
-	c.DepthM = get("depth")
-	c.PressurePa = get("pressure")
-	c.AltitudeM = get("altitude")
-	c.HumidityPercent = get("humidity")
-	c.LatitudeDeg = rd.num("latitude")
-	if off := rd.value("temp_offset"); !math.IsNaN(off.SI) {
+	c.TemperatureC = get(Temperature)
+	c.SalinityPractical = get(Salinity)
+	c.DepthM = get(Depth)
+	c.PressurePa = get(Pressure)
+	c.AltitudeM = get(Altitude)
+	c.HumidityPercent = get(Humidity)
+	c.LatitudeDeg = rd.num(Latitude)
+	if off := rd.value(TempOffset); !math.IsNaN(off.SI) {
 		switch off.Unit {
 		case "", "C", "°C", "degC":
 			c.TemperatureOffset = off.SI
 		case "K":
 			c.TemperatureOffset = off.SI + media.ZeroCelsiusK
 		default:
-			_, _, label, _ := rd.src.Lookup("temp_offset")
+			_, _, label, _ := rd.src.Lookup(TempOffset)
 			return c, fmt.Errorf("%s: give the offset in K or °C, e.g. 5K", label)
 		}
 	}
@@ -261,8 +311,9 @@ func (rd *reader) conditions(medium string, values map[string]quantity.Value) (m
 type Flags map[string]string
 
 // Lookup implements Source.
-func (f Flags) Lookup(field string) (string, string, string, bool) {
-	fl, _ := ByName(field)
-	t, ok := f[field]
+func (f Flags) Lookup(field int) (string, string, string, bool) {
+	fl := Fields[field]
+	t, ok := f[fl.Name]
+	t = strings.TrimSpace(t)
 	return t, "", "--" + fl.Flag, ok && t != ""
 }

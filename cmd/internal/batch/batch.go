@@ -1,0 +1,382 @@
+// Package batch runs flowregime over survey tables: CSV, TSV or JSON Lines
+// in, the same rows out with computed columns appended, in input order,
+// computed in parallel with bounded memory. Every input row ends up either
+// in the output or in the rejects, with its line and reason.
+package batch
+
+import (
+	"bufio"
+	"bytes"
+	"context"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"runtime"
+	"sync"
+	"time"
+
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/media"
+)
+
+// Formats.
+const (
+	CSV   = "csv"
+	TSV   = "tsv"
+	JSONL = "jsonl"
+	Table = "table"
+)
+
+// Config says how to read, compute and write.
+type Config struct {
+	InFormat      string            // CSV, TSV or JSONL
+	OutFormat     string            // CSV, TSV, JSONL or Table
+	Columns       map[string]string // quantity → exact header (--column)
+	Units         map[string]string // quantity → unit of its column (--unit)
+	Constants     inputs.Flags      // values for quantities with no column
+	DefaultMedium string
+	Names         []string // column names of a headerless input; the output then has no header either
+	Workers       int      // 0 means GOMAXPROCS
+	FlaggedOnly   bool
+	Progress      func(bytesRead int64)
+}
+
+// Reject is an input row that could not be computed.
+type Reject struct {
+	Line   int    // line where the record starts
+	Row    int    // data row number, 1-based
+	Column string // the column at fault, when there is one
+	Reason string
+	Record string // the record as read
+}
+
+// Summary counts what happened.
+type Summary struct {
+	Read, Written, Rejected, Blank, Filtered int
+	Flags                                    map[string]int
+	Elapsed                                  time.Duration
+}
+
+type result struct {
+	seq                            int
+	out                            []byte
+	table                          [][]string
+	rejects                        []Reject
+	read, written, blank, filtered int
+	flags                          map[string]int
+}
+
+// Run reads in, writes rows to out and rejected rows to reject, in input
+// order. It returns an error only for a failure of the whole run (unreadable
+// header, output error, cancellation); row problems are rejects.
+func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) error, cfg Config) (Summary, error) {
+	start := time.Now()
+	sum := Summary{Flags: map[string]int{}}
+	if cfg.Progress != nil {
+		in = &countingReader{r: in, f: cfg.Progress}
+	}
+	br := bufio.NewReaderSize(in, 64<<10)
+	if b, err := br.Peek(3); err == nil && bytes.Equal(b, []byte("\ufeff")) {
+		br.Discard(3)
+	}
+	delim := byte(',')
+	if cfg.InFormat == TSV {
+		delim = '\t'
+	}
+	outDelim := byte(',')
+	if cfg.OutFormat == TSV {
+		outDelim = '\t'
+	}
+	var header []string
+	var headerRaw []byte
+	var body io.Reader = br
+	line := 1
+	switch {
+	case len(cfg.Names) > 0:
+		header = cfg.Names
+	case cfg.InFormat == JSONL:
+		first, err := firstLine(br)
+		if err != nil {
+			return sum, err
+		}
+		keys, _, _, err := parseObject(bytes.TrimSpace(first))
+		if err != nil && len(bytes.TrimSpace(first)) > 0 {
+			return sum, fmt.Errorf("line 1: %v", err)
+		}
+		header = keys
+		body = io.MultiReader(bytes.NewReader(first), br)
+	default:
+		rec, n, err := readRecord(br)
+		if err != nil {
+			return sum, err
+		}
+		if blank(rec) {
+			return sum, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
+		}
+		headerRaw = rec
+		if header, err = splitFields(nil, rec, delim); err != nil {
+			return sum, fmt.Errorf("line 1 (header): %v", err)
+		}
+		line += n
+	}
+	m, err := newMapping(header, cfg.Columns, cfg.Units)
+	if err != nil {
+		return sum, err
+	}
+	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
+		return sum, fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")
+	}
+	if _, _, _, ok := cfg.Constants.Lookup(inputs.Speed); m.col[inputs.Speed] < 0 && !ok {
+		return sum, fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")
+	}
+	w := bufio.NewWriterSize(out, 256<<10)
+	var table [][]string
+	if cfg.OutFormat == Table {
+		table = append(table, append(append([]string{}, header...), Computed...))
+	} else if len(cfg.Names) == 0 {
+		switch cfg.OutFormat {
+		case CSV, TSV:
+			var b []byte
+			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil {
+				b = append(b, headerRaw...)
+			} else {
+				for i, h := range header {
+					if i > 0 {
+						b = append(b, outDelim)
+					}
+					b = appendField(b, h, outDelim)
+				}
+			}
+			for _, c := range Computed {
+				b = append(b, outDelim)
+				b = append(b, c...)
+			}
+			w.Write(append(b, '\n'))
+		}
+	}
+
+	workers := cfg.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	ctx, cancel := context.WithCancel(ctx)
+	defer cancel()
+	jobs := make(chan *chunk, workers)
+	results := make(chan result, workers)
+	var readErr error
+	go func() {
+		defer close(jobs)
+		ck := newChunker(body, cfg.InFormat != JSONL, line)
+		for {
+			c, err := ck.next()
+			if err == io.EOF {
+				return
+			}
+			if err != nil {
+				readErr = err
+				cancel()
+				return
+			}
+			select {
+			case jobs <- c:
+			case <-ctx.Done():
+				return
+			}
+		}
+	}()
+	var wg sync.WaitGroup
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: &mediumCache{m: map[media.Conditions]cached{}}}
+			for c := range jobs {
+				r := p.process(c)
+				select {
+				case results <- r:
+				case <-ctx.Done():
+					return
+				}
+			}
+		}()
+	}
+	go func() { wg.Wait(); close(results) }()
+
+	pending := map[int]result{}
+	next := 0
+	var runErr error
+	for r := range results {
+		pending[r.seq] = r
+		for {
+			pr, ok := pending[next]
+			if !ok {
+				break
+			}
+			delete(pending, next)
+			next++
+			if runErr != nil {
+				continue
+			}
+			if _, err := w.Write(pr.out); err != nil {
+				runErr = err
+				cancel()
+			}
+			table = append(table, pr.table...)
+			for _, rj := range pr.rejects {
+				if err := reject(rj); err != nil && runErr == nil {
+					runErr = err
+					cancel()
+				}
+			}
+			sum.Read += pr.read
+			sum.Written += pr.written
+			sum.Rejected += len(pr.rejects)
+			sum.Blank += pr.blank
+			sum.Filtered += pr.filtered
+			for k, v := range pr.flags {
+				sum.Flags[k] += v
+			}
+		}
+	}
+	if runErr == nil && readErr != nil {
+		runErr = readErr
+	}
+	if runErr == nil && ctx.Err() != nil {
+		runErr = ctx.Err()
+	}
+	if runErr == nil && table != nil {
+		runErr = renderTable(w, table)
+	}
+	if err := w.Flush(); err != nil && runErr == nil {
+		runErr = err
+	}
+	sum.Elapsed = time.Since(start)
+	return sum, runErr
+}
+
+type countingReader struct {
+	r io.Reader
+	n int64
+	f func(int64)
+}
+
+func (c *countingReader) Read(p []byte) (int, error) {
+	n, err := c.r.Read(p)
+	c.n += int64(n)
+	c.f(c.n)
+	return n, err
+}
+
+// readRecord reads one record (up to an unquoted newline) and returns it
+// without its line ending, with the number of lines it spans.
+func readRecord(br *bufio.Reader) ([]byte, int, error) {
+	var rec []byte
+	in := false
+	lines := 0
+	for {
+		b, err := br.ReadByte()
+		if err == io.EOF {
+			if len(rec) == 0 && lines == 0 {
+				return nil, 0, fmt.Errorf("the input is empty: a header line is needed")
+			}
+			return bytes.TrimSuffix(rec, []byte{'\r'}), lines + 1, nil
+		}
+		if err != nil {
+			return nil, 0, err
+		}
+		if b == '"' {
+			in = !in
+		}
+		if b == '\n' {
+			lines++
+			if !in {
+				return bytes.TrimSuffix(rec, []byte{'\r'}), lines, nil
+			}
+		}
+		rec = append(rec, b)
+		if len(rec) > maxRecord {
+			return nil, 0, fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)
+		}
+	}
+}
+
+func firstLine(br *bufio.Reader) ([]byte, error) {
+	var b []byte
+	for {
+		s, err := br.ReadSlice('\n')
+		b = append(b, s...)
+		if err == nil || err == io.EOF {
+			return b, nil
+		}
+		if !errors.Is(err, bufio.ErrBufferFull) {
+			return nil, err
+		}
+		if len(b) > maxRecord {
+			return nil, fmt.Errorf("line 1 is longer than %d bytes", maxRecord)
+		}
+	}
+}
+
+// parseObject reads one JSON object, returning its keys in order, their raw
+// values and their text (strings unquoted, null empty).
+func parseObject(line []byte) (keys []string, raws []json.RawMessage, texts []string, err error) {
+	dec := json.NewDecoder(bytes.NewReader(line))
+	dec.UseNumber()
+	t, err := dec.Token()
+	if err != nil || t != json.Delim('{') {
+		return nil, nil, nil, fmt.Errorf("not a JSON object")
+	}
+	for dec.More() {
+		t, err := dec.Token()
+		if err != nil {
+			return nil, nil, nil, fmt.Errorf("malformed JSON: %v", err)
+		}
+		k, _ := t.(string)
+		var raw json.RawMessage
+		if err := dec.Decode(&raw); err != nil {
+			return nil, nil, nil, fmt.Errorf("malformed JSON value for %q: %v", k, err)
+		}
+		text := string(raw)
+		switch {
+		case len(raw) > 0 && raw[0] == '"':
+			var s string
+			json.Unmarshal(raw, &s)
+			text = s
+		case text == "null":
+			text = ""
+		}
+		keys, raws, texts = append(keys, k), append(raws, raw), append(texts, text)
+	}
+	if _, err := dec.Token(); err != nil {
+		return nil, nil, nil, fmt.Errorf("malformed JSON: %v", err)
+	}
+	if dec.More() {
+		return nil, nil, nil, fmt.Errorf("text after the JSON object")
+	}
+	return keys, raws, texts, nil
+}
+
+// appendJSONString appends s as a JSON string.
+func appendJSONString(b []byte, s string) []byte {
+	const hex = "0123456789abcdef"
+	b = append(b, '"')
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		switch {
+		case c == '"' || c == '\\':
+			b = append(b, '\\', c)
+		case c == '\n':
+			b = append(b, '\\', 'n')
+		case c == '\r':
+			b = append(b, '\\', 'r')
+		case c == '\t':
+			b = append(b, '\\', 't')
+		case c < 0x20:
+			b = append(b, '\\', 'u', '0', '0', hex[c>>4], hex[c&15])
+		default:
+			b = append(b, c)
+		}
+	}
+	return append(b, '"')
+}

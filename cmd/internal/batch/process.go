@@ -1,0 +1,187 @@
+package batch
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/report"
+)
+
+// processor computes the rows of chunks; one per worker.
+type processor struct {
+	cfg             Config
+	m               *mapping
+	delim, outDelim byte
+	cache           *mediumCache
+	fields          []string
+	vals            []string
+}
+
+func (p *processor) process(c *chunk) result {
+	res := result{seq: c.seq, flags: map[string]int{}}
+	for _, l := range c.overlong {
+		res.rejects = append(res.rejects, Reject{Line: l, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
+		res.read++
+	}
+	row := c.firstRow
+	out := make([]byte, 0, len(c.data)+len(c.data)/2)
+	eachRecord(c.data, p.cfg.InFormat != JSONL, func(rec []byte, off int) {
+		if blank(rec) {
+			res.blank++
+			return
+		}
+		row++
+		res.read++
+		line := c.firstLine + off
+		var raws []json.RawMessage
+		var keys []string
+		var err error
+		p.fields = p.fields[:0]
+		if p.cfg.InFormat == JSONL {
+			keys, raws, p.fields, err = p.alignJSON(rec)
+		} else {
+			p.fields, err = splitFields(p.fields, rec, p.delim)
+			if err == nil && len(p.fields) != len(p.m.header) {
+				err = fmt.Errorf("has %d fields, the header has %d", len(p.fields), len(p.m.header))
+			}
+		}
+		if err != nil {
+			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: string(rec)})
+			return
+		}
+		o, err := compute(&rowSource{m: p.m, fields: p.fields, consts: p.cfg.Constants}, p.cfg.DefaultMedium, p.cache)
+		if err != nil {
+			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: string(rec)}
+			var fe *inputs.FieldError
+			if errors.As(err, &fe) {
+				rj.Reason = fe.Err.Error()
+				rj.Column = fe.Label
+				if c := p.m.col[fe.Field]; c >= 0 {
+					rj.Column = strings.TrimSpace(p.m.header[c])
+				}
+			}
+			res.rejects = append(res.rejects, rj)
+			return
+		}
+		for _, f := range o.flags {
+			res.flags[f]++
+		}
+		if p.cfg.FlaggedOnly && len(o.flags) == 0 {
+			res.filtered++
+			return
+		}
+		res.written++
+		p.vals = o.values(p.vals[:0])
+		switch p.cfg.OutFormat {
+		case CSV, TSV:
+			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV {
+				out = append(out, rec...)
+			} else {
+				for i, f := range p.fields {
+					if i > 0 {
+						out = append(out, p.outDelim)
+					}
+					out = appendField(out, f, p.outDelim)
+				}
+			}
+			for _, v := range p.vals {
+				out = append(out, p.outDelim)
+				out = appendField(out, v, p.outDelim)
+			}
+			out = append(out, '\n')
+		case JSONL:
+			out = p.appendJSON(out, keys, raws)
+			out = append(out, '\n')
+		case Table:
+			res.table = append(res.table, append(append([]string{}, p.fields...), p.vals...))
+		}
+	})
+	res.out = out
+	return res
+}
+
+// alignJSON parses a JSON object and lines its values up with the header
+// (the first object's keys).
+func (p *processor) alignJSON(rec []byte) ([]string, []json.RawMessage, []string, error) {
+	keys, raws, texts, err := parseObject(rec)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	fields := make([]string, len(p.m.header))
+	for i, k := range keys {
+		j := indexOf(p.m.header, k)
+		if j < 0 {
+			return nil, nil, nil, fmt.Errorf("key %q is not among the first object's keys; every line must have the same keys", k)
+		}
+		fields[j] = texts[i]
+	}
+	return keys, raws, fields, nil
+}
+
+func indexOf(ss []string, s string) int {
+	for i, x := range ss {
+		if x == s {
+			return i
+		}
+	}
+	return -1
+}
+
+// appendJSON writes the row as one JSON object: the input's own members
+// unchanged, then the computed ones (numbers as numbers, absent as null).
+func (p *processor) appendJSON(b []byte, keys []string, raws []json.RawMessage) []byte {
+	b = append(b, '{')
+	n := 0
+	if p.cfg.InFormat == JSONL {
+		for i, k := range keys {
+			if n > 0 {
+				b = append(b, ',')
+			}
+			b = appendJSONString(b, k)
+			b = append(b, ':')
+			b = append(b, raws[i]...)
+			n++
+		}
+	} else {
+		for i, h := range p.m.header {
+			if n > 0 {
+				b = append(b, ',')
+			}
+			b = appendJSONString(b, h)
+			b = append(b, ':')
+			b = appendJSONString(b, p.fields[i])
+			n++
+		}
+	}
+	for i, c := range Computed {
+		if n > 0 {
+			b = append(b, ',')
+		}
+		n++
+		b = appendJSONString(b, c)
+		b = append(b, ':')
+		v := p.vals[i]
+		switch {
+		case textColumn[c]:
+			b = appendJSONString(b, v)
+		case v == "":
+			b = append(b, "null"...)
+		default:
+			b = append(b, v...)
+		}
+	}
+	return append(b, '}')
+}
+
+var textColumn = map[string]bool{"regime": true, "drag_law": true, "power_kind": true, "flags": true}
+
+func renderTable(w io.Writer, rows [][]string) error {
+	if len(rows) == 0 {
+		return nil
+	}
+	return report.Table(w, rows[0], rows[1:])
+}

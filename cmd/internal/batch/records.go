@@ -1,0 +1,260 @@
+package batch
+
+import (
+	"bytes"
+	"errors"
+	"io"
+)
+
+// maxRecord bounds one record; a longer one is rejected, not held in memory.
+const maxRecord = 8 << 20
+
+// chunkSize is the amount of input handed to a worker at a time.
+const chunkSize = 256 << 10
+
+// chunk is a run of whole records.
+type chunk struct {
+	seq       int
+	data      []byte
+	firstLine int // line number of the first byte of data (1-based)
+	firstRow  int // number of data rows before this chunk
+	overlong  []int
+	eof       bool
+}
+
+// chunker cuts a stream into chunks at record boundaries: newlines outside
+// double quotes (quotes are honoured for CSV and TSV; JSON Lines has none
+// that matter, since JSON strings cannot hold raw newlines).
+type chunker struct {
+	r        io.Reader
+	buf      []byte
+	quotes   bool
+	line     int
+	rows     int
+	seq      int
+	eof      bool
+	overlong []int
+}
+
+func newChunker(r io.Reader, quotes bool, line int) *chunker {
+	return &chunker{r: r, quotes: quotes, line: line}
+}
+
+// next returns the next chunk, or io.EOF.
+func (c *chunker) next() (*chunk, error) {
+	for {
+		if cut := c.boundary(); cut > 0 && (len(c.buf) >= chunkSize || c.eof) {
+			return c.emit(cut), nil
+		}
+		if c.eof {
+			if len(c.buf) > 0 {
+				return c.emit(len(c.buf)), nil
+			}
+			return nil, io.EOF
+		}
+		if len(c.buf) >= maxRecord && c.boundary() == 0 {
+			if err := c.skipOverlong(); err != nil {
+				return nil, err
+			}
+			continue
+		}
+		if err := c.fill(); err != nil {
+			return nil, err
+		}
+	}
+}
+
+func (c *chunker) fill() error {
+	if cap(c.buf)-len(c.buf) < chunkSize/2 {
+		nb := make([]byte, len(c.buf), 2*cap(c.buf)+chunkSize)
+		copy(nb, c.buf)
+		c.buf = nb
+	}
+	n, err := c.r.Read(c.buf[len(c.buf):cap(c.buf)])
+	c.buf = c.buf[:len(c.buf)+n]
+	if errors.Is(err, io.EOF) {
+		c.eof = true
+		return nil
+	}
+	return err
+}
+
+// boundary returns the index just past the last record end in buf, 0 if none.
+func (c *chunker) boundary() int {
+	if !c.quotes {
+		return bytes.LastIndexByte(c.buf, '\n') + 1
+	}
+	last, in := 0, false
+	b := c.buf
+	for i := 0; i < len(b); {
+		j := bytes.IndexAny(b[i:], "\"\n")
+		if j < 0 {
+			break
+		}
+		i += j
+		if b[i] == '"' {
+			in = !in
+		} else if !in {
+			last = i + 1
+		}
+		i++
+	}
+	return last
+}
+
+func (c *chunker) emit(cut int) *chunk {
+	data := make([]byte, cut)
+	copy(data, c.buf[:cut])
+	rest := copy(c.buf, c.buf[cut:])
+	c.buf = c.buf[:rest]
+	ch := &chunk{seq: c.seq, data: data, firstLine: c.line, firstRow: c.rows, overlong: c.overlong, eof: c.eof && rest == 0}
+	c.overlong = nil
+	c.seq++
+	c.line += bytes.Count(data, []byte{'\n'})
+	c.rows += countRecords(data, c.quotes)
+	return ch
+}
+
+// skipOverlong discards a record longer than maxRecord and notes its line.
+func (c *chunker) skipOverlong() error {
+	c.overlong = append(c.overlong, c.line)
+	in := false
+	for {
+		for i, ch := range c.buf {
+			switch {
+			case ch == '"' && c.quotes:
+				in = !in
+			case ch == '\n':
+				c.line++
+				if !in {
+					rest := copy(c.buf, c.buf[i+1:])
+					c.buf = c.buf[:rest]
+					c.rows++
+					return nil
+				}
+			}
+		}
+		c.buf = c.buf[:0]
+		if c.eof {
+			c.rows++
+			return nil
+		}
+		if err := c.fill(); err != nil {
+			return err
+		}
+	}
+}
+
+// countRecords counts non-blank records in data.
+func countRecords(data []byte, quotes bool) int {
+	n := 0
+	eachRecord(data, quotes, func(rec []byte, _ int) {
+		if !blank(rec) {
+			n++
+		}
+	})
+	return n
+}
+
+func blank(rec []byte) bool { return len(bytes.TrimSpace(rec)) == 0 }
+
+// eachRecord calls fn for each record of data with its line offset from
+// the chunk's first line; rec excludes the line ending (\n or \r\n).
+func eachRecord(data []byte, quotes bool, fn func(rec []byte, lineOff int)) {
+	line, start, in := 0, 0, false
+	recLine := 0
+	for i := 0; i < len(data); i++ {
+		switch data[i] {
+		case '"':
+			if quotes {
+				in = !in
+			}
+		case '\n':
+			if !in {
+				end := i
+				if end > start && data[end-1] == '\r' {
+					end--
+				}
+				fn(data[start:end], recLine)
+				start = i + 1
+				recLine = line + 1
+			}
+			line++
+		}
+	}
+	if start < len(data) {
+		end := len(data)
+		if data[end-1] == '\r' {
+			end--
+		}
+		fn(data[start:end], recLine)
+	}
+}
+
+var errQuote = errors.New(`a quoted field is not closed, or has text after its closing quote; write "" for a quote inside a quoted field`)
+
+// splitFields splits one CSV or TSV record into fields (RFC 4180 quoting),
+// appending to dst.
+func splitFields(dst []string, rec []byte, delim byte) ([]string, error) {
+	for i := 0; ; {
+		if i < len(rec) && rec[i] == '"' {
+			var b []byte
+			j := i + 1
+			for {
+				k := bytes.IndexByte(rec[j:], '"')
+				if k < 0 {
+					return dst, errQuote
+				}
+				b = append(b, rec[j:j+k]...)
+				j += k + 1
+				if j < len(rec) && rec[j] == '"' {
+					b = append(b, '"')
+					j++
+					continue
+				}
+				break
+			}
+			dst = append(dst, string(b))
+			if j == len(rec) {
+				return dst, nil
+			}
+			if rec[j] != delim {
+				return dst, errQuote
+			}
+			i = j + 1
+			continue
+		}
+		k := bytes.IndexByte(rec[i:], delim)
+		if k < 0 {
+			dst = append(dst, string(rec[i:]))
+			return dst, nil
+		}
+		dst = append(dst, string(rec[i:i+k]))
+		i += k + 1
+	}
+}
+
+// appendField appends s to b as a CSV/TSV field, quoting when needed.
+func appendField(b []byte, s string, delim byte) []byte {
+	need := false
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c == delim || c == '"' || c == '\n' || c == '\r' {
+			need = true
+			break
+		}
+	}
+	if len(s) > 0 && (s[0] == ' ' || s[len(s)-1] == ' ') {
+		need = true
+	}
+	if !need {
+		return append(b, s...)
+	}
+	b = append(b, '"')
+	for i := 0; i < len(s); i++ {
+		if s[i] == '"' {
+			b = append(b, '"')
+		}
+		b = append(b, s[i])
+	}
+	return append(b, '"')
+}

@@ -1,0 +1,302 @@
+package cli
+
+import (
+	"context"
+	"encoding/csv"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"sort"
+	"strconv"
+	"strings"
+	"syscall"
+
+	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/media"
+	"github.com/schollz/progressbar/v3"
+	"github.com/spf13/cobra"
+	"golang.org/x/term"
+)
+
+type batchOptions struct {
+	input, inFormat, outFormat, output, rejects, names string
+	columns, units                                     []string
+	flaggedOnly, quiet                                 bool
+	workers                                            int
+	organism                                           organismFlags
+	medium                                             string
+	flags                                              mediumFlags
+}
+
+const batchHelp = `Read a survey table (CSV, TSV or JSON Lines; FILE or - for stdin) and
+write every row back with computed columns appended:
+  ` + "density_kg_m3, kinematic_viscosity_m2_s, reynolds, regime, strouhal, drag_law, drag_N, power_kind, power_W, flags" + `
+Input columns are carried through unchanged and in order.
+
+Columns are matched to quantities by header, with units taken from the
+header as data sheets write them: "length (mm)", "speed [cm/s]", "temp_C",
+"length_mm". A cell may also carry its own unit ("12 mm"). Override with
+--column length="Body length" and --unit length=mm. Quantities:
+  length diameter shape speed frequency amplitude mass span wing_length
+  chord wing_area stroke_angle efficiency drag_coefficient area
+  induced_factor profile_drag disc diffusivity medium temperature
+  temp_offset salinity depth pressure altitude humidity latitude
+A flag of calc (--temp 12C, --medium seawater, --shape spheroid, …) gives a
+constant for a quantity that has no column.
+
+Rows that cannot be computed go to --rejects FILE (CSV: line, row, column,
+reason, record) or, without it, one line each to stderr; the exit status is
+3 when any row was rejected. Blank lines are skipped and counted.
+
+The flags column names in plain words what looks wrong: a Strouhal number
+outside 0.05–1 (strouhal-outside-animals), a speed in body lengths per
+second beyond known organisms (speed-beyond-known), a correlation used
+outside its range (correlation-out-of-range), a medium condition outside a
+method's range (medium-out-of-range), inconsistent inputs such as an
+amplitude larger than the body or a wingspan without a mass
+(inconsistent-inputs), and model limits (model-limit, drag-crisis,
+geometry). --flagged-only keeps only flagged rows.
+
+For parallel engines: with --names "a,b,c" the input has no header line and
+the output has none either, so shards of a file processed separately and
+concatenated equal the whole file's output. JSON Lines output never has a
+header.`
+
+func newBatchCmd(s Streams) *cobra.Command {
+	o := &batchOptions{}
+	cmd := &cobra.Command{
+		Use:   "batch {FILE | -} [flags]",
+		Short: "Compute every row of a survey table (CSV, TSV, JSON Lines), in parallel, in order",
+		Long:  batchHelp + "\n\n" + estimateNotice,
+		Example: `  flowregime batch survey.csv -o results.csv --rejects rejects.csv
+  flowregime batch tags.tsv --medium seawater --temp 8C --format jsonl
+  tail -n +2 survey.csv | parallel --pipe -k flowregime batch - --names "$(head -1 survey.csv)" --quiet`,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) != 1 {
+				return usagef("batch needs one argument: a file, or - for standard input")
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			o.input = args[0]
+			return runBatch(cmd.Context(), o, s)
+		},
+	}
+	fs := cmd.Flags()
+	fs.StringVar(&o.inFormat, "input-format", "", "csv, tsv or jsonl (default: from the file's extension, else csv)")
+	fs.StringVar(&o.outFormat, "format", "", "output: csv, tsv, jsonl or table (default: from -o's extension, else csv)")
+	fs.StringVarP(&o.output, "output", "o", "", "output file (written atomically); default stdout")
+	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
+	fs.StringArrayVar(&o.columns, "column", nil, "quantity=header: take a quantity from this column (repeatable)")
+	fs.StringArrayVar(&o.units, "unit", nil, "quantity=unit: unit of that quantity's column (repeatable)")
+	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
+	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
+	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar and no summary")
+	fs.IntVar(&o.workers, "workers", 0, "parallel workers (default: number of CPUs)")
+	o.organism.bind(cmd)
+	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "medium for rows without a medium column: air, freshwater or seawater")
+	o.flags.bind(fs)
+	return cmd
+}
+
+func formatFromName(name string) string {
+	switch strings.ToLower(filepath.Ext(name)) {
+	case ".tsv", ".tab":
+		return batch.TSV
+	case ".jsonl", ".ndjson":
+		return batch.JSONL
+	case ".txt":
+		return batch.Table
+	}
+	return batch.CSV
+}
+
+func keyValues(flag string, items []string) (map[string]string, error) {
+	out := map[string]string{}
+	for _, it := range items {
+		k, v, ok := strings.Cut(it, "=")
+		if !ok || strings.TrimSpace(k) == "" {
+			return nil, usagef("--%s %q: write quantity=value, e.g. --%s length=mm", flag, it, flag)
+		}
+		out[strings.TrimSpace(k)] = strings.Trim(strings.TrimSpace(v), `"`)
+	}
+	return out, nil
+}
+
+func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
+	if ctx == nil {
+		ctx = context.Background()
+	}
+	ctx, stop := signal.NotifyContext(ctx, os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: o.medium}
+	cfg.InFormat = o.inFormat
+	if cfg.InFormat == "" {
+		cfg.InFormat = batch.CSV
+		if o.input != "-" {
+			cfg.InFormat = formatFromName(o.input)
+		}
+	}
+	cfg.OutFormat = o.outFormat
+	if cfg.OutFormat == "" {
+		cfg.OutFormat = batch.CSV
+		if o.output != "" {
+			cfg.OutFormat = formatFromName(o.output)
+		}
+	}
+	switch cfg.InFormat {
+	case batch.CSV, batch.TSV, batch.JSONL:
+	default:
+		return usagef("--input-format %q is not known; accepted: csv, tsv, jsonl", cfg.InFormat)
+	}
+	switch cfg.OutFormat {
+	case batch.CSV, batch.TSV, batch.JSONL, batch.Table:
+	default:
+		return usagef("--format %q is not known; accepted: csv, tsv, jsonl, table", cfg.OutFormat)
+	}
+	var err error
+	if cfg.Columns, err = keyValues("column", o.columns); err != nil {
+		return err
+	}
+	if cfg.Units, err = keyValues("unit", o.units); err != nil {
+		return err
+	}
+	if o.names != "" {
+		r := csv.NewReader(strings.NewReader(o.names))
+		if cfg.Names, err = r.Read(); err != nil {
+			return usagef("--names: %v", err)
+		}
+	}
+	cfg.Constants = merge(o.organism.source(), o.flags.source())
+	if cfg.Constants["disc"] == "span" {
+		delete(cfg.Constants, "disc")
+	}
+	for k, v := range cfg.Constants {
+		if v == "" {
+			delete(cfg.Constants, k)
+		}
+	}
+	// Check the constants once, so a bad flag is a usage error, not a reject per row.
+	for k, v := range cfg.Constants {
+		f := inputs.Fields[inputs.Index(k)]
+		if !f.Text {
+			if _, err := parseFlagValue(f, v); err != nil {
+				return err
+			}
+		}
+	}
+
+	var in io.Reader = s.In
+	var size int64 = -1
+	if o.input != "-" {
+		f, err := os.Open(o.input)
+		if err != nil {
+			return fmt.Errorf("cannot read %s: %v", o.input, err)
+		}
+		defer f.Close()
+		if st, err := f.Stat(); err == nil {
+			size = st.Size()
+		}
+		in = f
+	}
+	var out io.Writer = s.Out
+	var outFile, rejFile *atomicFile
+	if o.output != "" {
+		if outFile, err = createAtomic(o.output); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.output, err)
+		}
+		defer outFile.abort()
+		out = outFile
+	}
+	var rejW *csv.Writer
+	if o.rejects != "" {
+		if rejFile, err = createAtomic(o.rejects); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
+		}
+		defer rejFile.abort()
+		rejW = csv.NewWriter(rejFile)
+		rejW.Write([]string{"line", "row", "column", "reason", "record"})
+	}
+	reject := func(r batch.Reject) error {
+		if rejW != nil {
+			return rejW.Write([]string{strconv.Itoa(r.Line), strconv.Itoa(r.Row), r.Column, r.Reason, r.Record})
+		}
+		where := fmt.Sprintf("line %d", r.Line)
+		if r.Row > 0 {
+			where += fmt.Sprintf(" (row %d)", r.Row)
+		}
+		if r.Column != "" {
+			where += fmt.Sprintf(", column %q", r.Column)
+		}
+		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s: %s\n", where, r.Reason)
+		return err
+	}
+	if f, ok := s.Err.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {
+		bar := progressbar.NewOptions64(size, progressbar.OptionSetWriter(f), progressbar.OptionShowBytes(true),
+			progressbar.OptionSetDescription("batch"), progressbar.OptionClearOnFinish(), progressbar.OptionThrottle(200e6))
+		cfg.Progress = func(n int64) { bar.Set64(n) }
+		defer bar.Finish()
+	}
+	sum, err := batch.Run(ctx, in, out, reject, cfg)
+	if err != nil {
+		return fmt.Errorf("batch: %v", err)
+	}
+	if rejW != nil {
+		rejW.Flush()
+		if err := rejW.Error(); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
+		}
+		if err := rejFile.commit(); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
+		}
+	}
+	if outFile != nil {
+		if err := outFile.commit(); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.output, err)
+		}
+	}
+	if !o.quiet {
+		fmt.Fprintln(s.Err, summaryLine(sum, o.rejects))
+	}
+	if sum.Rejected > 0 {
+		return exitError{code: ExitRejected}
+	}
+	return nil
+}
+
+func summaryLine(sum batch.Summary, rejects string) string {
+	secs := sum.Elapsed.Seconds()
+	var b strings.Builder
+	fmt.Fprintf(&b, "flowregime: batch: %d rows read, %d written, %d rejected", sum.Read, sum.Written, sum.Rejected)
+	if sum.Rejected > 0 && rejects != "" {
+		fmt.Fprintf(&b, " (in %s)", rejects)
+	}
+	if sum.Filtered > 0 {
+		fmt.Fprintf(&b, ", %d unflagged left out", sum.Filtered)
+	}
+	if sum.Blank > 0 {
+		fmt.Fprintf(&b, ", %d blank lines skipped", sum.Blank)
+	}
+	fmt.Fprintf(&b, ", %.3g s", secs)
+	if secs > 0 {
+		fmt.Fprintf(&b, " (%.3g rows/s)", float64(sum.Read)/secs)
+	}
+	if len(sum.Flags) > 0 {
+		keys := make([]string, 0, len(sum.Flags))
+		for k := range sum.Flags {
+			keys = append(keys, k)
+		}
+		sort.Strings(keys)
+		b.WriteString("; flags:")
+		for i, k := range keys {
+			if i > 0 {
+				b.WriteString(",")
+			}
+			fmt.Fprintf(&b, " %s %d", k, sum.Flags[k])
+		}
+	}
+	return b.String()
+}

@@ -1,0 +1,35 @@
+package regime
+
+// Screening thresholds for survey data. Each flags a measurement worth a
+// second look, not an impossible one.
+const (
+	// WarnSpeed flags a speed in body lengths per second beyond what
+	// organisms of that size are known to reach.
+	WarnSpeed = "speed-beyond-known"
+
+	// Large fish and other animals of 10 cm and more rarely exceed about
+	// 25 body lengths per second even in sprints (Wardle, C. S. (1975),
+	// Limit of fish swimming speed, Nature 255, 725–727, recalled from
+	// memory); 30 BL/s is used.
+	maxRelativeSpeedLarge = 30.0
+	largeBody             = 0.1 // m
+
+	// No organism of any size is known to exceed about 1000 body lengths
+	// per second; the fastest relative speeds reported, copepod escape jumps
+	// and mites, are a few hundred (common practice, no single source).
+	maxRelativeSpeed = 1000.0
+)
+
+// Screen returns warnings for measurements that look implausible.
+// Strouhal-number and consistency checks are made by [Calc] itself.
+func Screen(o Organism, r Result) []Warning {
+	var ws []Warning
+	bl := o.Speed / o.Body.Length
+	switch {
+	case bl > maxRelativeSpeed:
+		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl))
+	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge:
+		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond what animals of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl))
+	}
+	return ws
+}
