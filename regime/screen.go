@@ -7,7 +7,7 @@ const (
 	// organisms of that size are known to reach.
 	WarnSpeed = "speed-beyond-known"
 
-	// Large fish and other animals of 10 cm and more rarely exceed about
+	// Swimmers of 10 cm and more rarely exceed about
 	// 25 body lengths per second even in sprints (Wardle, C. S. (1975),
 	// Limit of fish swimming speed, Nature 255, 725–727, recalled from
 	// memory); 30 BL/s is used.
@@ -28,8 +28,8 @@ func Screen(o Organism, r Result) []Warning {
 	switch {
 	case bl > maxRelativeSpeed:
 		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl))
-	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge:
-		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond what animals of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl))
+	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && r.Medium.Medium != "air":
+		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl))
 	}
 	return ws
 }

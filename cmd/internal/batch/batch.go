@@ -186,11 +186,12 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 	}()
 	var wg sync.WaitGroup
+	cache := &mediumCache{m: map[media.Conditions]cached{}}
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: &mediumCache{m: map[media.Conditions]cached{}}}
+			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: cache}
 			for c := range jobs {
 				r := p.process(c)
 				select {

@@ -3,6 +3,7 @@ package batch
 import (
 	"math"
 	"sort"
+	"sync"
 	"strconv"
 	"strings"
 
@@ -36,9 +37,11 @@ func (s *rowSource) Lookup(f int) (string, string, string, bool) {
 	return s.consts.Lookup(f)
 }
 
-// mediumCache holds medium properties by condition; one per worker.
+// mediumCache holds medium properties by condition, shared by the workers.
+// Entries drop the methods text, which batch output does not print.
 type mediumCache struct {
-	m map[media.Conditions]cached
+	mu sync.RWMutex
+	m  map[media.Conditions]cached
 }
 
 type cached struct {
@@ -62,14 +65,20 @@ func noNaN(c media.Conditions) media.Conditions {
 
 func (mc *mediumCache) lookup(c media.Conditions) (media.Properties, error) {
 	key := noNaN(c)
-	if e, ok := mc.m[key]; ok {
+	mc.mu.RLock()
+	e, ok := mc.m[key]
+	mc.mu.RUnlock()
+	if ok {
 		return e.p, e.err
 	}
+	p, err := media.Lookup(c)
+	p.Methods = nil
+	mc.mu.Lock()
 	if len(mc.m) >= cacheLimit {
 		clear(mc.m)
 	}
-	p, err := media.Lookup(c)
 	mc.m[key] = cached{p, err}
+	mc.mu.Unlock()
 	return p, err
 }
 

@@ -310,10 +310,20 @@ func (rd *reader) conditions(medium string, values []quantity.Value) (media.Cond
 // Flags is a Source over flag values keyed by field name.
 type Flags map[string]string
 
+var flagLabels = func() []string {
+	out := make([]string, len(Fields))
+	for i, f := range Fields {
+		out[i] = "--" + f.Flag
+	}
+	return out
+}()
+
 // Lookup implements Source.
 func (f Flags) Lookup(field int) (string, string, string, bool) {
-	fl := Fields[field]
-	t, ok := f[fl.Name]
+	if len(f) == 0 {
+		return "", "", flagLabels[field], false
+	}
+	t, ok := f[Fields[field].Name]
 	t = strings.TrimSpace(t)
-	return t, "", "--" + fl.Flag, ok && t != ""
+	return t, "", flagLabels[field], ok && t != ""
 }

@@ -123,8 +123,15 @@ func Parse(k Kind, text string) (Value, error) { return ParseDefault(k, text, ""
 // as when a data sheet's header says "length (mm)" and its cells hold
 // bare numbers. A unit in the text wins over the default.
 func ParseDefault(k Kind, text, defUnit string) (Value, error) {
-	if _, ok := units[k]; !ok {
+	table, ok := units[k]
+	if !ok {
 		return Value{}, fmt.Errorf("unknown quantity kind %d", int(k))
+	}
+	if f, ok := plainNumber(text); ok && defUnit != "" {
+		// Fast path for data sheets: a bare number in the column's unit.
+		if c, ok := table[defUnit]; ok {
+			return Value{SI: f*c.factor + c.offset, Unit: defUnit, PerBodyLength: c.note == "bl", Absolute: c.note == "abs"}, nil
+		}
 	}
 	s := strings.TrimSpace(strings.ReplaceAll(text, "−", "-"))
 	if s == "" {
@@ -217,10 +224,11 @@ func lookupUnit(k Kind, unit, text string) (conv, error) {
 	return c, nil
 }
 
+var spellings = strings.NewReplacer("μ", "µ", "·", "", " ", "", "^", "", "**", "")
+
 // normalise maps common spellings onto the table's keys.
 func normalise(u string) string {
-	r := strings.NewReplacer("μ", "µ", "·", "", " ", "", "^", "", "**", "")
-	u = r.Replace(u)
+	u = spellings.Replace(u)
 	switch strings.ToLower(u) {
 	case "bl/s", "bls-1", "bl s-1", "l/s", "bodylengths/s":
 		return "BL/s"
@@ -312,4 +320,22 @@ func KnownUnit(k Kind, u string) bool {
 	}
 	_, ok := units[k][normalise(u)]
 	return ok
+}
+
+// plainNumber parses text made only of an ASCII decimal number.
+func plainNumber(text string) (float64, bool) {
+	if text == "" || len(text) > 32 {
+		return 0, false
+	}
+	for i := 0; i < len(text); i++ {
+		c := text[i]
+		if !(c >= '0' && c <= '9' || c == '.' || c == '-' || c == '+' || c == 'e' || c == 'E') {
+			return 0, false
+		}
+	}
+	f, err := strconv.ParseFloat(text, 64)
+	if err != nil || math.IsInf(f, 0) || math.IsNaN(f) {
+		return 0, false
+	}
+	return f, true
 }

@@ -1,0 +1,62 @@
+package batch
+
+import (
+	"bytes"
+	"context"
+	"io"
+	"testing"
+
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/survey"
+	"github.com/flowregime/flowregime/media"
+)
+
+func surveyData(b *testing.B, n int) []byte {
+	b.Helper()
+	var buf bytes.Buffer
+	if err := survey.Generate(&buf, n, 1); err != nil {
+		b.Fatal(err)
+	}
+	return buf.Bytes()
+}
+
+// BenchmarkBatchCSV measures end-to-end CSV → CSV throughput on the
+// synthetic survey (per-row medium and temperature); reports rows/s.
+func BenchmarkBatchCSV(b *testing.B) {
+	const n = 200000
+	data := surveyData(b, n)
+	b.SetBytes(int64(len(data)))
+	b.ResetTimer()
+	for range b.N {
+		_, err := Run(context.Background(), bytes.NewReader(data), io.Discard, func(Reject) error { return nil },
+			Config{InFormat: CSV, OutFormat: CSV, DefaultMedium: "freshwater", Constants: inputs.Flags{}})
+		if err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(n*b.N)/b.Elapsed().Seconds(), "rows/s")
+}
+
+// BenchmarkRow measures the computation of one row, without reading or
+// writing.
+func BenchmarkRow(b *testing.B) {
+	data := surveyData(b, 1000)
+	lines := bytes.Split(bytes.TrimSpace(data), []byte{'\n'})
+	header, _ := splitFields(nil, lines[0], ',')
+	m, err := newMapping(header, nil, nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	var rows [][]string
+	for _, l := range lines[1:] {
+		f, _ := splitFields(nil, l, ',')
+		rows = append(rows, f)
+	}
+	cache := &mediumCache{m: map[media.Conditions]cached{}}
+	b.ResetTimer()
+	for i := range b.N {
+		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: inputs.Flags{}}, "freshwater", cache); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
