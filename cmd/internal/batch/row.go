@@ -3,9 +3,9 @@ package batch
 import (
 	"math"
 	"sort"
-	"sync"
 	"strconv"
 	"strings"
+	"sync"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/media"
