@@ -145,3 +145,13 @@ func (m *mapping) describe() []string {
 	}
 	return out
 }
+
+// MatchHeader returns the quantity a header names ("" if none) and the unit
+// it states, by the rules batch uses.
+func MatchHeader(h string) (field, unit string) {
+	f, u := splitHeader(h)
+	if f < 0 {
+		return "", ""
+	}
+	return inputs.Fields[f].Name, u
+}

@@ -86,20 +86,43 @@ func newBatchCmd(s Streams) *cobra.Command {
 		},
 	}
 	fs := cmd.Flags()
-	fs.StringVar(&o.inFormat, "input-format", "", "csv, tsv or jsonl (default: from the file's extension, else csv)")
 	fs.StringVar(&o.outFormat, "format", "", "output: csv, tsv, jsonl or table (default: from -o's extension, else csv)")
 	fs.StringVarP(&o.output, "output", "o", "", "output file (written atomically); default stdout")
 	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
-	fs.StringArrayVar(&o.columns, "column", nil, "quantity=header: take a quantity from this column (repeatable)")
-	fs.StringArrayVar(&o.units, "unit", nil, "quantity=unit: unit of that quantity's column (repeatable)")
 	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
 	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar and no summary")
+	o.bindInputs(cmd)
+	return cmd
+}
+
+// bindInputs binds the flags that say how to read a table and what to
+// assume for quantities it lacks; batch and tabulate share them.
+func (o *batchOptions) bindInputs(cmd *cobra.Command) {
+	fs := cmd.Flags()
+	fs.StringVar(&o.inFormat, "input-format", "", "csv, tsv or jsonl (default: from the file's extension, else csv)")
+	fs.StringArrayVar(&o.columns, "column", nil, "quantity=header: take a quantity from this column (repeatable)")
+	fs.StringArrayVar(&o.units, "unit", nil, "quantity=unit: unit of that quantity's column (repeatable)")
 	fs.IntVar(&o.workers, "workers", 0, "parallel workers (default: number of CPUs)")
 	o.organism.bind(cmd)
 	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "medium for rows without a medium column: air, freshwater or seawater")
 	o.flags.bind(fs)
-	return cmd
+}
+
+// open returns the input named by o.input and its size (−1 if unknown).
+func (o *batchOptions) open(s Streams) (io.ReadCloser, int64, error) {
+	if o.input == "-" {
+		return io.NopCloser(s.In), -1, nil
+	}
+	f, err := os.Open(o.input)
+	if err != nil {
+		return nil, 0, fmt.Errorf("cannot read %s: %v", o.input, err)
+	}
+	size := int64(-1)
+	if st, err := f.Stat(); err == nil {
+		size = st.Size()
+	}
+	return f, size, nil
 }
 
 func formatFromName(name string) string {
@@ -126,12 +149,9 @@ func keyValues(flag string, items []string) (map[string]string, error) {
 	return out, nil
 }
 
-func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
-	if ctx == nil {
-		ctx = context.Background()
-	}
-	ctx, stop := signal.NotifyContext(ctx, os.Interrupt, syscall.SIGTERM)
-	defer stop()
+// config turns the flags into a batch configuration.
+func (o *batchOptions) config() (batch.Config, error) {
+	var err error
 	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: o.medium}
 	cfg.InFormat = o.inFormat
 	if cfg.InFormat == "" {
@@ -150,24 +170,23 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	switch cfg.InFormat {
 	case batch.CSV, batch.TSV, batch.JSONL:
 	default:
-		return usagef("--input-format %q is not known; accepted: csv, tsv, jsonl", cfg.InFormat)
+		return cfg, usagef("--input-format %q is not known; accepted: csv, tsv, jsonl", cfg.InFormat)
 	}
 	switch cfg.OutFormat {
 	case batch.CSV, batch.TSV, batch.JSONL, batch.Table:
 	default:
-		return usagef("--format %q is not known; accepted: csv, tsv, jsonl, table", cfg.OutFormat)
+		return cfg, usagef("--format %q is not known; accepted: csv, tsv, jsonl, table", cfg.OutFormat)
 	}
-	var err error
 	if cfg.Columns, err = keyValues("column", o.columns); err != nil {
-		return err
+		return cfg, err
 	}
 	if cfg.Units, err = keyValues("unit", o.units); err != nil {
-		return err
+		return cfg, err
 	}
 	if o.names != "" {
 		r := csv.NewReader(strings.NewReader(o.names))
 		if cfg.Names, err = r.Read(); err != nil {
-			return usagef("--names: %v", err)
+			return cfg, usagef("--names: %v", err)
 		}
 	}
 	cfg.Constants = merge(o.organism.source(), o.flags.source())
@@ -184,24 +203,29 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		f := inputs.Fields[inputs.Index(k)]
 		if !f.Text {
 			if _, err := parseFlagValue(f, v); err != nil {
-				return err
+				return cfg, err
 			}
 		}
 	}
 
-	var in io.Reader = s.In
-	var size int64 = -1
-	if o.input != "-" {
-		f, err := os.Open(o.input)
-		if err != nil {
-			return fmt.Errorf("cannot read %s: %v", o.input, err)
-		}
-		defer f.Close()
-		if st, err := f.Stat(); err == nil {
-			size = st.Size()
-		}
-		in = f
+	return cfg, nil
+}
+
+func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
+	if ctx == nil {
+		ctx = context.Background()
 	}
+	ctx, stop := signal.NotifyContext(ctx, os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	cfg, err := o.config()
+	if err != nil {
+		return err
+	}
+	in, size, err := o.open(s)
+	if err != nil {
+		return err
+	}
+	defer in.Close()
 	var out io.Writer = s.Out
 	var outFile, rejFile *atomicFile
 	if o.output != "" {

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/json"
 	"math"
+	"os"
 	"strings"
 	"testing"
 )
@@ -175,6 +176,55 @@ func TestLawsListing(t *testing.T) {
 	for _, w := range []string{"Stokes", "Proudman–Pearson", "standard drag curve", "Clift–Gauvin", "Lamb", "Cox", "ITTC-1957", "Hoerner"} {
 		if code != 0 || !strings.Contains(out, w) {
 			t.Errorf("laws lacks %q", w)
+		}
+	}
+}
+
+// batch writes its output atomically and rejects to a CSV file, and says
+// with exit status 3 that rows were rejected.
+func TestBatchFilesAndExitStatus(t *testing.T) {
+	dir := t.TempDir()
+	out, rej := dir+"/out.csv", dir+"/rej.csv"
+	_, errs, code := run(t, "batch", "../../../testdata/batch/corrupt.csv", "-o", out, "--rejects", rej)
+	if code != ExitRejected || !strings.Contains(errs, "10 rows read, 3 written, 7 rejected (in "+rej+")") {
+		t.Errorf("exit %d, stderr %q", code, errs)
+	}
+	got, err := os.ReadFile(rej)
+	if err != nil || !strings.HasPrefix(string(got), "line,row,column,reason,record\n3,2,length (mm),") {
+		t.Errorf("rejects file: %v\n%s", err, got)
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 2 {
+		t.Errorf("temporary files left behind: %v", entries)
+	}
+	// A failing run leaves no output file behind.
+	bad := dir + "/never.csv"
+	_, _, code = run(t, "batch", "../../../testdata/batch/corrupt.csv", "-o", bad, "--column", "length=nope")
+	if _, err := os.Stat(bad); code != ExitFailure || err == nil {
+		t.Errorf("failed run: exit %d, output exists: %v", code, err == nil)
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 2 {
+		t.Errorf("temporary files left behind after failure: %v", entries)
+	}
+}
+
+func TestBatchUsageErrors(t *testing.T) {
+	cases := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"batch"}, "needs one argument"},
+		{[]string{"batch", "../../../testdata/batch/corrupt.csv", "--unit", "length=parsec"}, "not a unit of length"},
+		{[]string{"batch", "../../../testdata/batch/corrupt.csv", "--format", "xlsx"}, "--format \"xlsx\""},
+		{[]string{"batch", "../../../testdata/batch/corrupt.csv", "--speed", "3"}, "--speed: speed \"3\" has no unit"},
+		{[]string{"batch", "no-such-file.csv"}, "cannot read no-such-file.csv"},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.args...)
+		if c.want == "" {
+			continue
+		}
+		if code == 0 || !strings.Contains(errs, c.want) {
+			t.Errorf("%v: exit %d, stderr %q, want %q", c.args, code, errs, c.want)
 		}
 	}
 }

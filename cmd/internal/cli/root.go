@@ -7,6 +7,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"sort"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -66,7 +67,7 @@ really lives in, and what drag and power follow from the law that fits.
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
 		return usageError{fmt.Errorf("%v (see 'flowregime %s --help')", err, c.Name())}
 	})
-	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s))
+	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s), newTabulateCmd(s), newDemoCmd(s))
 	return root
 }
 
@@ -94,3 +95,7 @@ func Main(args []string, s Streams) int {
 	}
 	return ExitFailure
 }
+
+var errEOF = io.EOF
+
+func sortStrings(s []string) { sort.Strings(s) }

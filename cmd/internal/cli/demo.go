@@ -1,0 +1,114 @@
+package cli
+
+import (
+	"bytes"
+	"context"
+	"encoding/csv"
+	"fmt"
+	"strings"
+
+	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/demo"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/report"
+	"github.com/flowregime/flowregime/cmd/internal/tabulate"
+	"github.com/flowregime/flowregime/media"
+	"github.com/spf13/cobra"
+)
+
+func newDemoCmd(s Streams) *cobra.Command {
+	var data bool
+	cmd := &cobra.Command{
+		Use:   "demo",
+		Short: "Run batch and tabulate on the built-in demo survey (invented data)",
+		Long: `Run the main job on the embedded demo survey: ` + demo.Name + `.
+--data prints the survey itself, to try batch and tabulate on.`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if data {
+				_, err := s.Out.Write(demo.Survey)
+				return err
+			}
+			return runDemo(s)
+		},
+	}
+	cmd.Flags().BoolVar(&data, "data", false, "print the demo survey as CSV and stop")
+	return cmd
+}
+
+func runDemo(s Streams) error {
+	ctx := context.Background()
+	cfg := batch.Config{InFormat: batch.CSV, OutFormat: batch.CSV, DefaultMedium: media.KindFreshWater, Constants: inputs.Flags{}}
+	var out bytes.Buffer
+	rejected := 0
+	sum, err := batch.Run(ctx, bytes.NewReader(demo.Survey), &out, func(batch.Reject) error { rejected++; return nil }, cfg)
+	if err != nil {
+		return fmt.Errorf("demo: %v", err)
+	}
+	w := s.Out
+	fmt.Fprintf(w, "Demo survey: %s.\n%d rows read, %d computed, %d rejected.\n\n", demo.Name, sum.Read, sum.Written, rejected)
+
+	recs, err := csv.NewReader(bytes.NewReader(out.Bytes())).ReadAll()
+	if err != nil {
+		return fmt.Errorf("demo: %v", err)
+	}
+	rowsIter := func(rs [][]string) func() ([]string, error) {
+		i := 0
+		return func() ([]string, error) {
+			if i >= len(rs) {
+				return nil, errEOF
+			}
+			i++
+			return rs[i-1], nil
+		}
+	}
+	byTaxon, err := tabulate.Tabulate(recs[0], rowsIter(recs[1:]), tabulate.Spec{By: []string{"taxon"}})
+	if err != nil {
+		return fmt.Errorf("demo: %v", err)
+	}
+	fmt.Fprintln(w, "Per taxon (flowregime tabulate --by taxon):")
+	h, rows := groupRows(byTaxon, true)
+	if err := report.Table(w, h, rows); err != nil {
+		return err
+	}
+	fmt.Fprintln(w, "Cells: median [5th–95th percentile].")
+
+	all, err := tabulate.Tabulate(recs[0], rowsIter(recs[1:]), tabulate.Spec{Fits: []tabulate.Pair{{Y: "reynolds", X: "length"}, {Y: "power_W", X: "mass"}}})
+	if err != nil {
+		return fmt.Errorf("demo: %v", err)
+	}
+	fmt.Fprintln(w, "\nAcross the whole survey, log10 y = a + b log10 x (SI units), 95 % intervals:")
+	fh, frows := fitRows(all, true)
+	if err := report.Table(w, fh, frows); err != nil {
+		return err
+	}
+
+	col := map[string]int{}
+	for i, h := range recs[0] {
+		col[h] = i
+	}
+	var flagged [][]string
+	for _, r := range recs[1:] {
+		f := r[col["flags"]]
+		if strings.Contains(f, "inconsistent-inputs") || strings.Contains(f, "strouhal-outside-animals") || strings.Contains(f, "speed-beyond-known") {
+			flagged = append(flagged, []string{r[col["date"]], r[col["site"]], r[col["taxon"]], r[col["reynolds"]], r[col["strouhal"]], f})
+		}
+	}
+	fmt.Fprintln(w, "\nRows whose measurements look wrong (flowregime batch --flagged-only shows all flags):")
+	if err := report.Table(w, []string{"date", "site", "taxon", "Re", "St", "flags"}, flagged); err != nil {
+		return err
+	}
+	keys := make([]string, 0, len(sum.Flags))
+	for k := range sum.Flags {
+		keys = append(keys, fmt.Sprintf("%s %d", k, sum.Flags[k]))
+	}
+	sortStrings(keys)
+	fmt.Fprintf(w, "Flags over the survey: %s.\n", strings.Join(keys, ", "))
+	fmt.Fprintln(w, `
+Next:
+  flowregime demo --data > survey.csv
+  flowregime batch survey.csv -o results.csv --rejects rejects.csv
+  flowregime tabulate survey.csv --by taxon,site --fit power_W=mass
+  flowregime calc --help`)
+	return nil
+}
