@@ -17,7 +17,6 @@ import (
 	"time"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
-	"github.com/flowregime/flowregime/media"
 )
 
 // Formats.
@@ -186,7 +185,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 	}()
 	var wg sync.WaitGroup
-	cache := &mediumCache{m: map[media.Conditions]cached{}}
+	cache := newMediumCache()
 	for range workers {
 		wg.Add(1)
 		go func() {

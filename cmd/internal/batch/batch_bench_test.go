@@ -8,7 +8,6 @@ import (
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/survey"
-	"github.com/flowregime/flowregime/media"
 )
 
 func surveyData(b *testing.B, n int) []byte {
@@ -52,7 +51,7 @@ func BenchmarkRow(b *testing.B) {
 		f, _ := splitFields(nil, l, ',')
 		rows = append(rows, f)
 	}
-	cache := &mediumCache{m: map[media.Conditions]cached{}}
+	cache := newMediumCache()
 	b.ResetTimer()
 	for i := range b.N {
 		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: inputs.Flags{}}, "freshwater", cache); err != nil {

@@ -75,7 +75,9 @@ func (p *processor) process(c *chunk) result {
 			return
 		}
 		res.written++
-		p.vals = o.values(p.vals[:0])
+		if p.cfg.OutFormat != CSV && p.cfg.OutFormat != TSV {
+			p.vals = o.values(p.vals[:0])
+		}
 		switch p.cfg.OutFormat {
 		case CSV, TSV:
 			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV {
@@ -88,10 +90,7 @@ func (p *processor) process(c *chunk) result {
 					out = appendField(out, f, p.outDelim)
 				}
 			}
-			for _, v := range p.vals {
-				out = append(out, p.outDelim)
-				out = appendField(out, v, p.outDelim)
-			}
+			out = o.appendCSV(out, p.outDelim)
 			out = append(out, '\n')
 		case JSONL:
 			out = p.appendJSON(out, keys, raws)

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"io"
+	"strings"
 )
 
 // maxRecord bounds one record; a longer one is rejected, not held in memory.
@@ -194,42 +195,50 @@ func eachRecord(data []byte, quotes bool, fn func(rec []byte, lineOff int)) {
 var errQuote = errors.New(`a quoted field is not closed, or has text after its closing quote; write "" for a quote inside a quoted field`)
 
 // splitFields splits one CSV or TSV record into fields (RFC 4180 quoting),
-// appending to dst.
+// appending to dst. The record is copied into one string and unquoted
+// fields are substrings of it, so a row costs one allocation.
 func splitFields(dst []string, rec []byte, delim byte) ([]string, error) {
+	srec := string(rec)
 	for i := 0; ; {
-		if i < len(rec) && rec[i] == '"' {
-			var b []byte
+		if i < len(srec) && srec[i] == '"' {
 			j := i + 1
+			var b []byte // only for fields with doubled quotes
+			start := j
 			for {
-				k := bytes.IndexByte(rec[j:], '"')
+				k := strings.IndexByte(srec[j:], '"')
 				if k < 0 {
 					return dst, errQuote
 				}
-				b = append(b, rec[j:j+k]...)
-				j += k + 1
-				if j < len(rec) && rec[j] == '"' {
-					b = append(b, '"')
-					j++
+				if j+k+1 < len(srec) && srec[j+k+1] == '"' {
+					b = append(b, srec[start:j+k+1]...)
+					j += k + 2
+					start = j
 					continue
 				}
+				if b != nil {
+					b = append(b, srec[start:j+k]...)
+					dst = append(dst, string(b))
+				} else {
+					dst = append(dst, srec[start:j+k])
+				}
+				j += k + 1
 				break
 			}
-			dst = append(dst, string(b))
-			if j == len(rec) {
+			if j == len(srec) {
 				return dst, nil
 			}
-			if rec[j] != delim {
+			if srec[j] != delim {
 				return dst, errQuote
 			}
 			i = j + 1
 			continue
 		}
-		k := bytes.IndexByte(rec[i:], delim)
+		k := strings.IndexByte(srec[i:], delim)
 		if k < 0 {
-			dst = append(dst, string(rec[i:]))
+			dst = append(dst, srec[i:])
 			return dst, nil
 		}
-		dst = append(dst, string(rec[i:i+k]))
+		dst = append(dst, srec[i:i+k])
 		i += k + 1
 	}
 }

@@ -37,19 +37,43 @@ func (s *rowSource) Lookup(f int) (string, string, string, bool) {
 	return s.consts.Lookup(f)
 }
 
-// mediumCache holds medium properties by condition, shared by the workers.
-// Entries drop the methods text, which batch output does not print.
+// mediumCache holds medium properties by condition, shared by the workers
+// in shards with their own locks. Entries keep only what a row's
+// computation reads and the warning codes (batch prints codes, not
+// messages), so that a million distinct conditions stay within a few tens
+// of megabytes.
 type mediumCache struct {
-	mu sync.RWMutex
+	shards [16]cacheShard
+}
+
+type cacheShard struct {
+	mu sync.Mutex
 	m  map[media.Conditions]cached
 }
 
-type cached struct {
-	p   media.Properties
-	err error
+func newMediumCache() *mediumCache {
+	mc := &mediumCache{}
+	for i := range mc.shards {
+		mc.shards[i].m = map[media.Conditions]cached{}
+	}
+	return mc
 }
 
-const cacheLimit = 1 << 16
+type cached struct {
+	medium          string
+	tC, rho, mu, nu float64
+	warnings        []media.Warning
+	err             error
+}
+
+func (c cached) properties() media.Properties {
+	nan := math.NaN()
+	return media.Properties{Medium: c.medium, TemperatureC: c.tC, Density: c.rho, DynamicViscosity: c.mu,
+		KinematicViscosity: c.nu, Warnings: c.warnings, SalinityPractical: nan, SalinityAbsolute: nan,
+		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
+}
+
+const shardLimit = 1 << 13 // entries per shard; 131072 in all
 
 func noNaN(c media.Conditions) media.Conditions {
 	fix := func(v *float64) {
@@ -65,21 +89,26 @@ func noNaN(c media.Conditions) media.Conditions {
 
 func (mc *mediumCache) lookup(c media.Conditions) (media.Properties, error) {
 	key := noNaN(c)
-	mc.mu.RLock()
-	e, ok := mc.m[key]
-	mc.mu.RUnlock()
+	h := math.Float64bits(key.TemperatureC)*31 + math.Float64bits(key.SalinityPractical)*17 + math.Float64bits(key.AltitudeM)*7 + uint64(len(key.Medium))
+	sh := &mc.shards[(h^h>>29)%uint64(len(mc.shards))]
+	sh.mu.Lock()
+	e, ok := sh.m[key]
+	sh.mu.Unlock()
 	if ok {
-		return e.p, e.err
+		return e.properties(), e.err
 	}
 	p, err := media.Lookup(c)
-	p.Methods = nil
-	mc.mu.Lock()
-	if len(mc.m) >= cacheLimit {
-		clear(mc.m)
+	e = cached{medium: p.Medium, tC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity, err: err}
+	for _, w := range p.Warnings {
+		e.warnings = append(e.warnings, media.Warning{Code: w.Code})
 	}
-	mc.m[key] = cached{p, err}
-	mc.mu.Unlock()
-	return p, err
+	sh.mu.Lock()
+	if len(sh.m) >= shardLimit {
+		clear(sh.m)
+	}
+	sh.m[key] = e
+	sh.mu.Unlock()
+	return e.properties(), err
 }
 
 // outcome is one computed row.
@@ -143,4 +172,35 @@ func (o outcome) values(dst []string) []string {
 		num(r.Medium.Density), num(r.Viscosity/r.Medium.Density), num(r.Reynolds), r.Regime, num(r.Strouhal),
 		r.Drag.Chosen.Law, num(r.Drag.Chosen.Force), r.Power.Kind, num(r.Power.Total), strings.Join(o.flags, ";"),
 	)
+}
+
+// appendCSV appends the computed columns to a CSV or TSV row, each preceded
+// by the delimiter, without building intermediate strings.
+func (o outcome) appendCSV(b []byte, delim byte) []byte {
+	r := o.r
+	num := func(v float64) {
+		b = append(b, delim)
+		b = appendNum(b, v)
+	}
+	text := func(s string) {
+		b = append(b, delim)
+		b = appendField(b, s, delim)
+	}
+	num(r.Medium.Density)
+	num(r.Viscosity / r.Medium.Density)
+	num(r.Reynolds)
+	text(r.Regime)
+	num(r.Strouhal)
+	text(r.Drag.Chosen.Law)
+	num(r.Drag.Chosen.Force)
+	text(r.Power.Kind)
+	num(r.Power.Total)
+	b = append(b, delim)
+	for i, f := range o.flags {
+		if i > 0 {
+			b = append(b, ';')
+		}
+		b = append(b, f...)
+	}
+	return b
 }
