@@ -1,0 +1,503 @@
+package media
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/optimize"
+	"gonum.org/v1/gonum/stat"
+)
+
+// RheometerPoint is one steady-shear measurement.
+type RheometerPoint struct {
+	ShearRate float64 // 1/s
+	Stress    float64 // Pa
+}
+
+// ModelFit is one model fitted to rheometer data.
+type ModelFit struct {
+	Model     Model
+	Params    []Param
+	StdErrors []float64 // aligned with Params; NaN where not identified
+	R2        float64   // on ln τ
+	RMSRel    float64   // root-mean-square of τ_model/τ − 1
+	AICc      float64
+	Warnings  []string
+	Err       error // set when the model could not be fitted
+}
+
+// FitReport is the fit of every model, the best by AICc and the class of
+// the fluid with the evidence for it.
+type FitReport struct {
+	Fits     []ModelFit
+	Best     string
+	Class    string // "newtonian", "shear-thinning", "shear-thickening" or "yield-stress"
+	Evidence []string
+	Warnings []string
+	N        int
+	MinRate  float64
+	MaxRate  float64
+}
+
+// Fluid classes.
+const (
+	ClassNewtonian  = "newtonian"
+	ClassThinning   = "shear-thinning"
+	ClassThickening = "shear-thickening"
+	ClassYield      = "yield-stress"
+)
+
+// FitRheology fits every model of [ModelNames] to the points by least
+// squares on log residuals, r = ln τ_model − ln τ (the same as log
+// residuals of apparent viscosity), which weights every decade of shear
+// rate alike. Parameters are kept physical by transforms (positive
+// parameters as exp θ; flow indices in 0.05–2). The minimum is found with
+// gonum/optimize (Nelder–Mead from several starts, then BFGS); standard
+// errors come from the Jacobian of the residuals in the natural parameters
+// at the optimum, s²(JᵀJ)⁻¹ with s² = SSR/(n − p). AICc = n ln(SSR/n) + 2k +
+// 2k(k+1)/(n − k − 1) with k = p + 1 counting the error variance (Burnham &
+// Anderson 2002, Model Selection and Multimodel Inference, eq. 2.14).
+func FitRheology(points []RheometerPoint) (FitReport, error) {
+	var rep FitReport
+	var pts []RheometerPoint
+	for i, p := range points {
+		if !(p.ShearRate > 0) || !(p.Stress > 0) || math.IsInf(p.ShearRate, 0) || math.IsInf(p.Stress, 0) {
+			rep.Warnings = append(rep.Warnings, fmt.Sprintf("point %d (shear rate %g 1/s, stress %g Pa) is not positive and finite; left out", i+1, p.ShearRate, p.Stress))
+			continue
+		}
+		pts = append(pts, p)
+	}
+	sort.Slice(pts, func(i, j int) bool { return pts[i].ShearRate < pts[j].ShearRate })
+	rep.N = len(pts)
+	if rep.N < 3 {
+		return rep, fmt.Errorf("media: %d usable points; a fit needs at least 3 (5 or more to compare models)", rep.N)
+	}
+	rep.MinRate, rep.MaxRate = pts[0].ShearRate, pts[rep.N-1].ShearRate
+	decades := math.Log10(rep.MaxRate / rep.MinRate)
+	if rep.N < 8 {
+		rep.Warnings = append(rep.Warnings, fmt.Sprintf("only %d points: models with 4–5 parameters are barely constrained", rep.N))
+	}
+	if decades < 1 {
+		rep.Warnings = append(rep.Warnings, fmt.Sprintf("shear rate spans only %.2g decades (%.3g–%.3g 1/s): the flow index and time constants cannot be identified; measure over 2 decades or more", decades, rep.MinRate, rep.MaxRate))
+	}
+	for i := 1; i < rep.N; i++ {
+		if pts[i].Stress < pts[i-1].Stress*(1-1e-9) {
+			rep.Warnings = append(rep.Warnings, fmt.Sprintf("stress falls from %.4g to %.4g Pa as shear rate rises from %.4g to %.4g 1/s: the flow curve is not monotonic (wall slip, shear banding, thixotropy or edge fracture?); no model here describes that", pts[i-1].Stress, pts[i].Stress, pts[i-1].ShearRate, pts[i].ShearRate))
+			break
+		}
+	}
+	for _, name := range ModelNames {
+		rep.Fits = append(rep.Fits, fitOne(name, pts, decades))
+	}
+	best := -1
+	for i, f := range rep.Fits {
+		if f.Err == nil && !math.IsNaN(f.AICc) && (best < 0 || f.AICc < rep.Fits[best].AICc) {
+			best = i
+		}
+	}
+	if best < 0 {
+		return rep, fmt.Errorf("media: no model could be fitted to the data")
+	}
+	rep.Best = rep.Fits[best].Model.Name()
+	rep.classify(best)
+	return rep, nil
+}
+
+// classify names the fluid's class from the best model and the power-law
+// flow index, with the evidence.
+func (rep *FitReport) classify(best int) {
+	bf := rep.Fits[best]
+	rep.Evidence = append(rep.Evidence, fmt.Sprintf("best model by AICc: %s (AICc %.4g)", rep.Best, bf.AICc))
+	if ty := YieldStress(bf.Model); ty > 0 {
+		se := bf.StdErrors[indexParam(bf.Params, PYield)]
+		if !math.IsNaN(se) && ty-1.96*se > 0 {
+			rep.Class = ClassYield
+			rep.Evidence = append(rep.Evidence, fmt.Sprintf("yield stress %.4g ± %.2g Pa (95 %% interval %.4g–%.4g Pa) is significantly above zero", ty, se, ty-1.96*se, ty+1.96*se))
+			if hb, ok := bf.Model.(HerschelBulkley); ok {
+				nse := bf.StdErrors[indexParam(bf.Params, PFlowIndex)]
+				switch {
+				case hb.N+1.96*nse < 1:
+					rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thinning above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
+				case hb.N-1.96*nse > 1:
+					rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thickening above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
+				default:
+					rep.Evidence = append(rep.Evidence, fmt.Sprintf("no thinning above yield beyond error: flow index %.3g ± %.2g", hb.N, nse))
+				}
+			}
+			return
+		}
+		rep.Evidence = append(rep.Evidence, fmt.Sprintf("yield stress %.4g ± %.2g Pa is not significantly above zero", ty, se))
+	}
+	pl := rep.Fits[1] // power law
+	if pl.Err != nil {
+		rep.Class = ClassNewtonian
+		return
+	}
+	n, se := pl.Params[1].Value, pl.StdErrors[1]
+	lo, hi := n-1.96*se, n+1.96*se
+	switch {
+	case rep.Best != ModelNewtonian && hi < 1:
+		rep.Class = ClassThinning
+	case rep.Best != ModelNewtonian && lo > 1:
+		rep.Class = ClassThickening
+	default:
+		rep.Class = ClassNewtonian
+	}
+	rep.Evidence = append(rep.Evidence, fmt.Sprintf("power-law flow index n = %.4g ± %.2g (95 %% interval %.4g–%.4g; n = 1 is Newtonian)", n, se, lo, hi))
+	if rep.Class == ClassNewtonian {
+		rep.Evidence = append(rep.Evidence, fmt.Sprintf("viscosity %.4g ± %.2g Pa·s", rep.Fits[0].Params[0].Value, rep.Fits[0].StdErrors[0]))
+	}
+}
+
+func indexParam(ps []Param, name string) int {
+	for i, p := range ps {
+		if p.Name == name {
+			return i
+		}
+	}
+	return -1
+}
+
+// paramSpec says how an unconstrained θ maps to a natural parameter.
+type paramSpec struct {
+	name     string
+	lo, hi   float64 // hi > lo: bounded by a logistic map; else positive by exp
+	positive bool
+}
+
+func (s paramSpec) natural(t float64) float64 {
+	if s.hi > s.lo {
+		return s.lo + (s.hi-s.lo)/(1+math.Exp(-t))
+	}
+	return math.Exp(t)
+}
+
+func (s paramSpec) theta(v float64) float64 {
+	if s.hi > s.lo {
+		f := (v - s.lo) / (s.hi - s.lo)
+		f = math.Min(math.Max(f, 1e-6), 1-1e-6)
+		return math.Log(f / (1 - f))
+	}
+	return math.Log(math.Max(v, 1e-300))
+}
+
+var nSpec = paramSpec{name: PFlowIndex, lo: 0.05, hi: 2}
+
+type modelSpec struct {
+	params []paramSpec
+	build  func(p []float64) Model
+	starts func(pts []RheometerPoint) [][]float64
+}
+
+func specs() map[string]modelSpec {
+	pos := func(n string) paramSpec { return paramSpec{name: n} }
+	return map[string]modelSpec{
+		ModelNewtonian: {[]paramSpec{pos(PViscosity)}, func(p []float64) Model { return Newtonian{p[0]} },
+			func(pts []RheometerPoint) [][]float64 { return [][]float64{{geoMeanViscosity(pts)}} }},
+		ModelPowerLaw: {[]paramSpec{pos(PConsistency), nSpec}, func(p []float64) Model { return PowerLaw{p[0], p[1]} },
+			func(pts []RheometerPoint) [][]float64 { k, n := logLogLine(pts); return [][]float64{{k, clampN(n)}} }},
+		ModelCross: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), {name: PTransition, lo: 0.1, hi: 3}},
+			func(p []float64) Model { return Cross{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(false)},
+		ModelCarreau: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), nSpec},
+			func(p []float64) Model { return Carreau{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(true)},
+		ModelCarreauYasuda: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), nSpec, {name: PTransition, lo: 0.1, hi: 10}},
+			func(p []float64) Model { return CarreauYasuda{p[0] + p[1], p[1], p[2], p[3], p[4]} }, plateauStartsA},
+		ModelBingham: {[]paramSpec{pos(PYield), pos(PPlastic)}, func(p []float64) Model { return Bingham{p[0], p[1]} }, binghamStarts},
+		ModelHerschelBulkley: {[]paramSpec{pos(PYield), pos(PConsistency), nSpec},
+			func(p []float64) Model { return HerschelBulkley{p[0], p[1], p[2]} }, hbStarts},
+		ModelCasson: {[]paramSpec{pos(PYield), pos(PPlastic)}, func(p []float64) Model { return Casson{p[0], p[1]} }, cassonStarts},
+	}
+}
+
+// For Cross and Carreau models the fitted parameters are η₀ − η∞ and η∞, so
+// that η₀ ≥ η∞ always; they are reported as η₀ and η∞.
+
+func clampN(n float64) float64 { return math.Min(math.Max(n, 0.1), 1.9) }
+
+func geoMeanViscosity(pts []RheometerPoint) float64 {
+	s := 0.0
+	for _, p := range pts {
+		s += math.Log(p.Stress / p.ShearRate)
+	}
+	return math.Exp(s / float64(len(pts)))
+}
+
+// logLogLine fits ln τ = ln K + n ln γ̇ by ordinary least squares.
+func logLogLine(pts []RheometerPoint) (k, n float64) {
+	x, y := make([]float64, len(pts)), make([]float64, len(pts))
+	for i, p := range pts {
+		x[i], y[i] = math.Log(p.ShearRate), math.Log(p.Stress)
+	}
+	a, b := stat.LinearRegression(x, y, nil, false)
+	return math.Exp(a), b
+}
+
+func etaRange(pts []RheometerPoint) (lo, hi float64) {
+	lo, hi = math.Inf(1), 0
+	for _, p := range pts {
+		e := p.Stress / p.ShearRate
+		lo, hi = math.Min(lo, e), math.Max(hi, e)
+	}
+	return lo, hi
+}
+
+func plateauStarts(carreau bool) func([]RheometerPoint) [][]float64 {
+	return func(pts []RheometerPoint) [][]float64 {
+		lo, hi := etaRange(pts)
+		_, n := logLogLine(pts)
+		var out [][]float64
+		for _, f := range []float64{0.01, 0.1, 1, 10, 100} {
+			lam := f / math.Sqrt(pts[0].ShearRate*pts[len(pts)-1].ShearRate)
+			if carreau {
+				out = append(out, []float64{hi * 1.2, lo * 0.1, lam, clampN(n)})
+			} else {
+				out = append(out, []float64{hi * 1.2, lo * 0.1, lam, math.Min(math.Max(1-n, 0.3), 2.5)})
+			}
+		}
+		return out
+	}
+}
+
+func plateauStartsA(pts []RheometerPoint) [][]float64 {
+	var out [][]float64
+	for _, s := range plateauStarts(true)(pts) {
+		out = append(out, append(append([]float64{}, s...), 2), append(append([]float64{}, s...), 0.7))
+	}
+	return out
+}
+
+func binghamStarts(pts []RheometerPoint) [][]float64 {
+	x, y := make([]float64, len(pts)), make([]float64, len(pts))
+	for i, p := range pts {
+		x[i], y[i] = p.ShearRate, p.Stress
+	}
+	a, b := stat.LinearRegression(x, y, nil, false)
+	return [][]float64{{math.Max(a, pts[0].Stress*0.1), math.Max(b, 1e-6)}, {pts[0].Stress * 0.5, math.Max(b, 1e-6)}}
+}
+
+func hbStarts(pts []RheometerPoint) [][]float64 {
+	var out [][]float64
+	for _, f := range []float64{0.01, 0.3, 0.7} {
+		ty := pts[0].Stress * f
+		q := make([]RheometerPoint, 0, len(pts))
+		for _, p := range pts {
+			if p.Stress > ty {
+				q = append(q, RheometerPoint{p.ShearRate, p.Stress - ty})
+			}
+		}
+		if len(q) < 2 {
+			continue
+		}
+		k, n := logLogLine(q)
+		out = append(out, []float64{ty, k, clampN(n)})
+	}
+	return out
+}
+
+func cassonStarts(pts []RheometerPoint) [][]float64 {
+	x, y := make([]float64, len(pts)), make([]float64, len(pts))
+	for i, p := range pts {
+		x[i], y[i] = math.Sqrt(p.ShearRate), math.Sqrt(p.Stress)
+	}
+	a, b := stat.LinearRegression(x, y, nil, false)
+	return [][]float64{{math.Max(a*a, pts[0].Stress*0.01), math.Max(b*b, 1e-9)}, {pts[0].Stress * 0.5, math.Max(b*b, 1e-9)}}
+}
+
+// fitOne fits one model.
+func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
+	sp := specs()[name]
+	k := len(sp.params)
+	n := len(pts)
+	var mf ModelFit
+	if n < k+2 {
+		mf.Err = fmt.Errorf("%d points are too few for %d parameters", n, k)
+		mf.Model = sp.build(make([]float64, k))
+		mf.AICc = math.NaN()
+		return mf
+	}
+	natural := func(theta []float64) []float64 {
+		p := make([]float64, k)
+		for i, s := range sp.params {
+			p[i] = s.natural(theta[i])
+		}
+		return p
+	}
+	ssr := func(p []float64) float64 {
+		m := sp.build(p)
+		s := 0.0
+		for _, q := range pts {
+			r := math.Log(m.Stress(q.ShearRate)) - math.Log(q.Stress)
+			s += r * r
+		}
+		if math.IsNaN(s) || math.IsInf(s, 0) {
+			return math.MaxFloat64
+		}
+		return s
+	}
+	obj := func(theta []float64) float64 { return ssr(natural(theta)) }
+	bestF, bestTheta := math.Inf(1), []float64(nil)
+	for _, st := range sp.starts(pts) {
+		theta := make([]float64, k)
+		for i, s := range sp.params {
+			v := st[i]
+			if (name == ModelCross || name == ModelCarreau || name == ModelCarreauYasuda) && i == 0 {
+				v = math.Max(st[0]-st[1], st[0]*1e-3) // η₀ − η∞
+			}
+			theta[i] = s.theta(v)
+		}
+		th, f := minimise(obj, theta)
+		if f < bestF {
+			bestF, bestTheta = f, th
+		}
+	}
+	if bestTheta == nil || math.IsInf(bestF, 0) || bestF >= math.MaxFloat64 {
+		mf.Err = fmt.Errorf("the optimiser found no finite fit")
+		mf.Model = sp.build(make([]float64, k))
+		mf.AICc = math.NaN()
+		return mf
+	}
+	p := natural(bestTheta)
+	mf.Model = sp.build(p)
+	mf.Params = mf.Model.Params()
+	mf.StdErrors = standardErrors(sp, p, pts, bestF, name)
+	// Quality.
+	var sst, rel float64
+	lnMean := 0.0
+	for _, q := range pts {
+		lnMean += math.Log(q.Stress)
+	}
+	lnMean /= float64(n)
+	for _, q := range pts {
+		d := math.Log(q.Stress) - lnMean
+		sst += d * d
+		e := mf.Model.Stress(q.ShearRate)/q.Stress - 1
+		rel += e * e
+	}
+	mf.R2 = 1 - bestF/sst
+	if sst == 0 {
+		mf.R2 = math.NaN()
+	}
+	mf.RMSRel = math.Sqrt(rel / float64(n))
+	kk := float64(k + 1)
+	nn := float64(n)
+	sse := math.Max(bestF, 1e-300)
+	if nn-kk-1 > 0 {
+		mf.AICc = nn*math.Log(sse/nn) + 2*kk + 2*kk*(kk+1)/(nn-kk-1)
+	} else {
+		mf.AICc = math.NaN()
+		mf.Warnings = append(mf.Warnings, "too few points for AICc")
+	}
+	for i, pr := range mf.Params {
+		if se := mf.StdErrors[i]; math.IsNaN(se) || se > math.Abs(pr.Value) && pr.Name != PYield && pr.Name != PInfinite {
+			mf.Warnings = append(mf.Warnings, fmt.Sprintf("%s is not identified by these data (standard error %.2g against %.4g)", pr.Name, se, pr.Value))
+		}
+	}
+	if lam := timeConstant(mf.Model); lam > 0 && (1/lam < pts[0].ShearRate || 1/lam > pts[n-1].ShearRate) {
+		mf.Warnings = append(mf.Warnings, fmt.Sprintf("the transition 1/λ = %.3g 1/s lies outside the measured %.3g–%.3g 1/s: a plateau is extrapolated, not seen", 1/lam, pts[0].ShearRate, pts[n-1].ShearRate))
+	}
+	if decades < 2 && (name == ModelCross || name == ModelCarreau || name == ModelCarreauYasuda) {
+		mf.Warnings = append(mf.Warnings, fmt.Sprintf("%.2g decades of shear rate are too few to identify a plateau model's four or five parameters", decades))
+	}
+	return mf
+}
+
+func timeConstant(m Model) float64 {
+	switch v := m.(type) {
+	case Cross:
+		return v.Lambda
+	case Carreau:
+		return v.Lambda
+	case CarreauYasuda:
+		return v.Lambda
+	}
+	return 0
+}
+
+// minimise runs Nelder–Mead then BFGS (numerical gradient) and returns the
+// best point found.
+func minimise(f func([]float64) float64, x0 []float64) ([]float64, float64) {
+	best, bestF := append([]float64{}, x0...), f(x0)
+	p := optimize.Problem{Func: f}
+	settings := &optimize.Settings{FuncEvaluations: 6000, Converger: &optimize.FunctionConverge{Absolute: 1e-14, Relative: 1e-12, Iterations: 60}}
+	if r, err := optimize.Minimize(p, x0, settings, &optimize.NelderMead{}); r != nil && (err == nil || r.F < bestF) {
+		if r.F < bestF {
+			best, bestF = r.X, r.F
+		}
+	}
+	p.Grad = func(grad, x []float64) {
+		h := 1e-6
+		xx := append([]float64{}, x...)
+		for i := range x {
+			xx[i] = x[i] + h
+			fp := f(xx)
+			xx[i] = x[i] - h
+			fm := f(xx)
+			xx[i] = x[i]
+			grad[i] = (fp - fm) / (2 * h)
+		}
+	}
+	if r, _ := optimize.Minimize(p, best, &optimize.Settings{FuncEvaluations: 3000}, &optimize.BFGS{}); r != nil && r.F < bestF {
+		best, bestF = r.X, r.F
+	}
+	return best, bestF
+}
+
+// standardErrors returns √diag(s²(JᵀJ)⁻¹) in the natural parameters, with the
+// Jacobian of the log residuals by central differences.
+func standardErrors(sp modelSpec, p []float64, pts []RheometerPoint, ssr float64, name string) []float64 {
+	k, n := len(p), len(pts)
+	// Differentiate with respect to the reported parameters: for plateau
+	// models η₀ rather than η₀ − η∞.
+	rep := append([]float64{}, p...)
+	plateau := name == ModelCross || name == ModelCarreau || name == ModelCarreauYasuda
+	if plateau {
+		rep[0] = p[0] + p[1]
+	}
+	build := func(q []float64) Model {
+		c := append([]float64{}, q...)
+		if plateau {
+			c[0] = q[0] - q[1]
+		}
+		return sp.build(c)
+	}
+	out := make([]float64, k)
+	for i := range out {
+		out[i] = math.NaN()
+	}
+	if n <= k {
+		return out
+	}
+	j := mat.NewDense(n, k, nil)
+	for c := 0; c < k; c++ {
+		h := math.Max(math.Abs(rep[c])*1e-6, 1e-12)
+		up, dn := append([]float64{}, rep...), append([]float64{}, rep...)
+		up[c] += h
+		dn[c] = math.Max(dn[c]-h, 0)
+		if plateau && c == 1 && dn[c] > dn[0] || plateau && c == 0 && up[0] < up[1] {
+			continue
+		}
+		mu, md := build(up), build(dn)
+		for r, q := range pts {
+			j.Set(r, c, (math.Log(mu.Stress(q.ShearRate))-math.Log(md.Stress(q.ShearRate)))/(up[c]-dn[c]))
+		}
+	}
+	var jtj mat.SymDense
+	jtj.SymOuterK(1, j.T())
+	var chol mat.Cholesky
+	if !chol.Factorize(&jtj) {
+		return out
+	}
+	var inv mat.SymDense
+	if err := chol.InverseTo(&inv); err != nil {
+		return out
+	}
+	s2 := ssr / float64(n-k)
+	for i := range out {
+		if v := inv.At(i, i) * s2; v >= 0 && !math.IsInf(v, 0) {
+			out[i] = math.Sqrt(v)
+		}
+	}
+	return out
+}
