@@ -59,6 +59,23 @@ func Lookup(c Conditions) (Properties, error) {
 			return Properties{}, fmt.Errorf("media: conditions must be finite numbers, not infinity")
 		}
 	}
+	if IsMediumFile(c.Medium) {
+		f, err := LoadMediumFile(c.Medium)
+		if err != nil {
+			return Properties{}, err
+		}
+		p, err := f.Properties()
+		if err != nil {
+			return p, err
+		}
+		for _, v := range []float64{c.TemperatureC, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
+			if !math.IsNaN(v) {
+				p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: temperature, salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
+				break
+			}
+		}
+		return p, nil
+	}
 	switch strings.ToLower(c.Medium) {
 	case KindAir:
 		if !math.IsNaN(c.DepthM) || !math.IsNaN(c.SalinityPractical) {
@@ -76,7 +93,7 @@ func Lookup(c Conditions) (Properties, error) {
 	case "":
 		return Properties{}, fmt.Errorf("media: no medium given; accepted: %s", strings.Join(Kinds, ", "))
 	default:
-		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s", c.Medium, strings.Join(Kinds, ", "))
+		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s, or a medium file (.json)", c.Medium, strings.Join(Kinds, ", "))
 	}
 }
 

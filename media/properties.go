@@ -27,6 +27,7 @@ func (w Warning) String() string { return w.Message }
 const (
 	WarnOutOfRange  = "medium-out-of-range"
 	WarnExtrapolate = "shear-rate-extrapolated"
+	WarnIgnored     = "conditions-ignored"
 )
 
 func outOfRange(format string, args ...any) Warning {

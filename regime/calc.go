@@ -27,13 +27,19 @@ type Organism struct {
 	ProfileCD     float64 // NaN means the attached-flow default
 	Disc          string  // DiscSpan (default) or DiscStroke
 	Diffusivity   float64 // solute diffusivity, m²/s; NaN means dissolved O₂ in water
+
+	// For non-Newtonian media: the characteristic shear rate (NaN means
+	// U/L) and a relaxation time (NaN means the medium's own, if any).
+	ShearRate      float64 // 1/s
+	RelaxationTime float64 // s
 }
 
 // NewOrganism returns an Organism with every optional value unset.
 func NewOrganism(b Body, speed float64) Organism {
 	n := math.NaN()
 	return Organism{Body: b, Speed: speed, Frequency: n, Amplitude: n, Mass: n, Span: n, WingLength: n,
-		Chord: n, WingArea: n, StrokeAngle: n, Efficiency: n, InducedFactor: n, ProfileCD: n, Diffusivity: n}
+		Chord: n, WingArea: n, StrokeAngle: n, Efficiency: n, InducedFactor: n, ProfileCD: n, Diffusivity: n,
+		ShearRate: n, RelaxationTime: n}
 }
 
 // Power kinds.
@@ -54,8 +60,12 @@ type Power struct {
 // Result is everything computed for one organism.
 type Result struct {
 	Medium           media.Properties
-	ShearRate        float64 // characteristic shear rate U/L, 1/s
-	Viscosity        float64 // viscosity used, Pa·s
+	ShearRate        float64 // characteristic shear rate, 1/s (U/L unless given)
+	Viscosity        float64 // viscosity used, Pa·s: the apparent viscosity at ShearRate
+	GeneralizedRe    float64 // power-law and Herschel–Bulkley fluids: ρU^(2−n)Lⁿ/K
+	BinghamNumber    float64 // yield-stress fluids
+	Deborah          float64 // relaxation time × stroke frequency (or × U/L without a stroke)
+	Weissenberg      float64 // relaxation time × shear rate
 	Reynolds         float64 // on the body length (sphere: diameter)
 	Regime           string
 	BoundaryLayer    string // streamlined bodies at Re ≥ 1000
@@ -82,7 +92,8 @@ func CalcChosen(o Organism, m media.Properties) (Result, error) { return calc(o,
 
 func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	n := math.NaN()
-	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n}
+	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
+		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 	if err := o.Body.Validate(); err != nil {
 		return r, err
 	}
@@ -94,7 +105,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		v    float64
 	}{{"frequency", o.Frequency}, {"amplitude", o.Amplitude}, {"mass", o.Mass}, {"span", o.Span},
 		{"wing length", o.WingLength}, {"chord", o.Chord}, {"wing area", o.WingArea}, {"stroke angle", o.StrokeAngle},
-		{"diffusivity", o.Diffusivity}} {
+		{"diffusivity", o.Diffusivity}, {"shear rate", o.ShearRate}, {"relaxation time", o.RelaxationTime}} {
 		if !math.IsNaN(c.v) && !(c.v > 0 && !math.IsInf(c.v, 0)) {
 			return r, fmt.Errorf("regime: %s must be positive, got %g", c.name, c.v)
 		}
@@ -102,7 +113,35 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	r.Warnings = append(r.Warnings, m.Warnings...)
 	l := o.Body.Length
 	r.ShearRate = o.Speed / l
+	if !math.IsNaN(o.ShearRate) {
+		r.ShearRate = o.ShearRate
+	}
 	r.Viscosity = m.ApparentViscosity(r.ShearRate)
+	if !(r.Viscosity > 0) || math.IsInf(r.Viscosity, 0) {
+		return r, fmt.Errorf("regime: the medium's apparent viscosity at %.3g 1/s is not a positive number", r.ShearRate)
+	}
+	var flowPL [2]float64
+	if !m.Newtonian() {
+		if w := m.ExtrapolationWarning(r.ShearRate); w != nil {
+			r.Warnings = append(r.Warnings, *w)
+		}
+		r.GeneralizedRe = GeneralizedReynolds(m.Rheology, m.Density, o.Speed, l)
+		r.BinghamNumber = BinghamNumber(m.Rheology, o.Speed, l)
+		if pl, ok := model(m.Rheology).(media.PowerLaw); ok {
+			flowPL = [2]float64{pl.K, pl.N}
+		}
+		lambda := o.RelaxationTime
+		if mr, ok := m.Rheology.(media.MeasuredRheology); ok && math.IsNaN(lambda) {
+			lambda = mr.RelaxationTime
+		}
+		if !math.IsNaN(lambda) {
+			r.Weissenberg = lambda * r.ShearRate
+			r.Deborah = lambda * o.Speed / l
+			if !math.IsNaN(o.Frequency) {
+				r.Deborah = lambda * o.Frequency
+			}
+		}
+	}
 	nu := r.Viscosity / m.Density
 	r.Reynolds = Reynolds(o.Speed, l, nu)
 	r.Regime = Classify(r.Reynolds)
@@ -141,7 +180,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	}
 
 	// Drag.
-	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity}
+	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, PowerLawK: flowPL[0], PowerLawN: flowPL[1]}
 	dr, err := drag(o.Body, flow, all)
 	if err != nil {
 		return r, err
@@ -161,7 +200,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 			Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, InducedFactor: k,
 			Disc: o.Disc, Wings: wings,
 			BodyDrag: func(u float64) float64 {
-				d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity})
+				d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity, PowerLawK: flowPL[0], PowerLawN: flowPL[1]})
 				if err != nil {
 					return math.NaN()
 				}

@@ -94,6 +94,9 @@ type Flow struct {
 	Speed     float64 // m/s
 	Density   float64 // kg/m³
 	Viscosity float64 // dynamic viscosity, Pa·s (apparent, for a non-Newtonian fluid)
+	// For a power-law fluid, its consistency (Pa·sⁿ) and flow index; zero
+	// for other fluids.
+	PowerLawK, PowerLawN float64
 }
 
 // Estimate is one drag law's answer.
@@ -124,6 +127,7 @@ type Law struct {
 	ChooseHi float64
 	eval     func(b Body, f Flow, re float64) (cd, area float64)
 	basisLen func(b Body) float64
+	powerLaw bool // only for power-law fluids
 }
 
 func frontalSphere(d float64) float64 { return math.Pi * d * d / 4 }
@@ -180,6 +184,9 @@ const (
 
 // Laws lists every drag law, grouped by shape, in the order they are tried.
 var Laws = []Law{
+	{Name: "creeping flow in a power-law fluid", Shape: Sphere, Source: "Renaud, Mauret & Chhabra 2004, Can. J. Chem. Eng. 82, 1066 (X(n) correction)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length, powerLaw: true,
+		eval: linear(func(b Body, f Flow) float64 { return PowerLawCreepingDrag(f.PowerLawK, f.PowerLawN, f.Speed, b.Length) }, func(b Body) float64 { return frontalSphere(b.Length) })},
 	{Name: "Stokes", Shape: Sphere, Source: srcStokes, Basis: "diameter", AreaName: frontalArea,
 		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, eval: sphereCD(StokesCD), basisLen: length},
 	{Name: "Proudman–Pearson", Shape: Sphere, Source: "Proudman & Pearson 1957, J. Fluid Mech. 2, 237", Basis: "diameter", AreaName: frontalArea,
@@ -314,7 +321,7 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 	var chosen *Law
 	for i := range Laws {
 		l := &Laws[i]
-		if l.Shape == b.Shape && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
+		if l.Shape == b.Shape && (!l.powerLaw || f.PowerLawN > 0) && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
 			chosen = l
 			break
 		}
@@ -327,7 +334,7 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 		res.Estimates = append(res.Estimates, res.Chosen)
 		for i := range Laws {
 			l := &Laws[i]
-			if l.Shape != b.Shape || l == chosen {
+			if l.Shape != b.Shape || l == chosen || l.powerLaw && f.PowerLawN == 0 {
 				continue
 			}
 			if e := l.estimate(b, f); applicable(e) {

@@ -36,7 +36,13 @@ type Settling struct {
 	Archimedes  float64 // Ar = ρ_f |ρ_p − ρ_f| g d³/μ²
 	Cunningham  float64 // slip correction factor applied (1 in liquids)
 	Knudsen     float64 // 2λ/d in a gas; NaN in liquids
-	Warnings    []Warning
+	// Non-Newtonian media (NaN otherwise).
+	ShearRate      float64 // U/d, 1/s
+	Viscosity      float64 // apparent viscosity there, Pa·s
+	GeneralizedRe  float64
+	BinghamNumber  float64
+	YieldParameter float64 // Y_g = 3τ_y/(d Δρ g)
+	Warnings       []Warning
 }
 
 // MeanFreePath returns the mean free path of air molecules (m) at tK and pPa
@@ -62,52 +68,91 @@ func Cunningham(kn float64) float64 {
 // law continuous in Re: Clift–Gauvin (1970) for a sphere, Haider–Levenspiel
 // (1989) for a spheroid (on the equal-volume sphere). In a gas the drag is
 // divided by the Cunningham slip factor.
+//
+// In a non-Newtonian medium the viscosity is the apparent viscosity at the
+// particle's shear rate U/d (the convention of Chhabra 2007; some authors
+// use 2U/d), found by fixed-point iteration on U. A sphere in a power-law
+// fluid in creeping flow uses the X(n) correction instead ([RenaudX]). In a
+// yield-stress fluid a sphere with Y_g = 3τ_y/(d Δρ g) ≥ 0.143 is held
+// (Beris et al. 1985): Direction is Held and Speed 0.
 func Settle(p Particle, m media.Properties) (Settling, error) {
-	var s Settling
+	sp, err := newSettleProblem(p, m)
+	if err != nil {
+		return Settling{}, err
+	}
+	if m.Newtonian() {
+		return sp.solve(m.DynamicViscosity)
+	}
+	return sp.nonNewtonian()
+}
+
+type settleProblem struct {
+	p      Particle
+	m      media.Properties
+	d, phi float64 // equal-volume diameter, sphericity
+	drho   float64
+	law    string
+	source string
+	basis  string
+	cd     func(re float64) float64
+	reMax  float64
+}
+
+func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 	if !(p.Diameter > 0) || math.IsInf(p.Diameter, 0) {
-		return s, fmt.Errorf("regime: particle diameter must be positive, got %g m", p.Diameter)
+		return nil, fmt.Errorf("regime: particle diameter must be positive, got %g m", p.Diameter)
 	}
 	if !(p.Density > 0) || math.IsInf(p.Density, 0) {
-		return s, fmt.Errorf("regime: particle density must be positive, got %g kg/m³", p.Density)
+		return nil, fmt.Errorf("regime: particle density must be positive, got %g kg/m³", p.Density)
 	}
-	rhoF, mu := m.Density, m.DynamicViscosity
-	drho := p.Density - rhoF
-	if math.Abs(drho) <= 1e-5*rhoF { // equal within the medium density's own accuracy
-		return s, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, rhoF)
+	sp := &settleProblem{p: p, m: m, d: p.Diameter, phi: 1, drho: p.Density - m.Density,
+		law: "Clift–Gauvin", source: "Clift & Gauvin 1970; in Clift, Grace & Weber 1978", basis: "diameter", cd: CliftGauvinCD, reMax: 3e5}
+	if math.Abs(sp.drho) <= 1e-5*m.Density { // equal within the medium density's own accuracy
+		return nil, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, m.Density)
 	}
-	d, phi := p.Diameter, 1.0
-	s.Law, s.Source, s.Basis = "Clift–Gauvin", "Clift & Gauvin 1970; in Clift, Grace & Weber 1978", "diameter"
-	cd := CliftGauvinCD
-	reMax := 3e5
 	switch p.Shape {
 	case Sphere, "":
 	case Spheroid:
 		if !(p.Length >= p.Diameter) || math.IsInf(p.Length, 0) {
-			return s, fmt.Errorf("regime: a spheroid's length must be at least its diameter")
+			return nil, fmt.Errorf("regime: a spheroid's length must be at least its diameter")
 		}
-		d = math.Cbrt(p.Length * p.Diameter * p.Diameter)
-		phi = Sphericity(p.Length, p.Diameter)
-		s.Law, s.Source, s.Basis = "Haider–Levenspiel", srcHL, "equal-volume sphere diameter"
-		cd = func(re float64) float64 { return HaiderLevenspielCD(re, phi) }
-		reMax = 2.6e5
+		sp.d = math.Cbrt(p.Length * p.Diameter * p.Diameter)
+		sp.phi = Sphericity(p.Length, p.Diameter)
+		phi := sp.phi
+		sp.law, sp.source, sp.basis = "Haider–Levenspiel", srcHL, "equal-volume sphere diameter"
+		sp.cd = func(re float64) float64 { return HaiderLevenspielCD(re, phi) }
+		sp.reMax = 2.6e5
 	default:
-		return s, fmt.Errorf("regime: settling is computed for a sphere or spheroid, not %q", p.Shape)
+		return nil, fmt.Errorf("regime: settling is computed for a sphere or spheroid, not %q", p.Shape)
 	}
-	s.Direction = Sinking
-	if drho < 0 {
+	return sp, nil
+}
+
+func (sp *settleProblem) base() Settling {
+	s := Settling{Law: sp.law, Source: sp.source, Basis: sp.basis, Direction: Sinking, Cunningham: 1, Knudsen: math.NaN(),
+		ShearRate: math.NaN(), Viscosity: math.NaN(), GeneralizedRe: math.NaN(), BinghamNumber: math.NaN(), YieldParameter: math.NaN()}
+	if sp.drho < 0 {
 		s.Direction = Rising
 	}
-	s.Cunningham, s.Knudsen = 1, math.NaN()
+	s.Force = math.Abs(sp.drho) * media.StandardGravity * math.Pi * sp.d * sp.d * sp.d / 6
+	return s
+}
+
+// solve finds the terminal speed in a Newtonian fluid of viscosity mu.
+func (sp *settleProblem) solve(mu float64) (Settling, error) {
+	s := sp.base()
+	m, d := sp.m, sp.d
+	rhoF := m.Density
 	if m.Medium == media.KindAir {
 		s.Knudsen = 2 * MeanFreePath(mu, m.TemperatureC+media.ZeroCelsiusK, m.PressurePa) / d
 		s.Cunningham = Cunningham(s.Knudsen)
 	}
 	const g = media.StandardGravity
-	s.Archimedes = rhoF * math.Abs(drho) * g * d * d * d / (mu * mu)
+	s.Archimedes = rhoF * math.Abs(sp.drho) * g * d * d * d / (mu * mu)
 	target := 4.0 / 3 * s.Archimedes
 	f := func(lnRe float64) float64 {
 		re := math.Exp(lnRe)
-		return cd(re)/s.Cunningham*re*re - target
+		return sp.cd(re)/s.Cunningham*re*re - target
 	}
 	lo, hi := math.Log(1e-14), math.Log(1e8)
 	if f(lo) > 0 || f(hi) < 0 {
@@ -123,11 +168,80 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 	}
 	s.Reynolds = math.Exp((lo + hi) / 2)
 	s.Speed = s.Reynolds * mu / (rhoF * d)
-	s.Coefficient = cd(s.Reynolds) / s.Cunningham
-	s.Force = math.Abs(drho) * g * math.Pi * d * d * d / 6
-	s.StokesSpeed = s.Cunningham * math.Abs(drho) * g * d * d / (18 * mu)
-	if s.Reynolds > reMax {
-		s.Warnings = append(s.Warnings, warnf(WarnLawOutOfRange, "settling: %s used at Re = %.3g, above its published range Re ≤ %g", s.Law, s.Reynolds, reMax))
+	s.Coefficient = sp.cd(s.Reynolds) / s.Cunningham
+	s.StokesSpeed = s.Cunningham * math.Abs(sp.drho) * g * d * d / (18 * mu)
+	if s.Reynolds > sp.reMax {
+		s.Warnings = append(s.Warnings, warnf(WarnLawOutOfRange, "settling: %s used at Re = %.3g, above its published range Re ≤ %g", s.Law, s.Reynolds, sp.reMax))
 	}
 	return s, nil
+}
+
+// nonNewtonian handles measured and model fluids.
+func (sp *settleProblem) nonNewtonian() (Settling, error) {
+	m, d := sp.m, sp.d
+	rh := m.Rheology
+	if ty := yieldStress(rh); ty > 0 {
+		yg := YieldParameter(ty, d, sp.drho)
+		if yg >= BerisCritical {
+			s := sp.base()
+			s.Direction, s.Speed, s.YieldParameter = Held, 0, yg
+			s.Law, s.Source = "yield criterion", "Beris et al. 1985, J. Fluid Mech. 158, 219 (Y_g = 3τ_y/(d Δρ g) ≥ 0.143)"
+			s.Reynolds, s.Coefficient, s.StokesSpeed = 0, math.NaN(), 0
+			if yg < 3*BerisCritical {
+				s.Warnings = append(s.Warnings, warnf(WarnModel, "settling: Y_g = %.3g is near the critical 0.143; experiments put the threshold between about 0.12 and 0.6 in this definition, so the particle may creep", yg))
+			}
+			return s, nil
+		}
+	}
+	var s Settling
+	var err error
+	if k, n, ok := powerLawPart(rh); ok && yieldStress(rh) == 0 && sp.p.Shape != Spheroid {
+		// Creeping flow: 3πK Uⁿ d^(2−n) X(n) = Δρ g π d³/6.
+		u := math.Pow(math.Abs(sp.drho)*media.StandardGravity*math.Pow(d, 1+n)/(18*k*RenaudX(n)), 1/n)
+		if re := m.Density * math.Pow(u, 2-n) * math.Pow(d, n) / k; re <= 0.1 {
+			s = sp.base()
+			s.Speed, s.Reynolds = u, re
+			s.Law, s.Source, s.Basis = "creeping flow in a power-law fluid", "Renaud, Mauret & Chhabra 2004 (X(n) correction)", "diameter, on η(U/d)"
+			s.Coefficient = 24 / re * RenaudX(n)
+			s.StokesSpeed = u
+			return sp.finishNN(s), nil
+		}
+	}
+	// Fixed point on U with the apparent viscosity at U/d.
+	mu := m.DynamicViscosity
+	u := math.NaN()
+	for range 300 {
+		s, err = sp.solve(mu)
+		if err != nil {
+			return s, err
+		}
+		if !math.IsNaN(u) && math.Abs(math.Log(s.Speed/u)) < 1e-10 {
+			return sp.finishNN(s), nil
+		}
+		if math.IsNaN(u) {
+			u = s.Speed
+		} else {
+			u = math.Sqrt(u * s.Speed) // damped: geometric mean of old and new
+		}
+		mu = rh.ApparentViscosity(u / d)
+		if !(mu > 0) || math.IsInf(mu, 0) {
+			return s, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/d)
+		}
+	}
+	return s, fmt.Errorf("regime: the settling speed in this non-Newtonian medium did not converge")
+}
+
+func (sp *settleProblem) finishNN(s Settling) Settling {
+	m, d := sp.m, sp.d
+	s.ShearRate = s.Speed / d
+	s.Viscosity = m.ApparentViscosity(s.ShearRate)
+	s.GeneralizedRe = GeneralizedReynolds(m.Rheology, m.Density, s.Speed, d)
+	s.BinghamNumber = BinghamNumber(m.Rheology, s.Speed, d)
+	if ty := yieldStress(m.Rheology); ty > 0 {
+		s.YieldParameter = YieldParameter(ty, d, sp.drho)
+	}
+	if w := m.ExtrapolationWarning(s.ShearRate); w != nil {
+		s.Warnings = append(s.Warnings, *w)
+	}
+	return s
 }

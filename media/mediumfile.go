@@ -1,0 +1,174 @@
+package media
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"strings"
+)
+
+// Medium file schema, version 1. A medium file describes a measured fluid:
+//
+//	{
+//	  "format": "flowregime-medium",
+//	  "version": 1,
+//	  "name": "snail mucus, pedal",         // free text
+//	  "density_kg_m3": 1010,
+//	  "temperature_C": 20,                   // optional: of the measurement
+//	  "model": "herschel-bulkley",           // one of ModelNames
+//	  "parameters": {"yield_stress_Pa": 12, "consistency_Pa_sn": 1.5, "flow_index": 0.6},
+//	  "standard_errors": {…},                // optional
+//	  "shear_rate_range_1_s": [0.1, 300],    // measured range
+//	  "fit": {"points": 20, "r_squared": 0.999, "rms_relative_error": 0.02,
+//	          "aicc": -150, "residuals": "log stress"},   // optional
+//	  "class": "yield-stress",               // optional
+//	  "relaxation_time_s": 0.5               // optional, for viscoelastic fluids
+//	}
+//
+// Unknown fields are an error, so a misspelt name is not silently ignored.
+const (
+	MediumFileFormat  = "flowregime-medium"
+	MediumFileVersion = 1
+)
+
+// MediumFile is a measured fluid as stored on disk.
+type MediumFile struct {
+	Format         string             `json:"format"`
+	Version        int                `json:"version"`
+	Name           string             `json:"name"`
+	Density        float64            `json:"density_kg_m3"`
+	TemperatureC   *float64           `json:"temperature_C,omitempty"`
+	Model          string             `json:"model"`
+	Parameters     map[string]float64 `json:"parameters"`
+	StandardErrors map[string]float64 `json:"standard_errors,omitempty"`
+	ShearRateRange [2]float64         `json:"shear_rate_range_1_s"`
+	Fit            *FitQuality        `json:"fit,omitempty"`
+	Class          string             `json:"class,omitempty"`
+	RelaxationTime *float64           `json:"relaxation_time_s,omitempty"`
+}
+
+// FitQuality records how well the model fitted.
+type FitQuality struct {
+	Points    int     `json:"points"`
+	R2        float64 `json:"r_squared"`
+	RMSRel    float64 `json:"rms_relative_error"`
+	AICc      float64 `json:"aicc"`
+	Residuals string  `json:"residuals"`
+}
+
+// ReadMediumFile decodes and checks a medium file.
+func ReadMediumFile(r io.Reader) (MediumFile, error) {
+	var f MediumFile
+	b, err := io.ReadAll(io.LimitReader(r, 1<<20))
+	if err != nil {
+		return f, err
+	}
+	dec := json.NewDecoder(bytes.NewReader(b))
+	dec.DisallowUnknownFields()
+	if err := dec.Decode(&f); err != nil {
+		var se *json.SyntaxError
+		if errors.As(err, &se) {
+			return f, fmt.Errorf("media: medium file is not valid JSON (at byte %d): %v", se.Offset, err)
+		}
+		return f, fmt.Errorf("media: medium file: %v", err)
+	}
+	if dec.More() {
+		return f, fmt.Errorf("media: medium file has text after its JSON object")
+	}
+	return f, f.Check()
+}
+
+// Check validates the file's fields.
+func (f MediumFile) Check() error {
+	switch {
+	case f.Format != MediumFileFormat:
+		return fmt.Errorf("media: not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
+	case f.Version < 1:
+		return fmt.Errorf("media: medium file has no valid \"version\" (want %d)", MediumFileVersion)
+	case f.Version > MediumFileVersion:
+		return fmt.Errorf("media: medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersion)
+	case !(f.Density > 0) || math.IsInf(f.Density, 0):
+		return fmt.Errorf("media: medium file needs a positive \"density_kg_m3\"")
+	case !(f.ShearRateRange[0] > 0) || !(f.ShearRateRange[1] >= f.ShearRateRange[0]) || math.IsInf(f.ShearRateRange[1], 0):
+		return fmt.Errorf("media: \"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
+	case f.RelaxationTime != nil && !(*f.RelaxationTime > 0):
+		return fmt.Errorf("media: \"relaxation_time_s\" must be positive")
+	}
+	_, err := NewModel(f.Model, f.Parameters)
+	return err
+}
+
+// LoadMediumFile reads and checks the medium file at path.
+func LoadMediumFile(path string) (MediumFile, error) {
+	fh, err := os.Open(path)
+	if err != nil {
+		return MediumFile{}, fmt.Errorf("media: cannot read medium file: %v", err)
+	}
+	defer fh.Close()
+	f, err := ReadMediumFile(fh)
+	if err != nil {
+		return f, fmt.Errorf("%s: %w", path, err)
+	}
+	return f, nil
+}
+
+// MeasuredRheology is a fitted model with the range it was measured over.
+type MeasuredRheology struct {
+	Model
+	MinRate, MaxRate float64 // 1/s
+	RelaxationTime   float64 // s; NaN when not given
+}
+
+// Properties returns the measured fluid as a medium. Its dynamic viscosity
+// is the apparent viscosity at the geometric mean of the measured shear
+// rates; organisms use the apparent viscosity at their own shear rate.
+func (f MediumFile) Properties() (Properties, error) {
+	if err := f.Check(); err != nil {
+		return Properties{}, err
+	}
+	m, _ := NewModel(f.Model, f.Parameters)
+	p := blank(f.Name)
+	if p.Medium == "" {
+		p.Medium = "measured fluid"
+	}
+	p.TemperatureC, p.PressurePa = math.NaN(), math.NaN()
+	if f.TemperatureC != nil {
+		p.TemperatureC = *f.TemperatureC
+	}
+	p.Density = f.Density
+	ref := math.Sqrt(f.ShearRateRange[0] * f.ShearRateRange[1])
+	p.DynamicViscosity = m.ApparentViscosity(ref)
+	p.KinematicViscosity = p.DynamicViscosity / p.Density
+	mr := MeasuredRheology{Model: m, MinRate: f.ShearRateRange[0], MaxRate: f.ShearRateRange[1], RelaxationTime: math.NaN()}
+	if f.RelaxationTime != nil {
+		mr.RelaxationTime = *f.RelaxationTime
+	}
+	p.Rheology = mr
+	var ps []string
+	for _, q := range m.Params() {
+		ps = append(ps, fmt.Sprintf("%s = %.4g", q.Name, q.Value))
+	}
+	method := fmt.Sprintf("rheology: %s model (%s) measured over %.3g–%.3g 1/s", f.Model, strings.Join(ps, ", "), f.ShearRateRange[0], f.ShearRateRange[1])
+	if f.Fit != nil {
+		method += fmt.Sprintf(", fit R² %.4g on %s from %d points", f.Fit.R2, f.Fit.Residuals, f.Fit.Points)
+	}
+	p.Methods = []string{method, fmt.Sprintf("dynamic viscosity shown at the geometric-mean measured shear rate, %.3g 1/s", ref)}
+	return p, nil
+}
+
+// ExtrapolationWarning returns a warning when shear rate γ̇ lies outside the
+// measured range of a measured fluid, else nil.
+func (p Properties) ExtrapolationWarning(shearRate float64) *Warning {
+	mr, ok := p.Rheology.(MeasuredRheology)
+	if !ok || (shearRate >= mr.MinRate && shearRate <= mr.MaxRate) {
+		return nil
+	}
+	return &Warning{Code: WarnExtrapolate, Message: fmt.Sprintf("medium: the organism's shear rate %.3g 1/s is outside the measured %.3g–%.3g 1/s; the %s model is extrapolated", shearRate, mr.MinRate, mr.MaxRate, mr.Name())}
+}
+
+// IsMediumFile reports whether a medium name is a path to a medium file.
+func IsMediumFile(name string) bool { return strings.HasSuffix(strings.ToLower(name), ".json") }
