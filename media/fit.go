@@ -82,8 +82,10 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 	if decades < 1 {
 		rep.Warnings = append(rep.Warnings, fmt.Sprintf("shear rate spans only %.2g decades (%.3g–%.3g 1/s): the flow index and time constants cannot be identified; measure over 2 decades or more", decades, rep.MinRate, rep.MaxRate))
 	}
+	// A fall of more than 5 % between neighbouring points is more than
+	// rheometer noise (common practice, no single source).
 	for i := 1; i < rep.N; i++ {
-		if pts[i].Stress < pts[i-1].Stress*(1-1e-9) {
+		if pts[i].Stress < pts[i-1].Stress*0.95 {
 			rep.Warnings = append(rep.Warnings, fmt.Sprintf("stress falls from %.4g to %.4g Pa as shear rate rises from %.4g to %.4g 1/s: the flow curve is not monotonic (wall slip, shear banding, thixotropy or edge fracture?); no model here describes that", pts[i-1].Stress, pts[i].Stress, pts[i-1].ShearRate, pts[i].ShearRate))
 			break
 		}
@@ -162,25 +164,45 @@ func indexParam(ps []Param, name string) int {
 
 // paramSpec says how an unconstrained θ maps to a natural parameter.
 type paramSpec struct {
-	name     string
-	lo, hi   float64 // hi > lo: bounded by a logistic map; else positive by exp
-	positive bool
+	name   string
+	lo, hi float64 // hi > lo: bounded by a logistic map; else positive by exp
+	log    bool    // bounds are on ln of the value
 }
 
 func (s paramSpec) natural(t float64) float64 {
 	if s.hi > s.lo {
-		return s.lo + (s.hi-s.lo)/(1+math.Exp(-t))
+		v := s.lo + (s.hi-s.lo)/(1+math.Exp(-t))
+		if s.log {
+			return math.Exp(v)
+		}
+		return v
 	}
 	return math.Exp(t)
 }
 
 func (s paramSpec) theta(v float64) float64 {
 	if s.hi > s.lo {
+		if s.log {
+			v = math.Log(math.Max(v, 1e-300))
+		}
 		f := (v - s.lo) / (s.hi - s.lo)
 		f = math.Min(math.Max(f, 1e-6), 1-1e-6)
 		return math.Log(f / (1 - f))
 	}
 	return math.Log(math.Max(v, 1e-300))
+}
+
+// atBound reports whether v sits at the edge of its search range.
+func (s paramSpec) atBound(v float64) bool {
+	if !(s.hi > s.lo) {
+		return false
+	}
+	x := v
+	if s.log {
+		x = math.Log(v)
+	}
+	f := (x - s.lo) / (s.hi - s.lo)
+	return f < 1e-4 || f > 1-1e-4
 }
 
 var nSpec = paramSpec{name: PFlowIndex, lo: 0.05, hi: 2}
@@ -191,18 +213,27 @@ type modelSpec struct {
 	starts func(pts []RheometerPoint) [][]float64
 }
 
-func specs() map[string]modelSpec {
+// specs returns the models with search ranges. Time constants are kept
+// within 1e-3/γ̇_max to 1e3/γ̇_min and plateau viscosities within 1e3 times
+// the largest measured viscosity, so that a plateau model fitted to data
+// without a plateau stops at a stated bound instead of drifting to
+// meaningless numbers.
+func specs(pts []RheometerPoint) map[string]modelSpec {
 	pos := func(n string) paramSpec { return paramSpec{name: n} }
+	lo, hi := etaRange(pts)
+	eta0 := paramSpec{name: PZero, lo: math.Log(lo * 1e-6), hi: math.Log(hi * 1e3), log: true}
+	etaInf := paramSpec{name: PInfinite, lo: math.Log(lo * 1e-9), hi: math.Log(hi * 1e3), log: true}
+	lam := paramSpec{name: PTime, lo: math.Log(1e-3 / pts[len(pts)-1].ShearRate), hi: math.Log(1e3 / pts[0].ShearRate), log: true}
 	return map[string]modelSpec{
 		ModelNewtonian: {[]paramSpec{pos(PViscosity)}, func(p []float64) Model { return Newtonian{p[0]} },
 			func(pts []RheometerPoint) [][]float64 { return [][]float64{{geoMeanViscosity(pts)}} }},
 		ModelPowerLaw: {[]paramSpec{pos(PConsistency), nSpec}, func(p []float64) Model { return PowerLaw{p[0], p[1]} },
 			func(pts []RheometerPoint) [][]float64 { k, n := logLogLine(pts); return [][]float64{{k, clampN(n)}} }},
-		ModelCross: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), {name: PTransition, lo: 0.1, hi: 3}},
+		ModelCross: {[]paramSpec{eta0, etaInf, lam, {name: PTransition, lo: 0.1, hi: 3}},
 			func(p []float64) Model { return Cross{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(false)},
-		ModelCarreau: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), nSpec},
+		ModelCarreau: {[]paramSpec{eta0, etaInf, lam, nSpec},
 			func(p []float64) Model { return Carreau{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(true)},
-		ModelCarreauYasuda: {[]paramSpec{pos(PZero), pos(PInfinite), pos(PTime), nSpec, {name: PTransition, lo: 0.1, hi: 10}},
+		ModelCarreauYasuda: {[]paramSpec{eta0, etaInf, lam, nSpec, {name: PTransition, lo: 0.1, hi: 10}},
 			func(p []float64) Model { return CarreauYasuda{p[0] + p[1], p[1], p[2], p[3], p[4]} }, plateauStartsA},
 		ModelBingham: {[]paramSpec{pos(PYield), pos(PPlastic)}, func(p []float64) Model { return Bingham{p[0], p[1]} }, binghamStarts},
 		ModelHerschelBulkley: {[]paramSpec{pos(PYield), pos(PConsistency), nSpec},
@@ -307,7 +338,7 @@ func cassonStarts(pts []RheometerPoint) [][]float64 {
 
 // fitOne fits one model.
 func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
-	sp := specs()[name]
+	sp := specs(pts)[name]
 	k := len(sp.params)
 	n := len(pts)
 	var mf ModelFit
@@ -388,6 +419,11 @@ func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
 	} else {
 		mf.AICc = math.NaN()
 		mf.Warnings = append(mf.Warnings, "too few points for AICc")
+	}
+	for i, s := range sp.params {
+		if s.atBound(p[i]) {
+			mf.Warnings = append(mf.Warnings, fmt.Sprintf("%s stopped at the edge of its search range (%.3g): the data do not constrain it", s.name, p[i]))
+		}
 	}
 	for i, pr := range mf.Params {
 		if se := mf.StdErrors[i]; math.IsNaN(se) || se > math.Abs(pr.Value) && pr.Name != PYield && pr.Name != PInfinite {

@@ -28,6 +28,10 @@ func createAtomic(target string) (*atomicFile, error) {
 
 // commit flushes, closes and renames the file into place.
 func (a *atomicFile) commit() error {
+	if err := a.File.Chmod(0o644); err != nil {
+		a.abort()
+		return err
+	}
 	if err := a.File.Sync(); err != nil {
 		a.abort()
 		return err

@@ -17,6 +17,7 @@ import (
 type organismFlags struct {
 	length, diameter, shape, speed, freq, amplitude, mass, span, wingLength, chord, wingArea      string
 	strokeAngle, efficiency, dragCoefficient, area, inducedFactor, profileDrag, disc, diffusivity string
+	shearRate, relaxationTime                                                                     string
 }
 
 func (f *organismFlags) bind(cmd *cobra.Command) {
@@ -40,6 +41,8 @@ func (f *organismFlags) bind(cmd *cobra.Command) {
 	fs.StringVar(&f.profileDrag, "profile-drag", "", "profile-drag coefficient of the wings (default: flat-plate skin friction, a lower bound)")
 	fs.StringVar(&f.disc, "disc", regime.DiscSpan, "actuator disc of flight: span (circle of the wingspan) or stroke (area swept by the wings)")
 	fs.StringVar(&f.diffusivity, "diffusivity", "", "solute diffusivity for the Péclet number, e.g. 2e-9m2/s (default: dissolved O2 in water)")
+	fs.StringVar(&f.shearRate, "shear-rate", "", "measured medium: characteristic shear rate (default: speed/length), e.g. 5/s")
+	fs.StringVar(&f.relaxationTime, "relaxation-time", "", "viscoelastic medium: relaxation time for the Deborah and Weissenberg numbers, e.g. 0.3s")
 }
 
 // source returns the organism flags as an inputs.Source.
@@ -50,6 +53,7 @@ func (f *organismFlags) source() inputs.Flags {
 		"wing_area": f.wingArea, "stroke_angle": f.strokeAngle, "efficiency": f.efficiency,
 		"drag_coefficient": f.dragCoefficient, "area": f.area, "induced_factor": f.inducedFactor,
 		"profile_drag": f.profileDrag, "disc": f.disc, "diffusivity": f.diffusivity,
+		"shear_rate": f.shearRate, "relaxation_time": f.relaxationTime,
 	}
 }
 
@@ -116,7 +120,7 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 		},
 	}
 	o.organism.bind(cmd)
-	cmd.Flags().StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater or seawater")
+	cmd.Flags().StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater, seawater, or a medium file from 'flowregime fit --save'")
 	o.flags.bind(cmd.Flags())
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
 	return cmd
@@ -151,7 +155,7 @@ func runCalc(o *calcOptions, s Streams) error {
 		return err
 	}
 	fmt.Fprintf(s.Out, "C_D of %s is on the %s.\n", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName)
-	report.List(s.Out, "Medium", []string{fmt.Sprintf("%s at %s °C: ρ = %s kg/m³, μ = %s Pa·s", m.Medium, report.Num(m.TemperatureC, 4), report.Num(m.Density, 6), report.Num(m.DynamicViscosity, 5))})
+	report.List(s.Out, "Medium", []string{mediumLine(m)})
 	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
 	return nil
 }
@@ -209,6 +213,14 @@ func calcFields(r regime.Result) []report.Field {
 			report.F("profile_drag_coefficient", "  profile-drag coefficient", f.ProfileCD, 3),
 		)
 	}
+	if !r.Medium.Newtonian() {
+		fs = append(fs, report.F("shear_rate_1_s", "characteristic shear rate (1/s)", r.ShearRate, 4),
+			report.F("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4))
+	}
+	opt("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4)
+	opt("bingham_number", "Bingham number", r.BinghamNumber, 4)
+	opt("deborah", "Deborah number", r.Deborah, 3)
+	opt("weissenberg", "Weissenberg number", r.Weissenberg, 3)
 	opt("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3)
 	opt("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3)
 	opt("peclet", "Péclet number (on --length)", r.Peclet, 3)

@@ -20,6 +20,10 @@ type calcJSON struct {
 	CoastTime        *float64   `json:"coasting_time_s,omitempty"`
 	CoastDistance    *float64   `json:"coasting_distance_m,omitempty"`
 	Peclet           *float64   `json:"peclet,omitempty"`
+	GeneralizedRe    *float64   `json:"generalized_reynolds,omitempty"`
+	BinghamNumber    *float64   `json:"bingham_number,omitempty"`
+	Deborah          *float64   `json:"deborah,omitempty"`
+	Weissenberg      *float64   `json:"weissenberg,omitempty"`
 	Diffusivity      *float64   `json:"diffusivity_m2_s,omitempty"`
 	Medium           mediumJSON `json:"medium"`
 	Warnings         []string   `json:"warnings"`
@@ -73,7 +77,9 @@ func newCalcJSON(r regime.Result) calcJSON {
 		Power:     powerJSON{Kind: r.Power.Kind, Total: r.Power.Total},
 		CoastTime: report.Opt(r.CoastTime), CoastDistance: report.Opt(r.CoastDistance),
 		Peclet: report.Opt(r.Peclet), Diffusivity: report.Opt(r.Diffusivity),
-		Medium:   newMediumJSON(r.Medium),
+		Medium:        newMediumJSON(r.Medium),
+		GeneralizedRe: report.Opt(r.GeneralizedRe), BinghamNumber: report.Opt(r.BinghamNumber),
+		Deborah: report.Opt(r.Deborah), Weissenberg: report.Opt(r.Weissenberg),
 		Warnings: nonNil(warningTexts(r.Warnings)),
 	}
 	for _, e := range r.Drag.Estimates {
@@ -88,6 +94,9 @@ func newCalcJSON(r regime.Result) calcJSON {
 		j.Power.HoverInduced, j.Power.InducedVelocity = report.Opt(f.HoverInduced), report.Opt(f.InducedVelocity)
 		j.Power.DiscArea, j.Power.ProfileCD = report.Opt(f.DiscArea), report.Opt(f.ProfileCD)
 		j.Power.ChordReynolds = report.Opt(f.ChordReynolds)
+	}
+	if !r.Medium.Newtonian() {
+		j.Medium.ShearRate, j.Medium.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)
 	}
 	return j
 }

@@ -228,3 +228,76 @@ func TestBatchUsageErrors(t *testing.T) {
 		}
 	}
 }
+
+// fit → medium file → every command: the JSON names scripts read, and the
+// values that follow from the saved model (Herschel–Bulkley mud: a 1 mm
+// sand grain is held by the yield stress, Beris et al. 1985).
+func TestFitSaveAndUseMedium(t *testing.T) {
+	dir := t.TempDir()
+	file := dir + "/mud.json"
+	out, errs, code := run(t, "fit", "../../../testdata/rheology/mud_herschel_bulkley.csv", "--density", "1300kg/m3", "--name", "mud", "--save", file, "--format", "json")
+	if code != 0 {
+		t.Fatalf("fit: exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	if m["class"] != "yield-stress" || m["best"] != "herschel-bulkley" {
+		t.Errorf("class %v, best %v", m["class"], m["best"])
+	}
+	models := m["models"].([]any)
+	if len(models) != 8 {
+		t.Fatalf("%d models", len(models))
+	}
+	for _, mm := range models {
+		o := mm.(map[string]any)
+		for _, k := range []string{"model", "parameters", "standard_errors", "r_squared", "rms_relative_error", "aicc"} {
+			if _, ok := o[k]; !ok {
+				t.Errorf("model %v lacks %q", o["model"], k)
+			}
+		}
+	}
+	out, errs, code = run(t, "medium", file, "--format", "json")
+	if code != 0 || !strings.Contains(out, `"model": "herschel-bulkley"`) {
+		t.Errorf("medium FILE: exit %d %s %s", code, errs, out)
+	}
+	out, _, code = run(t, "settle", "--diameter", "1mm", "--density", "2650kg/m3", "--medium", file, "--format", "json")
+	s := decode(t, out)
+	if code != 0 || s["direction"] != "held" || num(t, s, "terminal_speed_m_s") != 0 {
+		t.Errorf("settle in mud: %s", out)
+	}
+	out, _, code = run(t, "calc", "--length", "2cm", "--diameter", "4mm", "--speed", "1mm/s", "--medium", file, "--format", "json")
+	c := decode(t, out)
+	if code != 0 || c["bingham_number"] == nil || c["generalized_reynolds"] == nil {
+		t.Fatalf("calc in mud: %s", out)
+	}
+	if g := num(t, c, "medium", "shear_rate_1_s"); math.Abs(g-0.05) > 1e-12 {
+		t.Errorf("shear rate %g, want U/L = 0.05 1/s", g)
+	}
+	if !strings.Contains(out, "extrapolated") {
+		t.Errorf("no extrapolation warning at 0.05 1/s below the measured 0.1 1/s")
+	}
+}
+
+func TestBadMediumFilesAndTables(t *testing.T) {
+	cases := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"medium", "../../../testdata/media/truncated.json"}, "medium file"},
+		{[]string{"medium", "../../../testdata/media/wrongformat.json"}, "not a medium file"},
+		{[]string{"medium", "../../../testdata/media/newer.json"}, "newer than this flowregime reads"},
+		{[]string{"medium", "../../../testdata/media/unknownfield.json"}, "unknown field \"colour\""},
+		{[]string{"medium", "../../../testdata/media/badparam.json"}, "\"flow_index\" must be positive"},
+		{[]string{"medium", "../../../testdata/media/badmodel.json"}, "unknown rheology model \"maxwell\""},
+		{[]string{"medium", "../../../testdata/media/missing.json"}, "cannot read medium file"},
+		{[]string{"calc", "--length", "1mm", "--speed", "1mm/s", "--medium", "../../../testdata/media/wrongformat.json"}, "not a medium file"},
+		{[]string{"fit", "../../../testdata/rheology/bad_nostress.csv"}, "no shear-stress or viscosity column"},
+		{[]string{"fit", "../../../testdata/rheology/bad_value.csv"}, "line 3, column \"shear rate (1/s)\""},
+		{[]string{"fit", "../../../testdata/rheology/honey.csv", "--save", "x.json"}, "--save needs the fluid's --density"},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.args...)
+		if code == 0 || !strings.Contains(errs, c.want) || strings.Count(errs, "\n") != 1 {
+			t.Errorf("%v: exit %d, stderr %q; want one line containing %q", c.args, code, errs, c.want)
+		}
+	}
+}

@@ -46,7 +46,7 @@ applied; it matters below about 10 µm (spores, pollen, bacteria).
 	fs.StringVar(&o.length, "length", "", "spheroid only: length along the axis, e.g. 400um")
 	fs.StringVar(&o.density, "density", "", "particle density, e.g. 1.06g/cm3 or 1060kg/m3")
 	fs.StringVar(&o.shape, "shape", "", "sphere or spheroid (default: spheroid with --length, else sphere)")
-	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater or seawater")
+	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater, seawater, or a medium file from 'flowregime fit --save'")
 	o.flags.bind(fs)
 	fs.StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
 	return cmd
@@ -109,9 +109,10 @@ func runSettle(o *settleOptions, s Streams) error {
 	case report.FormatJSON:
 		return report.JSON(s.Out, settleJSON{
 			Speed: r.Speed, Direction: r.Direction, Reynolds: r.Reynolds, ReynoldsBasis: r.Basis,
-			Drag:        settleDragJSON{Law: r.Law, Source: r.Source, Coefficient: r.Coefficient, Force: r.Force},
+			Drag:        settleDragJSON{Law: r.Law, Source: r.Source, Coefficient: report.Opt(r.Coefficient), Force: r.Force},
 			StokesSpeed: r.StokesSpeed, Archimedes: r.Archimedes, Cunningham: r.Cunningham, Knudsen: report.Opt(r.Knudsen),
-			Medium: newMediumJSON(m), Warnings: nonNil(warningTexts(ws)),
+			Medium: settleMediumJSON(m, r), Warnings: nonNil(warningTexts(ws)),
+			GeneralizedRe: report.Opt(r.GeneralizedRe), BinghamNumber: report.Opt(r.BinghamNumber), YieldParameter: report.Opt(r.YieldParameter),
 		})
 	case report.FormatCSV:
 		return report.Fields(s.Out, o.format, append(settleFields(r), report.Field{Key: "warnings", Value: strings.Join(warningTexts(ws), "; ")}))
@@ -119,7 +120,7 @@ func runSettle(o *settleOptions, s Streams) error {
 	if err := report.Fields(s.Out, o.format, settleFields(r)); err != nil {
 		return err
 	}
-	report.List(s.Out, "Medium", []string{fmt.Sprintf("%s at %s °C: ρ = %s kg/m³, μ = %s Pa·s", m.Medium, report.Num(m.TemperatureC, 4), report.Num(m.Density, 6), report.Num(m.DynamicViscosity, 5))})
+	report.List(s.Out, "Medium", []string{mediumLine(m)})
 	report.List(s.Out, "Warnings", warningTexts(ws))
 	return nil
 }
@@ -135,6 +136,16 @@ func settleFields(r regime.Settling) []report.Field {
 		report.F("stokes_speed_m_s", "Stokes' law speed, for comparison (m/s)", r.StokesSpeed, 4),
 		report.F("archimedes", "Archimedes number", r.Archimedes, 4),
 	}
+	add := func(key, label string, v float64, sig int) {
+		if !math.IsNaN(v) {
+			fs = append(fs, report.F(key, label, v, sig))
+		}
+	}
+	add("shear_rate_1_s", "shear rate U/d (1/s)", r.ShearRate, 4)
+	add("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4)
+	add("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4)
+	add("bingham_number", "Bingham number", r.BinghamNumber, 4)
+	add("yield_parameter", "yield parameter Y_g = 3τ_y/(d Δρ g); held at ≥ 0.143", r.YieldParameter, 4)
 	if r.Knudsen == r.Knudsen {
 		fs = append(fs, report.F("knudsen", "Knudsen number 2λ/d", r.Knudsen, 3), report.F("cunningham", "Cunningham slip factor", r.Cunningham, 4))
 	}
@@ -142,22 +153,33 @@ func settleFields(r regime.Settling) []report.Field {
 }
 
 type settleJSON struct {
-	Speed         float64        `json:"terminal_speed_m_s"`
-	Direction     string         `json:"direction"`
-	Reynolds      float64        `json:"reynolds"`
-	ReynoldsBasis string         `json:"reynolds_on"`
-	Drag          settleDragJSON `json:"drag"`
-	StokesSpeed   float64        `json:"stokes_speed_m_s"`
-	Archimedes    float64        `json:"archimedes"`
-	Cunningham    float64        `json:"cunningham"`
-	Knudsen       *float64       `json:"knudsen,omitempty"`
-	Medium        mediumJSON     `json:"medium"`
-	Warnings      []string       `json:"warnings"`
+	Speed          float64        `json:"terminal_speed_m_s"`
+	Direction      string         `json:"direction"`
+	Reynolds       float64        `json:"reynolds"`
+	ReynoldsBasis  string         `json:"reynolds_on"`
+	Drag           settleDragJSON `json:"drag"`
+	StokesSpeed    float64        `json:"stokes_speed_m_s"`
+	Archimedes     float64        `json:"archimedes"`
+	Cunningham     float64        `json:"cunningham"`
+	Knudsen        *float64       `json:"knudsen,omitempty"`
+	GeneralizedRe  *float64       `json:"generalized_reynolds,omitempty"`
+	BinghamNumber  *float64       `json:"bingham_number,omitempty"`
+	YieldParameter *float64       `json:"yield_parameter,omitempty"`
+	Medium         mediumJSON     `json:"medium"`
+	Warnings       []string       `json:"warnings"`
 }
 
 type settleDragJSON struct {
-	Law         string  `json:"law"`
-	Source      string  `json:"source"`
-	Coefficient float64 `json:"coefficient"`
-	Force       float64 `json:"force_N"`
+	Law         string   `json:"law"`
+	Source      string   `json:"source"`
+	Coefficient *float64 `json:"coefficient"`
+	Force       float64  `json:"force_N"`
+}
+
+func settleMediumJSON(m media.Properties, r regime.Settling) mediumJSON {
+	j := newMediumJSON(m)
+	if !m.Newtonian() {
+		j.ShearRate, j.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)
+	}
+	return j
 }

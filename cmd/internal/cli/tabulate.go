@@ -303,8 +303,9 @@ type statJSON struct {
 	P95    *float64 `json:"p95"`
 }
 
-type fitJSON struct {
-	Y, X         string
+type scalingJSON struct {
+	Y            string   `json:"y"`
+	X            string   `json:"x"`
 	N            int      `json:"n"`
 	OLSSlope     *float64 `json:"ols_slope"`
 	OLSLow       *float64 `json:"ols_low95"`
@@ -322,13 +323,13 @@ type groupJSON struct {
 	Rows    int                 `json:"rows"`
 	Stats   map[string]statJSON `json:"statistics"`
 	Regimes map[string]float64  `json:"regime_share"`
-	Fits    []fitJSON           `json:"fits"`
+	Fits    []scalingJSON       `json:"fits"`
 }
 
 func groupsJSON(groups []tabulate.Group) []groupJSON {
 	out := []groupJSON{}
 	for _, g := range groups {
-		gj := groupJSON{Group: g.Key, Rows: g.N, Stats: map[string]statJSON{}, Regimes: g.Regimes, Fits: []fitJSON{}}
+		gj := groupJSON{Group: g.Key, Rows: g.N, Stats: map[string]statJSON{}, Regimes: g.Regimes, Fits: []scalingJSON{}}
 		if gj.Group == nil {
 			gj.Group = []string{}
 		}
@@ -336,7 +337,7 @@ func groupsJSON(groups []tabulate.Group) []groupJSON {
 			gj.Stats[m] = statJSON{N: st.N, Median: report.Opt(st.Median), P5: report.Opt(st.P5), P95: report.Opt(st.P95)}
 		}
 		for _, f := range g.Fits {
-			gj.Fits = append(gj.Fits, fitJSON{Y: f.Y, X: f.X, N: f.N, OLSSlope: report.Opt(f.OLSSlope), OLSLow: report.Opt(f.OLSLow),
+			gj.Fits = append(gj.Fits, scalingJSON{Y: f.Y, X: f.X, N: f.N, OLSSlope: report.Opt(f.OLSSlope), OLSLow: report.Opt(f.OLSLow),
 				OLSHigh: report.Opt(f.OLSHigh), OLSIntercept: report.Opt(f.OLSIntercept), SMASlope: report.Opt(f.SMASlope),
 				SMALow: report.Opt(f.SMALow), SMAHigh: report.Opt(f.SMAHigh), SMAIntercept: report.Opt(f.SMAIntercept), R2: report.Opt(f.R2)})
 		}

@@ -53,6 +53,8 @@ const (
 	Altitude
 	Humidity
 	Latitude
+	ShearRate
+	RelaxationTime
 	NumFields
 )
 
@@ -86,6 +88,8 @@ var Fields = []Field{
 	{Name: "altitude", Flag: "altitude", Kind: quantity.Height, Aliases: []string{"elevation", "alt"}},
 	{Name: "humidity", Flag: "humidity", Kind: quantity.Humidity, Aliases: []string{"rh", "relative humidity"}},
 	{Name: "latitude", Flag: "latitude", Kind: quantity.Number, Aliases: []string{"lat"}},
+	{Name: "shear_rate", Flag: "shear-rate", Kind: quantity.ShearRate, Aliases: []string{"shear rate"}},
+	{Name: "relaxation_time", Flag: "relaxation-time", Kind: quantity.Time, Aliases: []string{"relaxation time"}},
 }
 
 // Index returns the index of the field with the canonical name, or −1.
@@ -236,6 +240,8 @@ func Build(src Source, defaultMedium string, keep bool) (Input, error) {
 	o.ProfileCD = rd.num(ProfileDrag)
 	o.Diffusivity = rd.num(Diffusivity)
 	o.Disc, _ = rd.text(Disc)
+	o.ShearRate = rd.num(ShearRate)
+	o.RelaxationTime = rd.num(RelaxationTime)
 	if rd.err != nil {
 		return in, rd.err
 	}
@@ -269,7 +275,7 @@ func Conditions(src Source, medium string) (media.Conditions, error) {
 }
 
 func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
-	c := media.Unset(strings.ToLower(medium))
+	c := media.Unset(medium)
 	get := func(field int) float64 {
 		v := rd.value(field)
 		if values != nil {

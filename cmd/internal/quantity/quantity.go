@@ -39,6 +39,8 @@ const (
 	ShearRate               // 1/s
 	Angle                   // rad; bare numbers are degrees
 	Diffusivity             // m²/s
+	Stress                  // Pa (shear stress)
+	Viscosity               // Pa·s
 )
 
 // Value is a parsed quantity in the library's units (see each Kind).
@@ -76,6 +78,8 @@ var units = map[Kind]map[string]conv{
 	Angle:     {"deg": {math.Pi / 180, 0, ""}, "°": {math.Pi / 180, 0, ""}, "rad": {1, 0, ""}},
 	Diffusivity: {"m2/s": {1, 0, ""}, "m²/s": {1, 0, ""}, "cm2/s": {1e-4, 0, ""}, "cm²/s": {1e-4, 0, ""},
 		"mm2/s": {1e-6, 0, ""}, "mm²/s": {1e-6, 0, ""}, "µm2/s": {1e-12, 0, ""}, "µm²/s": {1e-12, 0, ""}},
+	Stress:    {"mPa": {1e-3, 0, ""}, "Pa": {1, 0, ""}, "kPa": {1e3, 0, ""}, "dyn/cm2": {0.1, 0, ""}},
+	Viscosity: {"Pas": {1, 0, ""}, "Pa s": {1, 0, ""}, "Pa·s": {1, 0, ""}, "mPas": {1e-3, 0, ""}, "mPa s": {1e-3, 0, ""}, "mPa·s": {1e-3, 0, ""}, "cP": {1e-3, 0, ""}, "P": {0.1, 0, ""}},
 }
 
 // bareOK lists kinds whose bare numbers have a stated meaning.
@@ -92,7 +96,7 @@ var names = map[Kind]string{
 	Length: "length", Height: "depth or altitude", Speed: "speed", Temperature: "temperature", Pressure: "pressure",
 	Salinity: "salinity", Humidity: "relative humidity", Mass: "mass", Frequency: "frequency", Density: "density",
 	Area: "area", Fraction: "fraction", Number: "number", Time: "time", ShearRate: "shear rate",
-	Angle: "angle", Diffusivity: "diffusivity",
+	Angle: "angle", Diffusivity: "diffusivity", Stress: "shear stress", Viscosity: "viscosity",
 }
 
 // Example returns an accepted way to write a value of kind k.
@@ -104,7 +108,7 @@ func Units(k Kind) []string {
 		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "%",
 		"µg", "ug", "mg", "g", "kg", "Hz", "kHz", "/s", "1/s", "/min", "1/min", "kg/m3", "kg/m³", "g/cm3", "g/cm³", "g/mL", "g/ml",
 		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹", "deg", "°", "rad",
-		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s"}
+		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s", "mPa", "dyn/cm2", "Pa·s", "Pa s", "Pas", "mPa·s", "mPa s", "mPas", "cP", "P"}
 	var out []string
 	for _, u := range order {
 		if _, ok := units[k][u]; ok {

@@ -61,6 +61,9 @@ func TestParse(t *testing.T) {
 		{Angle, "90deg", math.Pi / 2, 0},
 		{Angle, "1.5rad", 1.5, 0},
 		{Diffusivity, "2.1e-5cm2/s", 2.1e-9, 0},
+		{Stress, "350mPa", 0.35, 0},
+		{Viscosity, "1.2 mPa·s", 1.2e-3, 0},
+		{Viscosity, "5cP", 5e-3, 0},
 	}
 	for _, c := range cases {
 		v, err := Parse(c.k, c.in)
@@ -114,7 +117,7 @@ func FuzzParse(f *testing.F) {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, s string) {
-		for k := Length; k <= Diffusivity; k++ {
+		for k := Length; k <= Viscosity; k++ {
 			v, err := Parse(k, s)
 			if err == nil && (math.IsNaN(v.SI) || math.IsInf(v.SI, 0) || math.IsNaN(v.SD) || v.SD < 0) {
 				t.Fatalf("Parse(%d, %q) = %+v without error", k, s, v)
