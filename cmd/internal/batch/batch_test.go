@@ -4,13 +4,17 @@ import (
 	"bytes"
 	"context"
 	"encoding/csv"
+	"math"
 	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/survey"
+	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
 )
 
 func runBatch(t testing.TB, input []byte, cfg Config) (string, []Reject, Summary) {
@@ -188,4 +192,33 @@ func FuzzRecords(f *testing.F) {
 			t.Fatalf("read %d, written %d, rejected %d", sum.Read, sum.Written, n)
 		}
 	})
+}
+
+// A measured medium named in the medium column: the row's Reynolds number is
+// the one regime.Calc gives with that medium (the file's power law at the
+// organism's shear rate U/L = 0.25 1/s, below the measured range), and the extrapolation is flagged.
+func TestMeasuredMediumColumn(t *testing.T) {
+	file, _ := filepath.Abs("../../../testdata/media/mucus.json")
+	in := "taxon,length (um),speed (um/s),medium\nciliate,200,50," + file + "\n"
+	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV})
+	if len(rejects) > 0 {
+		t.Fatalf("rejects: %v", rejects)
+	}
+	recs, _ := csv.NewReader(strings.NewReader(out)).ReadAll()
+	re, _ := strconv.ParseFloat(recs[1][4+2], 64)
+	mf, err := media.LoadMediumFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, _ := mf.Properties()
+	r, err := regime.Calc(regime.NewOrganism(regime.Body{Shape: regime.Sphere, Length: 200e-6}, 50e-6), p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(re/r.Reynolds-1) > 1e-5 { // 6 significant digits printed
+		t.Errorf("batch Re %g, calc Re %g", re, r.Reynolds)
+	}
+	if !strings.Contains(recs[1][len(recs[1])-1], "shear-rate-extrapolated") {
+		t.Errorf("flags %q lack the extrapolation at 0.25 1/s (measured 0.5–500)", recs[1][len(recs[1])-1])
+	}
 }

@@ -63,13 +63,14 @@ type cached struct {
 	medium          string
 	tC, rho, mu, nu float64
 	warnings        []media.Warning
+	rheology        media.Rheology
 	err             error
 }
 
 func (c cached) properties() media.Properties {
 	nan := math.NaN()
 	return media.Properties{Medium: c.medium, TemperatureC: c.tC, Density: c.rho, DynamicViscosity: c.mu,
-		KinematicViscosity: c.nu, Warnings: c.warnings, SalinityPractical: nan, SalinityAbsolute: nan,
+		KinematicViscosity: c.nu, Warnings: c.warnings, Rheology: c.rheology, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 }
 
@@ -98,7 +99,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (media.Properties, error) {
 		return e.properties(), e.err
 	}
 	p, err := media.Lookup(c)
-	e = cached{medium: p.Medium, tC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity, err: err}
+	e = cached{medium: p.Medium, tC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity, rheology: p.Rheology, err: err}
 	for _, w := range p.Warnings {
 		e.warnings = append(e.warnings, media.Warning{Code: w.Code})
 	}
