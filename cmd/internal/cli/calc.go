@@ -74,6 +74,51 @@ type calcOptions struct {
 	medium   string
 	flags    mediumFlags
 	format   string
+	unc      uncertaintyFlags
+}
+
+// uncertaintyFlags choose how input uncertainty ("12±1mm") is propagated.
+type uncertaintyFlags struct {
+	method string
+	draws  int
+	seed   uint64
+}
+
+func (u *uncertaintyFlags) bind(cmd *cobra.Command) {
+	cmd.Flags().StringVar(&u.method, "uncertainty", regime.MethodMonteCarlo, "how to propagate input uncertainty (12±1mm, 12mm±8%): monte-carlo or linear")
+	cmd.Flags().IntVar(&u.draws, "draws", 10000, "Monte Carlo draws")
+	cmd.Flags().Uint64Var(&u.seed, "seed", 1, "seed of the Monte Carlo generator (same seed, same result)")
+}
+
+func (u *uncertaintyFlags) check() error {
+	if u.method != regime.MethodMonteCarlo && u.method != regime.MethodLinear {
+		return usagef("--uncertainty %q: accepted: monte-carlo, linear", u.method)
+	}
+	if u.method == regime.MethodMonteCarlo && (u.draws < 10 || u.draws > 10000000) {
+		return usagef("--draws %d: give 10 to 10000000", u.draws)
+	}
+	return nil
+}
+
+// propagate returns the uncertainty of the results, or nil when no input
+// carries an uncertainty.
+func (u *uncertaintyFlags) propagate(in inputs.Input) (*regime.Uncertainty, error) {
+	us, idx := in.Uncertain()
+	if len(us) == 0 {
+		return nil, nil
+	}
+	eval := in.Evaluator(idx, regime.CalcChosen)
+	var res regime.Uncertainty
+	var err error
+	if u.method == regime.MethodLinear {
+		res, err = regime.Linear(us, eval)
+	} else {
+		res, err = regime.MonteCarlo(us, eval, u.draws, u.seed)
+	}
+	if err != nil {
+		return nil, fmt.Errorf("%s", trimPkg(err))
+	}
+	return &res, nil
 }
 
 const calcConventions = `
@@ -94,7 +139,14 @@ Conventions:
   theory, Rankine–Froude in hover, Glauert in forward flight, factor
   --induced-factor) + parasite (the body's drag × speed) + profile (blade
   element over both wings with --profile-drag).
-  'flowregime laws' lists every drag law with its source and range.`
+  'flowregime laws' lists every drag law with its source and range.
+  Uncertainty: any value may carry one, 12±1mm, 12+-1mm or 12mm±8%. It is
+  propagated by Monte Carlo (--draws, --seed; sizes, speeds and other
+  positive quantities drawn log-normally with the given median and relative
+  spread, temperatures, salinities and altitudes normally) or to first
+  order in log space (--uncertainty linear). Output gives the median and
+  95 % interval of Re, St, drag and power and the probability of each
+  regime and drag law.`
 
 func newCalcCmd(s Streams) *cobra.Command {
 	o := &calcOptions{}
@@ -123,13 +175,17 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 	cmd.Flags().StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater, seawater, or a medium file from 'flowregime fit --save'")
 	o.flags.bind(cmd.Flags())
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
+	o.unc.bind(cmd)
 	return cmd
 }
 
 func runCalc(o *calcOptions, s Streams) error {
 	src := merge(o.organism.source(), o.flags.source())
 	src["medium"] = o.medium
-	in, err := inputs.Build(src, o.medium, false)
+	if err := o.unc.check(); err != nil {
+		return err
+	}
+	in, err := inputs.Build(src, o.medium, true)
 	if err != nil {
 		return usageError{err}
 	}
@@ -141,13 +197,22 @@ func runCalc(o *calcOptions, s Streams) error {
 	if err != nil {
 		return fmt.Errorf("%s", trimPkg(err))
 	}
+	unc, err := o.unc.propagate(in)
+	if err != nil {
+		return err
+	}
+	if unc != nil && unc.Failed > 0 {
+		r.Warnings = append(r.Warnings, media.Warning{Code: regime.WarnModel, Message: fmt.Sprintf("uncertainty: %d of %d draws reached impossible conditions and were left out", unc.Failed, unc.Draws)})
+	}
 	switch o.format {
 	case report.FormatJSON:
-		return report.JSON(s.Out, newCalcJSON(r))
+		j := newCalcJSON(r)
+		j.Uncertainty = newUncertaintyJSON(unc)
+		return report.JSON(s.Out, j)
 	case report.FormatCSV:
-		return report.Fields(s.Out, o.format, append(calcFields(r), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
+		return report.Fields(s.Out, o.format, append(append(calcFields(r), uncertaintyFields(unc)...), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
 	}
-	if err := report.Fields(s.Out, o.format, calcFields(r)); err != nil {
+	if err := report.Fields(s.Out, o.format, append(calcFields(r), uncertaintyFields(unc)...)); err != nil {
 		return err
 	}
 	fmt.Fprintln(s.Out, "\nDrag by every law for this shape (chosen law first):")

@@ -1,32 +1,111 @@
 package cli
 
 import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/regime"
 )
 
 // calcJSON is the object `calc --format json` prints; scripts read these names.
 type calcJSON struct {
-	Reynolds         float64    `json:"reynolds"`
-	ReynoldsLength   string     `json:"reynolds_length"`
-	Regime           string     `json:"regime"`
-	BoundaryLayer    string     `json:"boundary_layer,omitempty"`
-	Strouhal         *float64   `json:"strouhal"`
-	StrouhalBand     string     `json:"strouhal_band,omitempty"`
-	AdvanceRatio     *float64   `json:"advance_ratio,omitempty"`
-	ReducedFrequency *float64   `json:"reduced_frequency,omitempty"`
-	Drag             dragJSON   `json:"drag"`
-	Power            powerJSON  `json:"power"`
-	CoastTime        *float64   `json:"coasting_time_s,omitempty"`
-	CoastDistance    *float64   `json:"coasting_distance_m,omitempty"`
-	Peclet           *float64   `json:"peclet,omitempty"`
-	GeneralizedRe    *float64   `json:"generalized_reynolds,omitempty"`
-	BinghamNumber    *float64   `json:"bingham_number,omitempty"`
-	Deborah          *float64   `json:"deborah,omitempty"`
-	Weissenberg      *float64   `json:"weissenberg,omitempty"`
-	Diffusivity      *float64   `json:"diffusivity_m2_s,omitempty"`
-	Medium           mediumJSON `json:"medium"`
-	Warnings         []string   `json:"warnings"`
+	Reynolds         float64          `json:"reynolds"`
+	ReynoldsLength   string           `json:"reynolds_length"`
+	Regime           string           `json:"regime"`
+	BoundaryLayer    string           `json:"boundary_layer,omitempty"`
+	Strouhal         *float64         `json:"strouhal"`
+	StrouhalBand     string           `json:"strouhal_band,omitempty"`
+	AdvanceRatio     *float64         `json:"advance_ratio,omitempty"`
+	ReducedFrequency *float64         `json:"reduced_frequency,omitempty"`
+	Drag             dragJSON         `json:"drag"`
+	Power            powerJSON        `json:"power"`
+	CoastTime        *float64         `json:"coasting_time_s,omitempty"`
+	CoastDistance    *float64         `json:"coasting_distance_m,omitempty"`
+	Peclet           *float64         `json:"peclet,omitempty"`
+	GeneralizedRe    *float64         `json:"generalized_reynolds,omitempty"`
+	BinghamNumber    *float64         `json:"bingham_number,omitempty"`
+	Deborah          *float64         `json:"deborah,omitempty"`
+	Weissenberg      *float64         `json:"weissenberg,omitempty"`
+	Diffusivity      *float64         `json:"diffusivity_m2_s,omitempty"`
+	Medium           mediumJSON       `json:"medium"`
+	Warnings         []string         `json:"warnings"`
+	Uncertainty      *uncertaintyJSON `json:"uncertainty,omitempty"`
+}
+
+type bandJSON struct {
+	Median *float64 `json:"median"`
+	Low95  *float64 `json:"low95"`
+	High95 *float64 `json:"high95"`
+}
+
+type uncertaintyJSON struct {
+	Method            string             `json:"method"`
+	Draws             int                `json:"draws,omitempty"`
+	Seed              *uint64            `json:"seed,omitempty"`
+	FailedDraws       int                `json:"failed_draws,omitempty"`
+	Reynolds          bandJSON           `json:"reynolds"`
+	Strouhal          bandJSON           `json:"strouhal"`
+	Drag              bandJSON           `json:"drag_N"`
+	Power             bandJSON           `json:"power_W"`
+	RegimeProbability map[string]float64 `json:"regime_probability"`
+	LawProbability    map[string]float64 `json:"drag_law_probability,omitempty"`
+}
+
+func newBand(b regime.Band) bandJSON {
+	return bandJSON{report.Opt(b.Median), report.Opt(b.Low95), report.Opt(b.High95)}
+}
+
+func newUncertaintyJSON(u *regime.Uncertainty) *uncertaintyJSON {
+	if u == nil {
+		return nil
+	}
+	j := &uncertaintyJSON{Method: u.Method, Draws: u.Draws, FailedDraws: u.Failed, Reynolds: newBand(u.Reynolds), Strouhal: newBand(u.Strouhal),
+		Drag: newBand(u.Drag), Power: newBand(u.Power), RegimeProbability: u.RegimeProbability, LawProbability: u.LawProbability}
+	if u.Method == regime.MethodMonteCarlo {
+		seed := u.Seed
+		j.Seed = &seed
+	}
+	return j
+}
+
+// uncertaintyFields lists the uncertainty for tables and CSV.
+func uncertaintyFields(u *regime.Uncertainty) []report.Field {
+	if u == nil {
+		return nil
+	}
+	band := func(key, label string, b regime.Band) []report.Field {
+		if math.IsNaN(b.Median) {
+			return nil
+		}
+		return []report.Field{{Key: key + "_median", Label: label + ", median [95 % interval]",
+			Value: fmt.Sprintf("%s [%s, %s]", report.Num(b.Median, 4), report.Num(b.Low95, 4), report.Num(b.High95, 4))}}
+	}
+	method := u.Method
+	if u.Method == regime.MethodMonteCarlo {
+		method = fmt.Sprintf("Monte Carlo, %d draws, seed %d", u.Draws, u.Seed)
+	}
+	fs := []report.Field{{Key: "uncertainty_method", Label: "uncertainty", Value: method}}
+	fs = append(fs, band("reynolds", "  Reynolds number", u.Reynolds)...)
+	fs = append(fs, band("strouhal", "  Strouhal number", u.Strouhal)...)
+	fs = append(fs, band("drag_N", "  drag (N)", u.Drag)...)
+	fs = append(fs, band("power_W", "  power (W)", u.Power)...)
+	for _, name := range regime.Regimes {
+		if p, ok := u.RegimeProbability[name]; ok {
+			fs = append(fs, report.F("p_"+name, "  probability "+name, p, 3))
+		}
+	}
+	laws := make([]string, 0, len(u.LawProbability))
+	for l := range u.LawProbability {
+		laws = append(laws, l)
+	}
+	sort.Strings(laws)
+	for _, l := range laws {
+		fs = append(fs, report.F("p_law_"+strings.ReplaceAll(l, " ", "_"), "  probability of law "+l, u.LawProbability[l], 3))
+	}
+	return fs
 }
 
 type dragJSON struct {

@@ -333,3 +333,106 @@ func (f Flags) Lookup(field int) (string, string, string, bool) {
 	t = strings.TrimSpace(t)
 	return t, "", flagLabels[field], ok && t != ""
 }
+
+// Positive reports whether a field's values must stay positive, so that its
+// uncertainty is drawn log-normally; temperatures, salinities, depths,
+// altitudes, humidity and latitude are drawn normally.
+func Positive(field int) bool {
+	switch field {
+	case Temperature, TempOffset, Salinity, Depth, Altitude, Humidity, Latitude:
+		return false
+	}
+	return true
+}
+
+// With returns the input with one numeric field set to v (SI units).
+func (in Input) With(field int, v float64) Input {
+	o, c := &in.Organism, &in.Conditions
+	switch field {
+	case Length:
+		o.Body.Length = v
+	case Diameter:
+		o.Body.Diameter = v
+	case Speed:
+		o.Speed = v
+	case Frequency:
+		o.Frequency = v
+	case Amplitude:
+		o.Amplitude = v
+	case Mass:
+		o.Mass = v
+	case Span:
+		o.Span = v
+	case WingLength:
+		o.WingLength = v
+	case Chord:
+		o.Chord = v
+	case WingArea:
+		o.WingArea = v
+	case StrokeAngle:
+		o.StrokeAngle = v
+	case Efficiency:
+		o.Efficiency = v
+	case DragCoefficient:
+		o.Body.DragCoefficient = v
+	case Area:
+		o.Body.ReferenceArea = v
+	case InducedFactor:
+		o.InducedFactor = v
+	case ProfileDrag:
+		o.ProfileCD = v
+	case Diffusivity:
+		o.Diffusivity = v
+	case ShearRate:
+		o.ShearRate = v
+	case RelaxationTime:
+		o.RelaxationTime = v
+	case Temperature:
+		c.TemperatureC = v
+	case TempOffset:
+		c.TemperatureOffset = v
+	case Salinity:
+		c.SalinityPractical = v
+	case Depth:
+		c.DepthM = v
+	case Pressure:
+		c.PressurePa = v
+	case Altitude:
+		c.AltitudeM = v
+	case Humidity:
+		c.HumidityPercent = v
+	case Latitude:
+		c.LatitudeDeg = v
+	}
+	return in
+}
+
+// Uncertain lists the fields given with an uncertainty, as inputs for
+// regime.MonteCarlo or regime.Linear, and their field indices.
+func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
+	var us []regime.UncertainInput
+	var idx []int
+	for f, v := range in.Values {
+		if v.SD > 0 && !math.IsNaN(v.SI) {
+			us = append(us, regime.UncertainInput{Name: Fields[f].Name, Value: v.SI, SD: v.SD, Positive: Positive(f)})
+			idx = append(idx, f)
+		}
+	}
+	return us, idx
+}
+
+// Evaluator returns a function computing the result for values of the
+// uncertain fields idx, looking up the medium for each.
+func (in Input) Evaluator(idx []int, calc func(regime.Organism, media.Properties) (regime.Result, error)) regime.Evaluator {
+	return func(x []float64) (regime.Result, error) {
+		d := in
+		for i, f := range idx {
+			d = d.With(f, x[i])
+		}
+		m, err := media.Lookup(d.Conditions)
+		if err != nil {
+			return regime.Result{}, err
+		}
+		return calc(d.Organism, m)
+	}
+}
