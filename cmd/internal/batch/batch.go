@@ -39,6 +39,15 @@ type Config struct {
 	Workers       int      // 0 means GOMAXPROCS
 	FlaggedOnly   bool
 	Progress      func(bytesRead int64)
+
+	// Uncertainty propagates each row's uncertainty (companion columns such
+	// as "length sd" or "length (mm) sd", or cells like "12±1") by Method
+	// with Draws draws. Each row's generator is seeded from Seed and the
+	// row's own text, so results do not depend on workers or sharding.
+	Uncertainty bool
+	Method      string
+	Draws       int
+	Seed        uint64
 }
 
 // Reject is an input row that could not be computed.
@@ -123,6 +132,15 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if err != nil {
 		return sum, err
 	}
+	if m.hasSD() {
+		cfg.Uncertainty = true
+	}
+	if cfg.Uncertainty && cfg.Method == "" {
+		cfg.Method = "monte-carlo"
+	}
+	if cfg.Uncertainty && cfg.Method != "linear" && cfg.Draws < 10 {
+		cfg.Draws = 10000
+	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
 		return sum, fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")
 	}
@@ -132,7 +150,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string
 	if cfg.OutFormat == Table {
-		table = append(table, append(append([]string{}, header...), Computed...))
+		table = append(table, append(append([]string{}, header...), cfg.columns()...))
 	} else if len(cfg.Names) == 0 {
 		switch cfg.OutFormat {
 		case CSV, TSV:
@@ -147,7 +165,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 					b = appendField(b, h, outDelim)
 				}
 			}
-			for _, c := range Computed {
+			for _, c := range cfg.columns() {
 				b = append(b, outDelim)
 				b = append(b, c...)
 			}

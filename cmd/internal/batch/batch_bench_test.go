@@ -52,9 +52,10 @@ func BenchmarkRow(b *testing.B) {
 		rows = append(rows, f)
 	}
 	cache := newMediumCache()
+	cfg := &Config{DefaultMedium: "freshwater"}
 	b.ResetTimer()
 	for i := range b.N {
-		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: inputs.Flags{}}, "freshwater", cache); err != nil {
+		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: inputs.Flags{}}, cfg, cache, 1); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -14,6 +14,49 @@ type mapping struct {
 	col    [inputs.NumFields]int    // column index of each field, −1 if none
 	unit   [inputs.NumFields]string // unit from the header or --unit
 	label  [inputs.NumFields]string // `column "length (mm)"`
+	sdCol  [inputs.NumFields]int    // column of the field's standard uncertainty, −1 if none
+	sdUnit [inputs.NumFields]string // its own unit, if its header gives one
+}
+
+func (m *mapping) hasSD() bool {
+	for _, c := range m.sdCol {
+		if c >= 0 {
+			return true
+		}
+	}
+	return false
+}
+
+// sdHeader recognises an uncertainty column: "length sd", "length_sd",
+// "length (mm) sd", "sd length", "length sd (mm)". It returns the field and
+// the column's own unit, if any.
+func sdHeader(h string) (field int, unit string) {
+	h = strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
+	for _, p := range [][2]string{{"(", ")"}, {"[", "]"}} {
+		if strings.HasSuffix(h, p[1]) {
+			if i := strings.LastIndex(h, p[0]); i > 0 {
+				unit = strings.TrimSpace(h[i+1 : len(h)-1])
+				h = strings.TrimSpace(h[:i])
+			}
+		}
+	}
+	n := normName(h)
+	var base string
+	switch {
+	case strings.HasSuffix(n, " sd"):
+		base = strings.TrimSuffix(n, " sd")
+	case strings.HasPrefix(n, "sd "):
+		base = strings.TrimPrefix(n, "sd ")
+	default:
+		return -1, ""
+	}
+	if f, u := splitHeader(base); f >= 0 {
+		if unit == "" {
+			unit = u
+		}
+		return f, unit
+	}
+	return -1, ""
 }
 
 // normName lowers a header name and turns _ - . into spaces.
@@ -68,7 +111,7 @@ func matchName(name string) int {
 func newMapping(header []string, columns, units map[string]string) (*mapping, error) {
 	m := &mapping{header: header}
 	for i := range m.col {
-		m.col[i] = -1
+		m.col[i], m.sdCol[i] = -1, -1
 	}
 	forced := map[int]bool{}
 	for name, h := range columns {
@@ -88,6 +131,12 @@ func newMapping(header []string, columns, units map[string]string) (*mapping, er
 		m.col[f] = idx
 		_, m.unit[f] = splitHeader(h)
 		forced[idx] = true
+	}
+	for i, h := range header {
+		if f, u := sdHeader(h); f >= 0 && !forced[i] {
+			m.sdCol[f], m.sdUnit[f] = i, u
+			forced[i] = true
+		}
 	}
 	for i, h := range header {
 		if forced[i] {

@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -53,7 +54,10 @@ func (p *processor) process(c *chunk) result {
 			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: string(rec)})
 			return
 		}
-		o, err := compute(&rowSource{m: p.m, fields: p.fields, consts: p.cfg.Constants}, p.cfg.DefaultMedium, p.cache)
+		o, err := compute(&rowSource{m: p.m, fields: p.fields, consts: p.cfg.Constants}, &p.cfg, p.cache, p.cfg.Seed^fnv64(rec))
+		if err == nil && !p.cfg.Uncertainty && (bytes.Contains(rec, []byte("±")) || bytes.Contains(rec, []byte("+-"))) {
+			o.flags = append(o.flags, WarnUncertaintyIgnored)
+		}
 		if err != nil {
 			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: string(rec)}
 			var fe *inputs.FieldError
@@ -76,7 +80,7 @@ func (p *processor) process(c *chunk) result {
 		}
 		res.written++
 		if p.cfg.OutFormat != CSV && p.cfg.OutFormat != TSV {
-			p.vals = o.values(p.vals[:0])
+			p.vals = o.values(p.vals[:0], p.cfg.Uncertainty)
 		}
 		switch p.cfg.OutFormat {
 		case CSV, TSV:
@@ -90,7 +94,7 @@ func (p *processor) process(c *chunk) result {
 					out = appendField(out, f, p.outDelim)
 				}
 			}
-			out = o.appendCSV(out, p.outDelim)
+			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty)
 			out = append(out, '\n')
 		case JSONL:
 			out = p.appendJSON(out, keys, raws)
@@ -156,7 +160,7 @@ func (p *processor) appendJSON(b []byte, keys []string, raws []json.RawMessage) 
 			n++
 		}
 	}
-	for i, c := range Computed {
+	for i, c := range p.cfg.columns() {
 		if n > 0 {
 			b = append(b, ',')
 		}
@@ -183,4 +187,14 @@ func renderTable(w io.Writer, rows [][]string) error {
 		return nil
 	}
 	return report.Table(w, rows[0], rows[1:])
+}
+
+// fnv64 is the FNV-1a hash of b (Fowler, Noll & Vo), used to seed each row.
+func fnv64(b []byte) uint64 {
+	h := uint64(14695981039346656037)
+	for _, c := range b {
+		h ^= uint64(c)
+		h *= 1099511628211
+	}
+	return h
 }

@@ -18,6 +18,24 @@ var Computed = []string{
 	"drag_law", "drag_N", "power_kind", "power_W", "flags",
 }
 
+// UncertaintyColumns follow Computed when uncertainty is propagated.
+var UncertaintyColumns = []string{
+	"reynolds_low95", "reynolds_high95", "strouhal_low95", "strouhal_high95",
+	"drag_N_low95", "drag_N_high95", "power_W_low95", "power_W_high95", "regime_probability",
+}
+
+// WarnUncertaintyIgnored flags a row with "±" in it when uncertainty is not
+// being propagated.
+const WarnUncertaintyIgnored = "uncertainty-ignored"
+
+// columns returns the appended column names for a configuration.
+func (cfg Config) columns() []string {
+	if cfg.Uncertainty {
+		return append(append([]string{}, Computed...), UncertaintyColumns...)
+	}
+	return Computed
+}
+
 // rowSource serves one row's cells, with flag constants for quantities that
 // have no column.
 type rowSource struct {
@@ -32,6 +50,16 @@ func (s *rowSource) Lookup(f int) (string, string, string, bool) {
 			return "", "", s.m.label[f], false
 		}
 		t := strings.TrimSpace(s.fields[c])
+		if sc := s.m.sdCol[f]; sc >= 0 && sc < len(s.fields) && t != "" {
+			if sd := strings.TrimSpace(s.fields[sc]); sd != "" {
+				// "12" and "1" in a column in mm, or "12mm" and "0.1cm".
+				if u := s.m.sdUnit[f]; u != "" {
+					t = t + s.m.unit[f] + "±" + sd + u
+				} else {
+					t = t + "±" + sd
+				}
+			}
+		}
 		return t, s.m.unit[f], s.m.label[f], t != ""
 	}
 	return s.consts.Lookup(f)
@@ -116,11 +144,13 @@ func (mc *mediumCache) lookup(c media.Conditions) (media.Properties, error) {
 type outcome struct {
 	r     regime.Result
 	flags []string
+	unc   *regime.Uncertainty
 }
 
-// compute evaluates one row.
-func compute(src inputs.Source, defMedium string, mc *mediumCache) (outcome, error) {
-	in, err := inputs.Build(src, defMedium, false)
+// compute evaluates one row. With cfg.Uncertainty it also propagates the
+// uncertainty of the row's values, seeded by seed.
+func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outcome, error) {
+	in, err := inputs.Build(src, cfg.DefaultMedium, cfg.Uncertainty)
 	if err != nil {
 		return outcome{}, err
 	}
@@ -133,7 +163,37 @@ func compute(src inputs.Source, defMedium string, mc *mediumCache) (outcome, err
 		return outcome{}, err
 	}
 	ws := append(r.Warnings, regime.Screen(in.Organism, r)...)
-	return outcome{r: r, flags: flagCodes(ws)}, nil
+	o := outcome{r: r}
+	if cfg.Uncertainty {
+		if us, idx := in.Uncertain(); len(us) > 0 {
+			eval := func(x []float64) (regime.Result, error) {
+				d := in
+				for i, f := range idx {
+					d = d.With(f, x[i])
+				}
+				m, err := mc.lookup(d.Conditions)
+				if err != nil {
+					return regime.Result{}, err
+				}
+				return regime.CalcChosen(d.Organism, m)
+			}
+			var u regime.Uncertainty
+			if cfg.Method == regime.MethodLinear {
+				u, err = regime.Linear(us, eval)
+			} else {
+				u, err = regime.MonteCarlo(us, eval, cfg.Draws, seed)
+			}
+			if err != nil {
+				return outcome{}, err
+			}
+			if u.Failed > 0 {
+				ws = append(ws, media.Warning{Code: regime.WarnModel})
+			}
+			o.unc = &u
+		}
+	}
+	o.flags = flagCodes(ws)
+	return o, nil
 }
 
 // flagCodes returns the sorted distinct warning codes.
@@ -164,20 +224,41 @@ func appendNum(b []byte, v float64) []byte {
 	return strconv.AppendFloat(b, v, 'g', 6, 64)
 }
 
-// values returns the computed columns as text, in the order of Computed.
-func (o outcome) values(dst []string) []string {
+// values returns the computed columns as text, in the order of columns().
+func (o outcome) values(dst []string, withUnc bool) []string {
 	r := o.r
 	var buf [32]byte
 	num := func(v float64) string { return string(appendNum(buf[:0], v)) }
-	return append(dst,
+	dst = append(dst,
 		num(r.Medium.Density), num(r.Viscosity/r.Medium.Density), num(r.Reynolds), r.Regime, num(r.Strouhal),
 		r.Drag.Chosen.Law, num(r.Drag.Chosen.Force), r.Power.Kind, num(r.Power.Total), strings.Join(o.flags, ";"),
 	)
+	if withUnc {
+		for _, v := range o.uncValues() {
+			dst = append(dst, num(v))
+		}
+	}
+	return dst
+}
+
+// uncValues returns the uncertainty columns' numbers (NaN when absent).
+func (o outcome) uncValues() []float64 {
+	n := math.NaN()
+	u := o.unc
+	if u == nil {
+		return []float64{n, n, n, n, n, n, n, n, n}
+	}
+	p, ok := u.RegimeProbability[o.r.Regime]
+	if !ok {
+		p = 0
+	}
+	return []float64{u.Reynolds.Low95, u.Reynolds.High95, u.Strouhal.Low95, u.Strouhal.High95,
+		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
 // by the delimiter, without building intermediate strings.
-func (o outcome) appendCSV(b []byte, delim byte) []byte {
+func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
 	r := o.r
 	num := func(v float64) {
 		b = append(b, delim)
@@ -202,6 +283,11 @@ func (o outcome) appendCSV(b []byte, delim byte) []byte {
 			b = append(b, ';')
 		}
 		b = append(b, f...)
+	}
+	if withUnc {
+		for _, v := range o.uncValues() {
+			num(v)
+		}
 	}
 	return b
 }

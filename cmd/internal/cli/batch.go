@@ -29,6 +29,8 @@ type batchOptions struct {
 	organism                                           organismFlags
 	medium                                             string
 	flags                                              mediumFlags
+	unc                                                uncertaintyFlags
+	uncOn                                              bool
 }
 
 const batchHelp = `Read a survey table (CSV, TSV or JSON Lines; FILE or - for stdin) and
@@ -60,6 +62,19 @@ amplitude larger than the body or a wingspan without a mass
 (inconsistent-inputs), and model limits (model-limit, drag-crisis,
 geometry). --flagged-only keeps only flagged rows.
 
+Uncertainty: a column named after another with "sd" — "length sd",
+"length_sd", "length (mm) sd" — holds that quantity's standard
+uncertainty, in its unit unless its own header gives one ("length sd (cm)")
+or the cell says "%". Cells may also read "12±1". With any such column, or
+with --uncertainty, each row's uncertainty is propagated (Monte Carlo with
+--draws and --seed, or --uncertainty linear) and these columns follow:
+  reynolds_low95 reynolds_high95 strouhal_low95 strouhal_high95 drag_N_low95
+  drag_N_high95 power_W_low95 power_W_high95 regime_probability
+(the last: the probability of the row's regime). Each row's generator is
+seeded from --seed and the row's text, so the output does not depend on the
+number of workers or on sharding. A "±" in a row without propagation is
+flagged uncertainty-ignored.
+
 For parallel engines: with --names "a,b,c" the input has no header line and
 the output has none either, so shards of a file processed separately and
 concatenated equal the whole file's output. JSON Lines output never has a
@@ -82,6 +97,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 		},
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
+			o.uncOn = cmd.Flags().Changed("uncertainty") || cmd.Flags().Changed("draws")
 			return runBatch(cmd.Context(), o, s)
 		},
 	}
@@ -93,6 +109,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
 	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar and no summary")
 	o.bindInputs(cmd)
+	o.unc.bind(cmd)
 	return cmd
 }
 
@@ -152,7 +169,11 @@ func keyValues(flag string, items []string) (map[string]string, error) {
 // config turns the flags into a batch configuration.
 func (o *batchOptions) config() (batch.Config, error) {
 	var err error
-	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: o.medium}
+	if err := o.unc.check(); err != nil {
+		return batch.Config{}, err
+	}
+	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: o.medium,
+		Uncertainty: o.uncOn, Method: o.unc.method, Draws: o.unc.draws, Seed: o.unc.seed}
 	cfg.InFormat = o.inFormat
 	if cfg.InFormat == "" {
 		cfg.InFormat = batch.CSV
