@@ -16,6 +16,7 @@ import (
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
 	"github.com/schollz/progressbar/v3"
 	"github.com/spf13/cobra"
 	"golang.org/x/term"
@@ -169,6 +170,9 @@ func keyValues(flag string, items []string) (map[string]string, error) {
 // config turns the flags into a batch configuration.
 func (o *batchOptions) config() (batch.Config, error) {
 	var err error
+	if o.unc.method == "" { // commands that do not bind the uncertainty flags
+		o.unc = uncertaintyFlags{method: regime.MethodMonteCarlo, draws: 10000, seed: 1}
+	}
 	if err := o.unc.check(); err != nil {
 		return batch.Config{}, err
 	}
