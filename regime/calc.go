@@ -192,21 +192,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 	switch {
 	case flyer:
-		k := o.InducedFactor
-		if math.IsNaN(k) {
-			k = DefaultInducedFactor
-		}
-		fp, err := Flight(FlightInput{
-			Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, InducedFactor: k,
-			Disc: o.Disc, Wings: wings,
-			BodyDrag: func(u float64) float64 {
-				d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: r.Viscosity, PowerLawK: flowPL[0], PowerLawN: flowPL[1]})
-				if err != nil {
-					return math.NaN()
-				}
-				return d.Chosen.Force
-			},
-		})
+		fp, err := Flight(o.flightInput(m, r.Viscosity, flowPL))
 		if err != nil {
 			return r, err
 		}
@@ -290,4 +276,41 @@ func refName(o Organism) string {
 		return "wingspan"
 	}
 	return "body length"
+}
+
+// flightInput builds the flight model's input for the organism; the body's
+// parasite drag comes from the drag laws at each speed.
+func (o Organism) flightInput(m media.Properties, viscosity float64, pl [2]float64) FlightInput {
+	k := o.InducedFactor
+	if math.IsNaN(k) {
+		k = DefaultInducedFactor
+	}
+	return FlightInput{
+		Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: viscosity, InducedFactor: k,
+		Disc: o.Disc, Wings: o.wings(),
+		BodyDrag: func(u float64) float64 {
+			d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: viscosity, PowerLawK: pl[0], PowerLawN: pl[1]})
+			if err != nil {
+				return math.NaN()
+			}
+			return d.Chosen.Force
+		},
+	}
+}
+
+// OrganismPowerCurve is [FlightPowerCurve] for a flying organism in air,
+// from lo to hi m/s in steps.
+func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps int) (PowerCurve, error) {
+	if m.Medium != media.KindAir || math.IsNaN(o.Mass) || math.IsNaN(o.Span) {
+		return PowerCurve{}, fmt.Errorf("regime: a flight power curve needs a flyer in air with a mass and a wingspan")
+	}
+	if err := o.Body.Validate(); err != nil {
+		return PowerCurve{}, err
+	}
+	pc, err := FlightPowerCurve(o.flightInput(m, m.DynamicViscosity, [2]float64{}), lo, hi, steps)
+	if err != nil {
+		return pc, err
+	}
+	pc.Warnings = append(m.Warnings, pc.Warnings...)
+	return pc, nil
 }

@@ -148,10 +148,11 @@ func Flight(in FlightInput) (FlightPower, error) {
 		fp.ProfileCD = w.ProfileCD
 		if math.IsNaN(fp.ProfileCD) || fp.ProfileCD <= 0 {
 			fp.ProfileCDDefault = true
+			fp.ProfileCD = 0 // no relative wing speed (hover without stroke kinematics): no profile power
 			if fp.ChordReynolds > 0 {
 				fp.ProfileCD = 2 * TransitionCf(fp.ChordReynolds, TransitionReynolds)
 			}
-			if fp.ChordReynolds < 1e4 {
+			if fp.ChordReynolds > 0 && fp.ChordReynolds < 1e4 {
 				fp.Warnings = append(fp.Warnings, warnf(WarnModel, "flight: profile drag taken as flat-plate skin friction at chord Re = %.3g; below about 1e4 real wings' profile drag is several times higher (Ellington 1984, part VI): set the profile-drag coefficient from measurements", fp.ChordReynolds))
 			}
 		}

@@ -7,6 +7,8 @@ import (
 	"os"
 	"strings"
 	"testing"
+
+	"github.com/flowregime/flowregime/regime"
 )
 
 // run executes the command line in-process on a fresh command tree.
@@ -299,5 +301,92 @@ func TestBadMediumFilesAndTables(t *testing.T) {
 		if code == 0 || !strings.Contains(errs, c.want) || strings.Count(errs, "\n") != 1 {
 			t.Errorf("%v: exit %d, stderr %q; want one line containing %q", c.args, code, errs, c.want)
 		}
+	}
+}
+
+// A sweep's changes of law and regime sit where the laws' published ranges
+// and the regime boundaries put them: Stokes ends at Re = 0.1 (its range),
+// the viscous regime at Re = 1.
+func TestSweepBoundaries(t *testing.T) {
+	out, errs, code := run(t, "sweep", "--vary", "speed=10um/s:1m/s", "--log", "--steps", "60", "--length", "1mm", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var res struct {
+		Points []struct {
+			Reynolds float64 `json:"reynolds"`
+			Regime   string  `json:"regime"`
+			Law      string  `json:"drag_law"`
+			Change   string  `json:"change"`
+		} `json:"points"`
+	}
+	if err := json.Unmarshal([]byte(out), &res); err != nil {
+		t.Fatal(err)
+	}
+	var stokesMax float64
+	for _, l := range regime.Laws {
+		if l.Name == "Stokes" {
+			stokesMax = l.ReMax
+		}
+	}
+	seenLaw, seenRegime := false, false
+	for i, p := range res.Points[1:] {
+		prev := res.Points[i]
+		if strings.Contains(p.Change, "law Stokes →") {
+			seenLaw = true
+			if !(prev.Reynolds <= stokesMax && p.Reynolds > stokesMax) {
+				t.Errorf("Stokes ends between Re %g and %g, not at %g", prev.Reynolds, p.Reynolds, stokesMax)
+			}
+		}
+		if strings.Contains(p.Change, "regime viscous → intermediate") {
+			seenRegime = true
+			if !(prev.Reynolds < 1 && p.Reynolds >= 1) {
+				t.Errorf("viscous regime ends between Re %g and %g, not at 1", prev.Reynolds, p.Reynolds)
+			}
+		}
+	}
+	if !seenLaw || !seenRegime {
+		t.Errorf("changes not marked: law %v, regime %v\n%s", seenLaw, seenRegime, out)
+	}
+}
+
+func TestPowerCurveCommand(t *testing.T) {
+	out, errs, code := run(t, "powercurve", "--length", "16cm", "--diameter", "3.5cm", "--mass", "40g", "--span", "42cm", "--chord", "4cm", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	vmp, vmr := num(t, m, "min_power_speed_m_s"), num(t, m, "max_range_speed_m_s")
+	if !(vmp > 0.5 && vmr > vmp && num(t, m, "hover_W") > num(t, m, "min_power_W")) {
+		t.Errorf("V_mp %g, V_mr %g: %s", vmp, vmr, out)
+	}
+	_, errs, code = run(t, "powercurve", "--length", "16cm", "--medium", "freshwater")
+	if code != ExitUsage || !strings.Contains(errs, "needs a flyer in air") {
+		t.Errorf("swimmer power curve: exit %d, %s", code, errs)
+	}
+}
+
+func TestCalcUncertaintyJSON(t *testing.T) {
+	out, errs, code := run(t, "calc", "--length", "1mm±10%", "--speed", "1±0.1mm/s", "--draws", "2000", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	m := decode(t, out)
+	u, ok := m["uncertainty"].(map[string]any)
+	if !ok {
+		t.Fatalf("no uncertainty object: %s", out)
+	}
+	for _, k := range []string{"method", "draws", "seed", "reynolds", "strouhal", "drag_N", "power_W", "regime_probability", "drag_law_probability"} {
+		if _, ok := u[k]; !ok {
+			t.Errorf("uncertainty lacks %q", k)
+		}
+	}
+	lo, hi := num(t, m, "uncertainty", "reynolds", "low95"), num(t, m, "uncertainty", "reynolds", "high95")
+	if re := num(t, m, "reynolds"); !(lo < re && re < hi) {
+		t.Errorf("Re %g outside [%g, %g]", re, lo, hi)
+	}
+	again, _, _ := run(t, "calc", "--length", "1mm±10%", "--speed", "1±0.1mm/s", "--draws", "2000", "--format", "json")
+	if again != out {
+		t.Error("same seed gave different output")
 	}
 }
