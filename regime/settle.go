@@ -13,6 +13,9 @@ type Particle struct {
 	Diameter float64 // m; the maximum diameter of a spheroid
 	Length   float64 // m; spheroid only
 	Density  float64 // kg/m³
+	// ShearRate fixes the characteristic shear rate (1/s) in a
+	// non-Newtonian medium; 0 or NaN means U/d at terminal speed.
+	ShearRate float64
 }
 
 // Directions of terminal motion.
@@ -206,6 +209,15 @@ func (sp *settleProblem) nonNewtonian() (Settling, error) {
 			s.StokesSpeed = u
 			return sp.finishNN(s), nil
 		}
+	}
+	if g := sp.p.ShearRate; g > 0 {
+		s, err = sp.solve(rh.ApparentViscosity(g))
+		if err != nil {
+			return s, err
+		}
+		s = sp.finishNN(s)
+		s.ShearRate, s.Viscosity = g, rh.ApparentViscosity(g)
+		return s, nil
 	}
 	// Fixed point on U with the apparent viscosity at U/d.
 	mu := m.DynamicViscosity

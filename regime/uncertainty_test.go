@@ -135,3 +135,20 @@ func TestDeborahWeissenberg(t *testing.T) {
 	checkRel(t, "De", r.Deborah, 2, 1e-12)
 	checkRel(t, "Wi", r.Weissenberg, 0.5*1, 1e-12)
 }
+
+// The linear method against Monte Carlo where the model is not a power law:
+// drag of a 1 mm sphere at Re ≈ 50 (standard drag curve) with 3 % errors.
+// First order should match the Monte Carlo interval within 2 %.
+func TestLinearAgainstMonteCarlo(t *testing.T) {
+	w := water20(t)
+	u := 50 * w.KinematicViscosity / 1e-3
+	eval := func(x []float64) (Result, error) {
+		return CalcChosen(NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1]), w)
+	}
+	in := []UncertainInput{{"length", 1e-3, 3e-5, true}, {"speed", u, 0.03 * u, true}}
+	lin, _ := Linear(in, eval)
+	mc, _ := MonteCarlo(in, eval, 20000, 11)
+	checkRel(t, "drag median", lin.Drag.Median, mc.Drag.Median, 0.02)
+	checkRel(t, "drag low95", lin.Drag.Low95, mc.Drag.Low95, 0.02)
+	checkRel(t, "drag high95", lin.Drag.High95, mc.Drag.High95, 0.02)
+}

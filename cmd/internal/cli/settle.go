@@ -13,10 +13,10 @@ import (
 )
 
 type settleOptions struct {
-	diameter, length, density, shape string
-	medium                           string
-	flags                            mediumFlags
-	format                           string
+	diameter, length, density, shape, shearRate string
+	medium                                      string
+	flags                                       mediumFlags
+	format                                      string
 }
 
 func newSettleCmd(s Streams) *cobra.Command {
@@ -30,6 +30,12 @@ rigid particle, across regimes, with a drag law continuous in Re: Clift–Gauvin
 --length too). Re is on the diameter (of the equal-volume sphere for a
 spheroid). In air the Cunningham slip correction (Davies 1945 constants) is
 applied; it matters below about 10 µm (spores, pollen, bacteria).
+In a measured non-Newtonian medium (--medium FILE.json) the viscosity is
+the apparent viscosity at the shear rate U/d (Chhabra 2007; some authors use
+2U/d), solved together with U unless --shear-rate fixes it; a sphere in a
+power-law fluid in creeping flow uses the X(n) correction of Renaud, Mauret
+& Chhabra (2004); in a yield-stress fluid a sphere with
+Y_g = 3τ_y/(d Δρ g) ≥ 0.143 is held (Beris et al. 1985).
 ` + mediumFlagHelp + "\n\n" + estimateNotice,
 		Example: `  flowregime settle --diameter 150um --density 1.06g/cm3 --medium seawater --temp 10C
   flowregime settle --diameter 25um --density 1100kg/m3 --medium air --humidity 70%`,
@@ -46,6 +52,7 @@ applied; it matters below about 10 µm (spores, pollen, bacteria).
 	fs.StringVar(&o.length, "length", "", "spheroid only: length along the axis, e.g. 400um")
 	fs.StringVar(&o.density, "density", "", "particle density, e.g. 1.06g/cm3 or 1060kg/m3")
 	fs.StringVar(&o.shape, "shape", "", "sphere or spheroid (default: spheroid with --length, else sphere)")
+	fs.StringVar(&o.shearRate, "shear-rate", "", "measured medium: fix the characteristic shear rate (default U/d at terminal speed), e.g. 2/s")
 	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater, seawater, or a medium file from 'flowregime fit --save'")
 	o.flags.bind(fs)
 	fs.StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
@@ -65,6 +72,7 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 		{"diameter", o.diameter, quantity.Length, &p.Diameter},
 		{"length", o.length, quantity.Length, &p.Length},
 		{"density", o.density, quantity.Density, &p.Density},
+		{"shear-rate", o.shearRate, quantity.ShearRate, &p.ShearRate},
 	} {
 		if f.text == "" {
 			continue
