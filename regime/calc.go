@@ -86,12 +86,14 @@ type Result struct {
 // one organism in a medium, with every applicable drag law's estimate.
 func Calc(o Organism, m media.Properties) (Result, error) { return calc(o, m, true) }
 
-// CalcChosen is [Calc] with only the chosen drag law evaluated, for batch
-// work where the other estimates are not reported.
+// CalcChosen is [Calc] with only the chosen drag law evaluated and with
+// warnings that carry their codes only (flight warnings keep their text),
+// for batch work where neither is reported.
 func CalcChosen(o Organism, m media.Properties) (Result, error) { return calc(o, m, false) }
 
 func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	n := math.NaN()
+	note := noter(all)
 	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
 		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 	if err := o.Body.Validate(); err != nil {
@@ -155,18 +157,18 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		r.Strouhal = Strouhal(o.Frequency, o.Amplitude, o.Speed)
 		r.StrouhalBand = StrouhalBand(r.Strouhal)
 		if ref := refLength(o); o.Amplitude > ref {
-			r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(o), ref))
+			r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(o), ref))
 		}
 		// Screening bound 0.05–1: common practice, no single source; cruising
 		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
 		// manoeuvres and slow hovering flight go beyond it.
 		if r.Strouhal < StrouhalScreenLow || r.Strouhal > StrouhalScreenHigh {
-			r.Warnings = append(r.Warnings, warnf(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal))
+			r.Warnings = append(r.Warnings, note.f(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal))
 		}
 	case !math.IsNaN(o.Frequency):
-		r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"))
+		r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"))
 	case !math.IsNaN(o.Amplitude):
-		r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"))
+		r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"))
 	}
 	wings := o.wings()
 	if !math.IsNaN(o.Frequency) && wings.Length > 0 {
@@ -200,7 +202,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		r.Warnings = append(r.Warnings, fp.Warnings...)
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
-			r.Warnings = append(r.Warnings, warnf(WarnInconsistent, "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"))
+			r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"))
 		}
 		eff := o.Efficiency
 		r.Power = Power{Kind: PowerSwimming, Efficiency: eff}

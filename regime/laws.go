@@ -25,6 +25,17 @@ func warnf(code, format string, args ...any) Warning {
 	return Warning{Code: code, Message: fmt.Sprintf(format, args...)}
 }
 
+// noter makes warnings with messages, or with codes only (brief) where the
+// messages would not be read, as in batch work.
+type noter bool
+
+func (full noter) f(code, format string, args ...any) Warning {
+	if !full {
+		return Warning{Code: code}
+	}
+	return warnf(code, format, args...)
+}
+
 // Shape is the idealised body shape used to pick drag laws.
 type Shape string
 
@@ -296,7 +307,8 @@ type DragResult struct {
 // its published range, each flagged in or out of range.
 func Drag(b Body, f Flow) (DragResult, error) { return drag(b, f, true) }
 
-// DragChosen is [Drag] without the other laws' estimates, for batch work.
+// DragChosen is [Drag] without the other laws' estimates, and with
+// warnings that carry their codes only, for batch work.
 func DragChosen(b Body, f Flow) (DragResult, error) { return drag(b, f, false) }
 
 func (l *Law) estimate(b Body, f Flow) Estimate {
@@ -317,6 +329,7 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 		return DragResult{}, err
 	}
 	var res DragResult
+	note := noter(all)
 	reChoice := f.Density * f.Speed * ChoiceLength(b) / f.Viscosity
 	var chosen *Law
 	for i := range Laws {
@@ -344,20 +357,20 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 	}
 	c := res.Chosen
 	if !c.InRange {
-		res.Warnings = append(res.Warnings, warnf(WarnLawOutOfRange, "drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c)))
+		res.Warnings = append(res.Warnings, note.f(WarnLawOutOfRange, "drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c)))
 	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
-		res.Warnings = append(res.Warnings, warnf(WarnDragCrisis, "drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds))
+		res.Warnings = append(res.Warnings, note.f(WarnDragCrisis, "drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds))
 	}
 	if b.Shape == Rod && b.Length/(b.Diameter/2) < 10 {
-		res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2)))
+		res.Warnings = append(res.Warnings, note.f(WarnGeometry, "drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2)))
 	}
 	if c.Law == "Haider–Levenspiel" && (b.Shape == Spheroid || b.Shape == Rod) {
-		res.Warnings = append(res.Warnings, warnf(WarnModel, "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"))
+		res.Warnings = append(res.Warnings, note.f(WarnModel, "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"))
 	}
 	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {
 		if r := b.Length / b.Diameter; r < 2 || r > 10 {
-			res.Warnings = append(res.Warnings, warnf(WarnGeometry, "drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r))
+			res.Warnings = append(res.Warnings, note.f(WarnGeometry, "drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r))
 		}
 	}
 	return res, nil

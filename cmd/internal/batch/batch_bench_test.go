@@ -53,9 +53,10 @@ func BenchmarkRow(b *testing.B) {
 	}
 	cache := newMediumCache()
 	cfg := &Config{DefaultMedium: "freshwater"}
+	consts := newConstants(inputs.Flags{})
 	b.ResetTimer()
 	for i := range b.N {
-		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: inputs.Flags{}}, cfg, cache, 1); err != nil {
+		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: consts}, cfg, cache, 1); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -20,6 +20,7 @@ type processor struct {
 	cache           *mediumCache
 	fields          []string
 	vals            []string
+	src             rowSource
 }
 
 func (p *processor) process(c *chunk) result {
@@ -54,7 +55,11 @@ func (p *processor) process(c *chunk) result {
 			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: string(rec)})
 			return
 		}
-		o, err := compute(&rowSource{m: p.m, fields: p.fields, consts: p.cfg.Constants}, &p.cfg, p.cache, p.cfg.Seed^fnv64(rec))
+		if p.src.consts == nil {
+			p.src = rowSource{m: p.m, consts: newConstants(p.cfg.Constants)}
+		}
+		p.src.fields = p.fields
+		o, err := compute(&p.src, &p.cfg, p.cache, p.cfg.Seed^fnv64(rec))
 		if err == nil && !p.cfg.Uncertainty && (bytes.Contains(rec, []byte("±")) || bytes.Contains(rec, []byte("+-"))) {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
 		}

@@ -41,7 +41,23 @@ func (cfg Config) columns() []string {
 type rowSource struct {
 	m      *mapping
 	fields []string
-	consts inputs.Flags
+	consts *constants
+}
+
+// constants are the flag values for quantities without a column, looked up
+// once per run rather than once per row.
+type constants struct {
+	text  [inputs.NumFields]string
+	label [inputs.NumFields]string
+	ok    [inputs.NumFields]bool
+}
+
+func newConstants(f inputs.Flags) *constants {
+	c := &constants{}
+	for i := range c.text {
+		c.text[i], _, c.label[i], c.ok[i] = f.Lookup(i)
+	}
+	return c
 }
 
 func (s *rowSource) Lookup(f int) (string, string, string, bool) {
@@ -62,7 +78,7 @@ func (s *rowSource) Lookup(f int) (string, string, string, bool) {
 		}
 		return t, s.m.unit[f], s.m.label[f], t != ""
 	}
-	return s.consts.Lookup(f)
+	return s.consts.text[f], "", s.consts.label[f], s.consts.ok[f]
 }
 
 // mediumCache holds medium properties by condition, shared by the workers
