@@ -84,76 +84,96 @@ func (s *rowSource) Lookup(f int) (string, string, string, bool) {
 // mediumCache holds medium properties by condition, shared by the workers
 // in shards with their own locks. Entries keep only what a row's
 // computation reads and the warning codes (batch prints codes, not
-// messages), so that a million distinct conditions stay within a few tens
-// of megabytes.
+// messages), so that many distinct conditions stay within a few tens of
+// megabytes.
 type mediumCache struct {
 	shards [16]cacheShard
+	mu     sync.Mutex
+	ids    map[string]uint64 // medium name → small id, for compact keys
 }
 
 type cacheShard struct {
 	mu sync.Mutex
-	m  map[media.Conditions]cached
+	m  map[cacheKey]*cached
+}
+
+// cacheKey is a medium id and the bits of the eight conditions (NaN for
+// unset has one bit pattern, so unset conditions compare equal).
+type cacheKey [9]uint64
+
+type cached struct {
+	p   media.Properties
+	err error
 }
 
 func newMediumCache() *mediumCache {
-	mc := &mediumCache{}
+	mc := &mediumCache{ids: map[string]uint64{}}
 	for i := range mc.shards {
-		mc.shards[i].m = map[media.Conditions]cached{}
+		mc.shards[i].m = map[cacheKey]*cached{}
 	}
 	return mc
 }
 
-type cached struct {
-	medium          string
-	tC, rho, mu, nu float64
-	warnings        []media.Warning
-	rheology        media.Rheology
-	err             error
-}
-
-func (c cached) properties() media.Properties {
-	nan := math.NaN()
-	return media.Properties{Medium: c.medium, TemperatureC: c.tC, Density: c.rho, DynamicViscosity: c.mu,
-		KinematicViscosity: c.nu, Warnings: c.warnings, Rheology: c.rheology, SalinityPractical: nan, SalinityAbsolute: nan,
-		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
-}
-
 const shardLimit = 1 << 13 // entries per shard; 131072 in all
 
-func noNaN(c media.Conditions) media.Conditions {
-	fix := func(v *float64) {
-		if math.IsNaN(*v) {
-			*v = -math.MaxFloat64
-		}
+var canonicalNaN = math.Float64bits(math.NaN())
+
+func bits(v float64) uint64 {
+	if math.IsNaN(v) {
+		return canonicalNaN
 	}
-	for _, v := range []*float64{&c.TemperatureC, &c.TemperatureOffset, &c.SalinityPractical, &c.PressurePa, &c.DepthM, &c.AltitudeM, &c.HumidityPercent, &c.LatitudeDeg} {
-		fix(v)
-	}
-	return c
+	return math.Float64bits(v)
 }
 
-func (mc *mediumCache) lookup(c media.Conditions) (media.Properties, error) {
-	key := noNaN(c)
-	h := math.Float64bits(key.TemperatureC)*31 + math.Float64bits(key.SalinityPractical)*17 + math.Float64bits(key.AltitudeM)*7 + uint64(len(key.Medium))
+func (mc *mediumCache) key(c media.Conditions) cacheKey {
+	var id uint64
+	switch c.Medium {
+	case media.KindAir:
+		id = 1
+	case media.KindFreshWater:
+		id = 2
+	case media.KindSeawater:
+		id = 3
+	default:
+		mc.mu.Lock()
+		var ok bool
+		if id, ok = mc.ids[c.Medium]; !ok {
+			id = uint64(len(mc.ids) + 4)
+			mc.ids[c.Medium] = id
+		}
+		mc.mu.Unlock()
+	}
+	return cacheKey{id, bits(c.TemperatureC), bits(c.TemperatureOffset), bits(c.SalinityPractical), bits(c.PressurePa),
+		bits(c.DepthM), bits(c.AltitudeM), bits(c.HumidityPercent), bits(c.LatitudeDeg)}
+}
+
+// lookup returns the medium's properties; the result must not be modified.
+func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
+	k := mc.key(c)
+	h := k[1]*31 + k[3]*17 + k[6]*7 + k[0]
 	sh := &mc.shards[(h^h>>29)%uint64(len(mc.shards))]
 	sh.mu.Lock()
-	e, ok := sh.m[key]
+	e, ok := sh.m[k]
 	sh.mu.Unlock()
 	if ok {
-		return e.properties(), e.err
+		return &e.p, e.err
 	}
 	p, err := media.Lookup(c)
-	e = cached{medium: p.Medium, tC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity, rheology: p.Rheology, err: err}
+	e = &cached{err: err}
+	nan := math.NaN()
+	e.p = media.Properties{Medium: p.Medium, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
+		KinematicViscosity: p.KinematicViscosity, Rheology: p.Rheology, PressurePa: p.PressurePa, SalinityPractical: nan, SalinityAbsolute: nan,
+		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 	for _, w := range p.Warnings {
-		e.warnings = append(e.warnings, media.Warning{Code: w.Code})
+		e.p.Warnings = append(e.p.Warnings, media.Warning{Code: w.Code})
 	}
 	sh.mu.Lock()
 	if len(sh.m) >= shardLimit {
 		clear(sh.m)
 	}
-	sh.m[key] = e
+	sh.m[k] = e
 	sh.mu.Unlock()
-	return e.properties(), err
+	return &e.p, err
 }
 
 // outcome is one computed row.
@@ -174,7 +194,7 @@ func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outc
 	if err != nil {
 		return outcome{}, err
 	}
-	r, err := regime.CalcChosen(in.Organism, m)
+	r, err := regime.CalcChosen(in.Organism, *m)
 	if err != nil {
 		return outcome{}, err
 	}
@@ -191,7 +211,7 @@ func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outc
 				if err != nil {
 					return regime.Result{}, err
 				}
-				return regime.CalcChosen(d.Organism, m)
+				return regime.CalcChosen(d.Organism, *m)
 			}
 			var u regime.Uncertainty
 			if cfg.Method == regime.MethodLinear {
