@@ -202,17 +202,14 @@ func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outc
 	o := outcome{r: r}
 	if cfg.Uncertainty {
 		if us, idx := in.Uncertain(); len(us) > 0 {
-			eval := func(x []float64) (regime.Result, error) {
-				d := in
-				for i, f := range idx {
-					d = d.With(f, x[i])
-				}
-				m, err := mc.lookup(d.Conditions)
+			lookup := func(c media.Conditions) (media.Properties, error) {
+				p, err := mc.lookup(c)
 				if err != nil {
-					return regime.Result{}, err
+					return media.Properties{}, err
 				}
-				return regime.CalcChosen(d.Organism, *m)
+				return *p, nil
 			}
+			eval := in.Evaluator(idx, lookup, regime.CalcChosen)
 			var u regime.Uncertainty
 			if cfg.Method == regime.MethodLinear {
 				u, err = regime.Linear(us, eval)

@@ -107,7 +107,7 @@ func (u *uncertaintyFlags) propagate(in inputs.Input) (*regime.Uncertainty, erro
 	if len(us) == 0 {
 		return nil, nil
 	}
-	eval := in.Evaluator(idx, regime.CalcChosen)
+	eval := in.Evaluator(idx, media.Lookup, regime.CalcChosen)
 	var res regime.Uncertainty
 	var err error
 	if u.method == regime.MethodLinear {
@@ -179,19 +179,34 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 	return cmd
 }
 
-func runCalc(o *calcOptions, s Streams) error {
+// inputs returns the organism and medium the flags describe; fill gives
+// values for fields the command sets itself when no flag does.
+func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, media.Properties, error) {
 	src := merge(o.organism.source(), o.flags.source())
 	src["medium"] = o.medium
-	if err := o.unc.check(); err != nil {
-		return err
+	for k, v := range fill {
+		if src[k] == "" {
+			src[k] = v
+		}
 	}
-	in, err := inputs.Build(src, o.medium, true)
+	in, err := inputs.Build(src, o.medium, keep)
 	if err != nil {
-		return usageError{err}
+		return in, media.Properties{}, usageError{err}
 	}
 	m, err := media.Lookup(in.Conditions)
 	if err != nil {
-		return fmt.Errorf("%s", trimPkg(err))
+		return in, m, fmt.Errorf("%s", trimPkg(err))
+	}
+	return in, m, nil
+}
+
+func runCalc(o *calcOptions, s Streams) error {
+	if err := o.unc.check(); err != nil {
+		return err
+	}
+	in, m, err := o.inputs(true, nil)
+	if err != nil {
+		return err
 	}
 	r, err := regime.Calc(in.Organism, m)
 	if err != nil {

@@ -3,7 +3,6 @@ package cli
 import (
 	"fmt"
 
-	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
@@ -57,18 +56,9 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 	if o.steps < 3 || o.steps > 10000 {
 		return usagef("--steps %d: give 3 to 10000", o.steps)
 	}
-	src := merge(o.organism.source(), o.flags.source())
-	src["medium"] = o.medium
-	if src["speed"] == "" {
-		src["speed"] = o.from // the curve sets the speed itself
-	}
-	in, err := inputs.Build(src, o.medium, false)
+	in, m, err := o.inputs(false, map[string]string{"speed": o.from}) // the curve sets the speed itself
 	if err != nil {
-		return usageError{err}
-	}
-	m, err := media.Lookup(in.Conditions)
-	if err != nil {
-		return fmt.Errorf("%s", trimPkg(err))
+		return err
 	}
 	pc, err := regime.OrganismPowerCurve(in.Organism, m, lo.SI, hi.SI, o.steps)
 	if err != nil {

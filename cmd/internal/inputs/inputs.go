@@ -422,14 +422,15 @@ func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
 }
 
 // Evaluator returns a function computing the result for values of the
-// uncertain fields idx, looking up the medium for each.
-func (in Input) Evaluator(idx []int, calc func(regime.Organism, media.Properties) (regime.Result, error)) regime.Evaluator {
+// uncertain fields idx, with the medium from lookup (media.Lookup, or a
+// cache in front of it) for each.
+func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (media.Properties, error), calc func(regime.Organism, media.Properties) (regime.Result, error)) regime.Evaluator {
 	return func(x []float64) (regime.Result, error) {
 		d := in
 		for i, f := range idx {
 			d = d.With(f, x[i])
 		}
-		m, err := media.Lookup(d.Conditions)
+		m, err := lookup(d.Conditions)
 		if err != nil {
 			return regime.Result{}, err
 		}
