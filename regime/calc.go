@@ -236,6 +236,14 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)
 	}
+	for _, v := range []float64{r.Reynolds, r.Drag.Chosen.Force, r.Drag.Chosen.Coefficient, r.Power.Total, r.Strouhal, r.Peclet, r.CoastDistance} {
+		if math.IsInf(v, 0) {
+			return r, fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
+		}
+	}
+	if math.IsNaN(r.Reynolds) || math.IsNaN(r.Drag.Chosen.Force) || math.IsNaN(r.Power.Total) {
+		return r, fmt.Errorf("regime: the result is not a number; check the inputs")
+	}
 	return r, nil
 }
 

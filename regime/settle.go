@@ -83,10 +83,16 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 	if err != nil {
 		return Settling{}, err
 	}
+	var s Settling
 	if m.Newtonian() {
-		return sp.solve(m.DynamicViscosity)
+		s, err = sp.solve(m.DynamicViscosity)
+	} else {
+		s, err = sp.nonNewtonian()
 	}
-	return sp.nonNewtonian()
+	if err == nil && (math.IsInf(s.Speed, 0) || math.IsNaN(s.Speed) || math.IsInf(s.Force, 0)) {
+		return s, fmt.Errorf("regime: the settling speed is not a finite number; check the units of size and density")
+	}
+	return s, err
 }
 
 type settleProblem struct {
