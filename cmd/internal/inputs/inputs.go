@@ -79,7 +79,7 @@ var Fields = []Field{
 	{Name: "profile_drag", Flag: "profile-drag", Kind: quantity.Number, Aliases: []string{"profile drag", "profile drag coefficient"}},
 	{Name: "disc", Flag: "disc", Text: true},
 	{Name: "diffusivity", Flag: "diffusivity", Kind: quantity.Diffusivity},
-	{Name: "medium", Flag: "medium", Text: true, Aliases: []string{"fluid"}},
+	{Name: "medium", Flag: "medium", Text: true, Aliases: []string{"fluid", "medium file"}},
 	{Name: "temperature", Flag: "temp", Kind: quantity.Temperature, Aliases: []string{"temp", "t", "water temperature", "air temperature", "sst"}},
 	{Name: "temp_offset", Flag: "temp-offset", Kind: quantity.Temperature, Aliases: []string{"temperature offset"}},
 	{Name: "salinity", Flag: "salinity", Kind: quantity.Salinity, Aliases: []string{"sal"}},
