@@ -59,6 +59,7 @@ type Power struct {
 
 // Result is everything computed for one organism.
 type Result struct {
+	Shape            Shape // the body's shape
 	Medium           media.Properties
 	ShearRate        float64 // characteristic shear rate, 1/s (U/L unless given)
 	Viscosity        float64 // viscosity used, Pa·s: the apparent viscosity at ShearRate
@@ -66,7 +67,7 @@ type Result struct {
 	BinghamNumber    float64 // yield-stress fluids
 	Deborah          float64 // relaxation time × stroke frequency (or × U/L without a stroke)
 	Weissenberg      float64 // relaxation time × shear rate
-	Reynolds         float64 // on the body length (sphere: diameter)
+	Reynolds         float64 // on ChoiceLength: the diameter of a sphere or cylinder, else the length
 	Regime           string
 	BoundaryLayer    string // streamlined bodies at Re ≥ 1000
 	Strouhal         float64
@@ -94,7 +95,7 @@ func CalcChosen(o Organism, m media.Properties) (Result, error) { return calc(o,
 func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	n := math.NaN()
 	note := noter(all)
-	r := Result{Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
+	r := Result{Shape: o.Body.Shape, Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
 		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 	if err := o.Body.Validate(); err != nil {
 		return r, err
@@ -113,7 +114,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		}
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
-	l := o.Body.Length
+	l := ChoiceLength(o.Body) // the diameter of a sphere or cylinder, the length of other bodies
 	r.ShearRate = o.Speed / l
 	if !math.IsNaN(o.ShearRate) {
 		r.ShearRate = o.ShearRate

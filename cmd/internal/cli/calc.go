@@ -123,7 +123,8 @@ func (u *uncertaintyFlags) propagate(in inputs.Input) (*regime.Uncertainty, erro
 
 const calcConventions = `
 Conventions:
-  Reynolds number Re = U L / ν on the --length (for a sphere its diameter);
+  Reynolds number Re = U L / ν on the --length (for a sphere its diameter;
+  for a cylinder moving broadside, on its --diameter);
   each drag law also reports Re on its own length (diameter, length, or the
   diameter of the sphere of equal volume). Drag coefficients state their
   reference area: frontal πd²/4 for spheres, the wetted area of the prolate
@@ -260,7 +261,7 @@ func estimateRows(d regime.DragResult) [][]string {
 
 func calcFields(r regime.Result) []report.Field {
 	fs := []report.Field{
-		report.F("reynolds", "Reynolds number (on --length)", r.Reynolds, 4),
+		report.F("reynolds", "Reynolds number (on the "+reynoldsLength(r)+")", r.Reynolds, 4),
 		{Key: "regime", Label: "flow regime", Value: r.Regime},
 	}
 	if r.BoundaryLayer != "" {

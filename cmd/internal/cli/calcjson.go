@@ -148,7 +148,7 @@ type powerJSON struct {
 func newCalcJSON(r regime.Result) calcJSON {
 	c := r.Drag.Chosen
 	j := calcJSON{
-		Reynolds: r.Reynolds, ReynoldsLength: "length (the diameter for a sphere)", Regime: r.Regime,
+		Reynolds: r.Reynolds, ReynoldsLength: reynoldsLength(r), Regime: r.Regime,
 		BoundaryLayer: r.BoundaryLayer, Strouhal: report.Opt(r.Strouhal), StrouhalBand: r.StrouhalBand,
 		AdvanceRatio: report.Opt(r.AdvanceRatio), ReducedFrequency: report.Opt(r.ReducedFrequency),
 		Drag: dragJSON{Law: c.Law, Source: c.Source, Coefficient: c.Coefficient, ReferenceArea: c.ReferenceArea,
@@ -178,4 +178,15 @@ func newCalcJSON(r regime.Result) calcJSON {
 		j.Medium.ShearRate, j.Medium.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)
 	}
 	return j
+}
+
+// reynoldsLength names the length the reported Reynolds number is on.
+func reynoldsLength(r regime.Result) string {
+	switch r.Shape {
+	case regime.Sphere:
+		return "diameter (the --length of a sphere)"
+	case regime.Cylinder:
+		return "diameter (of the cylinder)"
+	}
+	return "length"
 }
