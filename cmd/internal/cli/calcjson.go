@@ -182,11 +182,8 @@ func newCalcJSON(r regime.Result) calcJSON {
 
 // reynoldsLength names the length the reported Reynolds number is on.
 func reynoldsLength(r regime.Result) string {
-	switch r.Shape {
-	case regime.Sphere:
-		return "diameter (the --length of a sphere)"
-	case regime.Cylinder:
-		return "diameter (of the cylinder)"
+	if r.Shape == regime.Sphere || r.Shape == regime.Cylinder {
+		return "diameter"
 	}
 	return "length"
 }
