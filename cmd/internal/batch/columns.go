@@ -16,6 +16,8 @@ type mapping struct {
 	label  [inputs.NumFields]string // `column "length (mm)"`
 	sdCol  [inputs.NumFields]int    // column of the field's standard uncertainty, −1 if none
 	sdUnit [inputs.NumFields]string // its own unit, if its header gives one
+	conv   [inputs.NumFields]quantity.Conv
+	convOK [inputs.NumFields]bool // conv holds the column's unit (plain numbers convert directly)
 }
 
 func (m *mapping) hasSD() bool {
@@ -162,6 +164,9 @@ func newMapping(header []string, columns, units map[string]string) (*mapping, er
 		m.unit[f] = u
 	}
 	for f := range m.col {
+		if m.col[f] >= 0 && !inputs.Fields[f].Text {
+			m.conv[f], m.convOK[f] = quantity.Resolve(inputs.Fields[f].Kind, m.unit[f])
+		}
 		if m.col[f] >= 0 {
 			m.label[f] = fmt.Sprintf("column %q", strings.TrimSpace(header[m.col[f]]))
 			if u := m.unit[f]; u != "" && !inputs.Fields[f].Text && !quantity.KnownUnit(inputs.Fields[f].Kind, u) {

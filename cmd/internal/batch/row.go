@@ -8,6 +8,7 @@ import (
 	"sync"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
 )
@@ -45,19 +46,51 @@ type rowSource struct {
 }
 
 // constants are the flag values for quantities without a column, looked up
-// once per run rather than once per row.
+// and parsed once per run rather than once per row.
 type constants struct {
 	text  [inputs.NumFields]string
 	label [inputs.NumFields]string
 	ok    [inputs.NumFields]bool
+	value [inputs.NumFields]quantity.Value
+	err   [inputs.NumFields]error
 }
 
 func newConstants(f inputs.Flags) *constants {
 	c := &constants{}
 	for i := range c.text {
 		c.text[i], _, c.label[i], c.ok[i] = f.Lookup(i)
+		if c.ok[i] && !inputs.Fields[i].Text {
+			c.value[i], c.err[i] = quantity.Parse(inputs.Fields[i].Kind, c.text[i])
+		}
 	}
 	return c
+}
+
+// Value implements inputs.Valuer: plain numbers in a column with a known
+// unit are converted without the general parser.
+func (s *rowSource) Value(f int) (quantity.Value, bool, error) {
+	c := s.m.col[f]
+	if c < 0 {
+		return s.consts.value[f], s.consts.ok[f], s.consts.err[f]
+	}
+	if c >= len(s.fields) {
+		return quantity.Value{}, false, nil
+	}
+	t := strings.TrimSpace(s.fields[c])
+	if t == "" {
+		return quantity.Value{}, false, nil
+	}
+	if s.m.sdCol[f] < 0 && s.m.convOK[f] {
+		if v, ok := quantity.PlainNumber(t); ok {
+			return s.m.conv[f].Apply(v), true, nil
+		}
+	}
+	text, unit, _, ok := s.Lookup(f)
+	if !ok {
+		return quantity.Value{}, false, nil
+	}
+	v, err := quantity.ParseDefault(inputs.Fields[f].Kind, text, unit)
+	return v, err == nil, err
 }
 
 func (s *rowSource) Lookup(f int) (string, string, string, bool) {

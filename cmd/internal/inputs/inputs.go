@@ -120,16 +120,40 @@ type Source interface {
 	Lookup(field int) (text, defUnit, label string, ok bool)
 }
 
+// Valuer is an optional fast path of a Source that parses numbers itself
+// (a table with a unit per column): ok is false when the field is absent.
+type Valuer interface {
+	Value(field int) (v quantity.Value, ok bool, err error)
+}
+
 // reader parses fields from a Source and keeps the first error.
 type reader struct {
-	src Source
-	err error
+	src    Source
+	valuer Valuer
+	err    error
+}
+
+func newReader(src Source) *reader {
+	v, _ := src.(Valuer)
+	return &reader{src: src, valuer: v}
 }
 
 func (r *reader) value(field int) quantity.Value {
 	nan := quantity.Value{SI: math.NaN()}
 	if r.err != nil {
 		return nan
+	}
+	if r.valuer != nil {
+		v, ok, err := r.valuer.Value(field)
+		if err != nil {
+			_, _, label, _ := r.src.Lookup(field)
+			r.err = &FieldError{Field: field, Label: label, Err: err}
+			return nan
+		}
+		if !ok {
+			return nan
+		}
+		return v
 	}
 	text, unit, label, ok := r.src.Lookup(field)
 	if !ok || text == "" {
@@ -164,7 +188,7 @@ type Input struct {
 // applies when no medium is given. With keep, Values holds every parsed
 // field, for uncertainty propagation.
 func Build(src Source, defaultMedium string, keep bool) (Input, error) {
-	rd := &reader{src: src}
+	rd := newReader(src)
 	var in Input
 	lengthText, lengthLabel := rd.text(Length)
 	if lengthText == "" {
@@ -271,7 +295,7 @@ func orName(label, name string) string {
 
 // Conditions reads the medium fields of src for the named medium.
 func Conditions(src Source, medium string) (media.Conditions, error) {
-	return (&reader{src: src}).conditions(medium, nil)
+	return newReader(src).conditions(medium, nil)
 }
 
 func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {

@@ -326,6 +326,41 @@ func KnownUnit(k Kind, u string) bool {
 	return ok
 }
 
+// Conv converts numbers in one unit of one kind to the library's unit.
+type Conv struct {
+	c    conv
+	unit string
+}
+
+// Resolve returns the conversion for unit (or the kind's bare-number
+// meaning when unit is empty), so that a column of plain numbers can be
+// converted without a lookup per cell.
+func Resolve(k Kind, unit string) (Conv, bool) {
+	if unit == "" {
+		if k == Angle {
+			return Conv{c: units[Angle]["deg"]}, true
+		}
+		if bareOK[k] {
+			return Conv{c: conv{factor: 1}}, true
+		}
+		return Conv{}, false
+	}
+	c, ok := units[k][unit]
+	if !ok {
+		c, ok = units[k][normalise(unit)]
+	}
+	return Conv{c: c, unit: unit}, ok
+}
+
+// Apply converts a plain number.
+func (c Conv) Apply(v float64) Value {
+	return Value{SI: v*c.c.factor + c.c.offset, Unit: c.unit, PerBodyLength: c.c.note == "bl", Absolute: c.c.note == "abs"}
+}
+
+// PlainNumber parses text made only of an ASCII decimal number, the fast
+// path for data sheets; anything else (units, uncertainty, NaN) is false.
+func PlainNumber(text string) (float64, bool) { return plainNumber(text) }
+
 // plainNumber parses text made only of an ASCII decimal number.
 func plainNumber(text string) (float64, bool) {
 	if text == "" || len(text) > 32 {
