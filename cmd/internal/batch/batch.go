@@ -71,6 +71,7 @@ type result struct {
 	out                            []byte
 	table                          [][]string
 	rejects                        []Reject
+	rows                           int // records in the chunk, for numbering rows
 	read, written, blank, filtered int
 	flags                          map[string]int
 }
@@ -222,7 +223,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	go func() { wg.Wait(); close(results) }()
 
 	pending := map[int]result{}
-	next := 0
+	next, rowBase := 0, 0
 	var runErr error
 	for r := range results {
 		pending[r.seq] = r
@@ -242,11 +243,13 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			}
 			table = append(table, pr.table...)
 			for _, rj := range pr.rejects {
+				rj.Row += rowBase
 				if err := reject(rj); err != nil && runErr == nil {
 					runErr = err
 					cancel()
 				}
 			}
+			rowBase += pr.rows
 			sum.Read += pr.read
 			sum.Written += pr.written
 			sum.Rejected += len(pr.rejects)

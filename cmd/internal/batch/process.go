@@ -25,11 +25,12 @@ type processor struct {
 
 func (p *processor) process(c *chunk) result {
 	res := result{seq: c.seq, flags: map[string]int{}}
+	row := 0 // within the chunk; the writer adds the rows before it
 	for _, l := range c.overlong {
-		res.rejects = append(res.rejects, Reject{Line: l, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
+		row++
+		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
 		res.read++
 	}
-	row := c.firstRow
 	out := make([]byte, 0, len(c.data)+len(c.data)/2)
 	eachRecord(c.data, p.cfg.InFormat != JSONL, func(rec []byte, off int) {
 		if blank(rec) {
@@ -109,6 +110,7 @@ func (p *processor) process(c *chunk) result {
 		}
 	})
 	res.out = out
+	res.rows = row
 	return res
 }
 

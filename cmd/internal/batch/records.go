@@ -17,9 +17,8 @@ const chunkSize = 256 << 10
 type chunk struct {
 	seq       int
 	data      []byte
-	firstLine int // line number of the first byte of data (1-based)
-	firstRow  int // number of data rows before this chunk
-	overlong  []int
+	firstLine int   // line number of the first byte of data (1-based)
+	overlong  []int // lines of records skipped for length just before data
 	eof       bool
 }
 
@@ -31,7 +30,6 @@ type chunker struct {
 	buf      []byte
 	quotes   bool
 	line     int
-	rows     int
 	seq      int
 	eof      bool
 	overlong []int
@@ -44,7 +42,11 @@ func newChunker(r io.Reader, quotes bool, line int) *chunker {
 // next returns the next chunk, or io.EOF.
 func (c *chunker) next() (*chunk, error) {
 	for {
-		if cut := c.boundary(); cut > 0 && (len(c.buf) >= chunkSize || c.eof) {
+		cut := 0
+		if len(c.buf) >= chunkSize || c.eof {
+			cut = c.boundary()
+		}
+		if cut > 0 {
 			return c.emit(cut), nil
 		}
 		if c.eof {
@@ -53,7 +55,7 @@ func (c *chunker) next() (*chunk, error) {
 			}
 			return nil, io.EOF
 		}
-		if len(c.buf) >= maxRecord && c.boundary() == 0 {
+		if len(c.buf) >= maxRecord {
 			if err := c.skipOverlong(); err != nil {
 				return nil, err
 			}
@@ -108,11 +110,10 @@ func (c *chunker) emit(cut int) *chunk {
 	copy(data, c.buf[:cut])
 	rest := copy(c.buf, c.buf[cut:])
 	c.buf = c.buf[:rest]
-	ch := &chunk{seq: c.seq, data: data, firstLine: c.line, firstRow: c.rows, overlong: c.overlong, eof: c.eof && rest == 0}
+	ch := &chunk{seq: c.seq, data: data, firstLine: c.line, overlong: c.overlong, eof: c.eof && rest == 0}
 	c.overlong = nil
 	c.seq++
 	c.line += bytes.Count(data, []byte{'\n'})
-	c.rows += countRecords(data, c.quotes)
 	return ch
 }
 
@@ -130,31 +131,18 @@ func (c *chunker) skipOverlong() error {
 				if !in {
 					rest := copy(c.buf, c.buf[i+1:])
 					c.buf = c.buf[:rest]
-					c.rows++
 					return nil
 				}
 			}
 		}
 		c.buf = c.buf[:0]
 		if c.eof {
-			c.rows++
 			return nil
 		}
 		if err := c.fill(); err != nil {
 			return err
 		}
 	}
-}
-
-// countRecords counts non-blank records in data.
-func countRecords(data []byte, quotes bool) int {
-	n := 0
-	eachRecord(data, quotes, func(rec []byte, _ int) {
-		if !blank(rec) {
-			n++
-		}
-	})
-	return n
 }
 
 func blank(rec []byte) bool { return len(bytes.TrimSpace(rec)) == 0 }
