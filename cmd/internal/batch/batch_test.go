@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"context"
 	"encoding/csv"
+	"encoding/json"
 	"fmt"
 	"math"
 	"os"
@@ -257,5 +258,51 @@ func TestUncertaintyColumnsDeterministic(t *testing.T) {
 		if !(lo < re && re < hi) {
 			t.Errorf("row %s: Re %g outside its interval %g–%g", r[0], re, lo, hi)
 		}
+	}
+}
+
+// JSON Lines in: members carried through unchanged in JSONL output, keys of
+// the first object as CSV columns, a row with another key rejected, a
+// non-object line rejected, numbers or strings both accepted as values.
+func TestJSONLines(t *testing.T) {
+	in := `{"id": 1, "length (mm)": 300, "speed (cm/s)": "60", "note": {"nested": true}}
+{"id": 2, "length (mm)": "12 mm", "speed (cm/s)": 5}
+{"id": 3, "length (mm)": 12, "speed (cm/s)": 5, "extra": 1}
+[1, 2, 3]
+`
+	out, rejects, sum := runBatch(t, []byte(in), Config{InFormat: JSONL, OutFormat: JSONL})
+	if sum.Read != 4 || sum.Written != 2 || len(rejects) != 2 {
+		t.Fatalf("read %d written %d rejects %v", sum.Read, sum.Written, rejects)
+	}
+	if !strings.Contains(rejects[0].Reason, `key "extra"`) || rejects[0].Line != 3 || !strings.Contains(rejects[1].Reason, "not a JSON object") {
+		t.Errorf("rejects %+v", rejects)
+	}
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	var first map[string]any
+	if err := json.Unmarshal([]byte(lines[0]), &first); err != nil {
+		t.Fatalf("output is not JSON: %v\n%s", err, lines[0])
+	}
+	if first["speed (cm/s)"] != "60" || first["note"].(map[string]any)["nested"] != true || first["regime"] != "inertial" {
+		t.Errorf("first row %v", first)
+	}
+	if _, ok := first["reynolds"].(float64); !ok {
+		t.Errorf("reynolds is not a number: %v", first["reynolds"])
+	}
+	csvOut, _, _ := runBatch(t, []byte(in), Config{InFormat: JSONL, OutFormat: CSV})
+	if !strings.HasPrefix(csvOut, "id,length (mm),speed (cm/s),note,density_kg_m3") {
+		t.Errorf("CSV header from the first object's keys: %q", strings.SplitN(csvOut, "\n", 2)[0])
+	}
+}
+
+// TSV in, TSV out; a table output for people.
+func TestTSVAndTable(t *testing.T) {
+	in := "species\tlength (mm)\tspeed (cm/s)\ncopepod, adult\t1.5\t2\n"
+	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: TSV, OutFormat: TSV})
+	if len(rejects) != 0 || !strings.HasPrefix(out, "species\tlength (mm)\tspeed (cm/s)\tdensity_kg_m3") || !strings.Contains(out, "copepod, adult\t1.5\t2\t") {
+		t.Errorf("TSV: %v\n%s", rejects, out)
+	}
+	tab, _, _ := runBatch(t, []byte(in), Config{InFormat: TSV, OutFormat: Table})
+	if !strings.Contains(tab, "│ copepod, adult") || !strings.Contains(tab, "reynolds") {
+		t.Errorf("table:\n%s", tab)
 	}
 }
