@@ -98,6 +98,13 @@ func TestBadInputIsOneLine(t *testing.T) {
 		{[]string{"calc", "--length", "12mm"}, "--speed is required", ExitUsage},
 		{[]string{"settle", "--diameter", "1mm", "--density", "998.206kg/m3", "--temp", "20C"}, "neither sinks nor rises", ExitFailure},
 		{[]string{"settle", "--diameter", "1mm"}, "needs --diameter and --density", ExitUsage},
+		{[]string{"medium", "air", "--temp", "20C", "--temp-offset", "5K"}, "either a temperature or an offset", ExitUsage},
+		{[]string{"medium", "seawater", "--depth", "10m", "--pressure", "2bar"}, "either a depth or a pressure", ExitUsage},
+		{[]string{"medium", "air", "--temp-offset", "5F"}, "give the offset in K or °C", ExitUsage},
+		{[]string{"calc", "--length", "1mm", "--speed", "1mm/s", "--uncertainty", "bayes"}, "--uncertainty \"bayes\"", ExitUsage},
+		{[]string{"sweep", "--length", "1mm", "--speed", "1mm/s"}, "sweep needs --vary", ExitUsage},
+		{[]string{"sweep", "--vary", "shape=1:2", "--length", "1mm", "--speed", "1mm/s"}, "not a numeric input", ExitUsage},
+		{[]string{"tabulate", "../../../testdata/batch/lakeside.csv", "--by", "nonesuch"}, "--by: no column \"nonesuch\"", ExitUsage},
 	}
 	for _, c := range cases {
 		_, errs, code := run(t, c.args...)
@@ -388,5 +395,30 @@ func TestCalcUncertaintyJSON(t *testing.T) {
 	again, _, _ := run(t, "calc", "--length", "1mm±10%", "--speed", "1±0.1mm/s", "--draws", "2000", "--format", "json")
 	if again != out {
 		t.Error("same seed gave different output")
+	}
+}
+
+// The standard-atmosphere temperature plus an offset: USSA-76 gives
+// 15 °C at sea level, so --temp-offset 5K makes 20 °C.
+func TestTemperatureOffset(t *testing.T) {
+	out, _, code := run(t, "medium", "air", "--temp-offset", "5K", "--format", "json")
+	if code != 0 || math.Abs(num(t, decode(t, out), "temperature_C")-20) > 1e-9 {
+		t.Errorf("offset: %s", out)
+	}
+}
+
+func TestTabulateJSON(t *testing.T) {
+	out, errs, code := run(t, "tabulate", "../../../testdata/batch/lakeside.csv", "--by", "taxon", "--format", "json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var groups []map[string]any
+	if err := json.Unmarshal([]byte(out), &groups); err != nil || len(groups) != 9 {
+		t.Fatalf("%v, %d groups", err, len(groups))
+	}
+	for _, k := range []string{"group", "rows", "statistics", "regime_share", "fits"} {
+		if _, ok := groups[0][k]; !ok {
+			t.Errorf("group lacks %q", k)
+		}
 	}
 }
