@@ -18,6 +18,12 @@
 //	standard atmosphere          StandardAtmosphere    US Standard Atmosphere 1976 = ISO 2533:1975
 //	moist-air density            MoistAirDensity       CIPM-2007 (Picard et al. 2008)
 //	air viscosity                SutherlandViscosity   Sutherland 1893 with ISO 2533 constants
+//	rheology models              Newtonian … Casson    Ostwald; de Waele; Cross 1965; Carreau 1972;
+//	                                                   Yasuda et al. 1981; Bingham 1916;
+//	                                                   Herschel & Bulkley 1926; Casson 1959
+//	rheometer fits               FitRheology           gonum/optimize on log residuals; AICc
+//	                                                   (Burnham & Anderson 2002)
+//	measured media               MediumFile            this package's schema, version 1
 //
 // A medium at fixed conditions is a [Properties] value. Its
 // [Properties.ApparentViscosity] takes a shear rate, so that a measured
