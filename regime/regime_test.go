@@ -403,3 +403,23 @@ func TestOseenBrennerSphere(t *testing.T) {
 	re := rho * u * d / mu
 	checkRel(t, "Brenner sphere", OseenCorrection(fs, rho, mu), fs*(1+3*re/16), 1e-12)
 }
+
+// Resistive-force coefficients (Gray & Hancock 1955; Lighthill 1976): the
+// drag anisotropy C_N/C_T tends to 2 for very slender filaments, and for a
+// sea-urchin sperm flagellum (a = 0.1 µm, λ = 25 µm) Gray & Hancock give
+// 2(ln(2λ/a) − ½)/(ln(2λ/a) + ½) = 1.70 (closed form). Taylor's (1951)
+// swimming sheet, U/c = (kA)²/2, is the C_N/C_T = 2 case of the wave speed.
+func TestResistiveForce(t *testing.T) {
+	const mu = 1e-3
+	cn, ct := GrayHancockCoefficients(mu, 0.1e-6, 25e-6)
+	l := math.Log(2 * 25e-6 / 0.1e-6)
+	checkRel(t, "GH C_N/C_T", cn/ct, 2*(l-0.5)/(l+0.5), 1e-12)
+	checkRel(t, "GH C_N/C_T value", cn/ct, 1.70, 0.005)
+	cn, ct = GrayHancockCoefficients(mu, 1e-30, 1)
+	checkRel(t, "slender limit", cn/ct, 2, 0.02)
+	cn, ct = LighthillCoefficients(mu, 0.1e-6, 25e-6)
+	q := math.Log(2 * 0.09 * 25e-6 / 0.1e-6)
+	checkRel(t, "Lighthill C_N", cn, 4*math.Pi*mu/(q+0.5), 1e-12)
+	checkRel(t, "Lighthill C_T", ct, 2*math.Pi*mu/q, 1e-12)
+	checkRel(t, "Taylor sheet", WaveSwimmingSpeed(1, 2, 0.3), 0.045, 1e-12)
+}

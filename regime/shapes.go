@@ -114,3 +114,16 @@ func WhiteCylinderCD(re float64) float64 { return 1 + 10*math.Pow(re, -2.0/3) }
 func OseenCorrection(fS, rho, mu float64) float64 {
 	return fS * (1 + fS*rho/(16*math.Pi*mu*mu))
 }
+
+// WaveSwimmingSpeed returns the swimming speed of a headless filament
+// passing small-amplitude planar waves of speed c, U = c (C_N/C_T − 1)(kA)²/2,
+// with k the wavenumber and A the wave amplitude (kA ≪ 1), from
+// resistive-force theory. At C_N/C_T = 2 it is Taylor's swimming sheet,
+// U/c = (kA)²/2.
+//
+// Reference: Gray, J. & Hancock, G. J. (1955), J. Exp. Biol. 32, 802;
+// Lauga, E. & Powers, T. R. (2009), The hydrodynamics of swimming
+// microorganisms, Rep. Prog. Phys. 72, 096601, §4.
+func WaveSwimmingSpeed(c, cnOverCt, kA float64) float64 {
+	return c * (cnOverCt - 1) * kA * kA / 2
+}
