@@ -43,6 +43,18 @@ type rowSource struct {
 	m      *mapping
 	fields []string
 	consts *constants
+	mask   *[inputs.NumFields]bool // fields with a column or a constant
+}
+
+// Mask implements inputs.Valuer.
+func (s *rowSource) Mask() *[inputs.NumFields]bool {
+	if s.mask == nil {
+		s.mask = new([inputs.NumFields]bool)
+		for f := range s.mask {
+			s.mask[f] = s.m.col[f] >= 0 || s.consts.ok[f]
+		}
+	}
+	return s.mask
 }
 
 // constants are the flag values for quantities without a column, looked up

@@ -122,27 +122,35 @@ type Source interface {
 
 // Valuer is an optional fast path of a Source that parses numbers itself
 // (a table with a unit per column): ok is false when the field is absent.
+// Mask, when not nil, says which fields can be present at all, so that
+// absent ones are skipped without a call.
 type Valuer interface {
 	Value(field int) (v quantity.Value, ok bool, err error)
+	Mask() *[NumFields]bool
 }
 
 // reader parses fields from a Source and keeps the first error.
 type reader struct {
 	src    Source
 	valuer Valuer
+	mask   *[NumFields]bool
 	err    error
 }
 
 func newReader(src Source) *reader {
 	v, _ := src.(Valuer)
-	return &reader{src: src, valuer: v}
+	r := &reader{src: src, valuer: v}
+	if v != nil {
+		r.mask = v.Mask()
+	}
+	return r
 }
 
 func (r *reader) value(field int) quantity.Value {
-	nan := quantity.Value{SI: math.NaN()}
-	if r.err != nil {
-		return nan
+	if r.err != nil || r.mask != nil && !r.mask[field] {
+		return quantity.Value{SI: math.NaN()}
 	}
+	nan := quantity.Value{SI: math.NaN()}
 	if r.valuer != nil {
 		v, ok, err := r.valuer.Value(field)
 		if err != nil {
