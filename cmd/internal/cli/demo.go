@@ -5,6 +5,8 @@ import (
 	"context"
 	"encoding/csv"
 	"fmt"
+	"io"
+	"sort"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
@@ -56,7 +58,7 @@ func runDemo(s Streams) error {
 		i := 0
 		return func() ([]string, error) {
 			if i >= len(rs) {
-				return nil, errEOF
+				return nil, io.EOF
 			}
 			i++
 			return rs[i-1], nil
@@ -102,7 +104,7 @@ func runDemo(s Streams) error {
 	for k := range sum.Flags {
 		keys = append(keys, fmt.Sprintf("%s %d", k, sum.Flags[k]))
 	}
-	sortStrings(keys)
+	sort.Strings(keys)
 	fmt.Fprintf(w, "Flags over the survey: %s.\n", strings.Join(keys, ", "))
 	fmt.Fprintln(w, `
 Next:

@@ -7,7 +7,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"sort"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -95,7 +94,3 @@ func Main(args []string, s Streams) int {
 	}
 	return ExitFailure
 }
-
-var errEOF = io.EOF
-
-func sortStrings(s []string) { sort.Strings(s) }
