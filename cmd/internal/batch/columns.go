@@ -185,21 +185,6 @@ func fieldNames() string {
 	return strings.Join(names, ", ")
 }
 
-// Describe lists which column feeds which quantity, for --verbose and tests.
-func (m *mapping) describe() []string {
-	var out []string
-	for f, c := range m.col {
-		if c >= 0 {
-			s := fmt.Sprintf("%s ← %q", inputs.Fields[f].Name, m.header[c])
-			if m.unit[f] != "" {
-				s += " in " + m.unit[f]
-			}
-			out = append(out, s)
-		}
-	}
-	return out
-}
-
 // MatchHeader returns the quantity a header names ("" if none) and the unit
 // it states, by the rules batch uses.
 func MatchHeader(h string) (field, unit string) {
