@@ -330,7 +330,7 @@ func summaryLine(sum batch.Summary, rejects string) string {
 		fmt.Fprintf(&b, ", %d blank lines skipped", sum.Blank)
 	}
 	fmt.Fprintf(&b, ", %.3g s", secs)
-	if secs > 0 {
+	if secs > 0 && sum.Read > 0 {
 		fmt.Fprintf(&b, " (%.3g rows/s)", float64(sum.Read)/secs)
 	}
 	if len(sum.Flags) > 0 {

@@ -2,7 +2,6 @@ package cli
 
 import (
 	"fmt"
-	"math"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -267,18 +266,13 @@ func calcFields(r regime.Result) []report.Field {
 	if r.BoundaryLayer != "" {
 		fs = append(fs, report.Field{Key: "boundary_layer", Label: "boundary layer", Value: r.BoundaryLayer})
 	}
-	opt := func(key, label string, v float64, sig int) {
-		if !math.IsNaN(v) {
-			fs = append(fs, report.F(key, label, v, sig))
-		}
-	}
-	opt("strouhal", "Strouhal number (peak-to-peak)", r.Strouhal, 3)
+	fs = append(fs, report.Maybe("strouhal", "Strouhal number (peak-to-peak)", r.Strouhal, 3))
 	if r.StrouhalBand != "" {
 		fs = append(fs, report.Field{Key: "strouhal_band", Label: "St vs cruising band 0.2–0.4", Value: r.StrouhalBand})
 	}
-	opt("advance_ratio", "advance ratio J", r.AdvanceRatio, 3)
-	opt("reduced_frequency", "reduced frequency k (on forward speed)", r.ReducedFrequency, 3)
 	fs = append(fs,
+		report.Maybe("advance_ratio", "advance ratio J", r.AdvanceRatio, 3),
+		report.Maybe("reduced_frequency", "reduced frequency k (on forward speed)", r.ReducedFrequency, 3),
 		report.Field{Key: "drag_law", Label: "drag law", Value: r.Drag.Chosen.Law},
 		report.F("drag_coefficient", "drag coefficient", r.Drag.Chosen.Coefficient, 4),
 		report.F("drag_N", "drag (N)", r.Drag.Chosen.Force, 4),
@@ -298,15 +292,16 @@ func calcFields(r regime.Result) []report.Field {
 		fs = append(fs, report.F("shear_rate_1_s", "characteristic shear rate (1/s)", r.ShearRate, 4),
 			report.F("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4))
 	}
-	opt("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4)
-	opt("bingham_number", "Bingham number", r.BinghamNumber, 4)
-	opt("deborah", "Deborah number", r.Deborah, 3)
-	opt("weissenberg", "Weissenberg number", r.Weissenberg, 3)
-	opt("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3)
-	opt("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3)
-	opt("peclet", "Péclet number (on --length)", r.Peclet, 3)
-	opt("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3)
-	return fs
+	return append(fs,
+		report.Maybe("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4),
+		report.Maybe("bingham_number", "Bingham number", r.BinghamNumber, 4),
+		report.Maybe("deborah", "Deborah number", r.Deborah, 3),
+		report.Maybe("weissenberg", "Weissenberg number", r.Weissenberg, 3),
+		report.Maybe("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3),
+		report.Maybe("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3),
+		report.Maybe("peclet", "Péclet number (on --length)", r.Peclet, 3),
+		report.Maybe("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3),
+	)
 }
 
 // parseFlagValue checks one flag's text against its field's kind.

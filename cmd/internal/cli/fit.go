@@ -113,6 +113,9 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 	}
 	cr.FieldsPerRecord = -1
 	header, err := cr.Read()
+	if err == io.EOF {
+		return nil, fmt.Errorf("the input is empty: a header line with shear rate and stress or viscosity is needed")
+	}
 	if err != nil {
 		return nil, fmt.Errorf("cannot read the header: %v", err)
 	}

@@ -130,21 +130,16 @@ func newRheologyJSON(p media.Properties) *rheologyJSON {
 func mediumFields(p media.Properties) []report.Field {
 	fs := []report.Field{
 		{Key: "medium", Label: "medium", Value: p.Medium},
+		report.Maybe("temperature_C", "temperature (°C)", p.TemperatureC, 5),
+		report.Maybe("pressure_Pa", "absolute pressure (Pa)", p.PressurePa, 7),
+		report.Maybe("sea_pressure_dbar", "sea pressure (dbar)", p.SeaPressureDbar, 6),
+		report.Maybe("depth_m", "depth (m)", p.DepthM, 6),
+		report.Maybe("altitude_m", "geometric altitude (m)", p.AltitudeM, 6),
+		report.Maybe("geopotential_height_m", "geopotential height (m')", p.GeopotentialM, 6),
+		report.Maybe("relative_humidity_percent", "relative humidity (%)", p.HumidityPercent, 4),
+		report.Maybe("salinity_practical", "practical salinity (PSS-78)", p.SalinityPractical, 6),
+		report.Maybe("salinity_reference_g_kg", "reference-composition salinity (g/kg)", p.SalinityAbsolute, 6),
 	}
-	add := func(key, label string, v float64, sig int) {
-		if !math.IsNaN(v) {
-			fs = append(fs, report.F(key, label, v, sig))
-		}
-	}
-	add("temperature_C", "temperature (°C)", p.TemperatureC, 5)
-	add("pressure_Pa", "absolute pressure (Pa)", p.PressurePa, 7)
-	add("sea_pressure_dbar", "sea pressure (dbar)", p.SeaPressureDbar, 6)
-	add("depth_m", "depth (m)", p.DepthM, 6)
-	add("altitude_m", "geometric altitude (m)", p.AltitudeM, 6)
-	add("geopotential_height_m", "geopotential height (m')", p.GeopotentialM, 6)
-	add("relative_humidity_percent", "relative humidity (%)", p.HumidityPercent, 4)
-	add("salinity_practical", "practical salinity (PSS-78)", p.SalinityPractical, 6)
-	add("salinity_reference_g_kg", "reference-composition salinity (g/kg)", p.SalinityAbsolute, 6)
 	fs = append(fs,
 		report.F("density_kg_m3", "density (kg/m³)", p.Density, 7),
 		report.F("dynamic_viscosity_Pa_s", "dynamic viscosity (Pa·s)", p.DynamicViscosity, 5),
@@ -156,7 +151,7 @@ func mediumFields(p media.Properties) []report.Field {
 			fs = append(fs, report.F(q.Name, "  "+q.Name, q.Value, 5))
 		}
 		fs = append(fs, report.F("shear_rate_min_1_s", "measured from (1/s)", mr.MinRate, 4), report.F("shear_rate_max_1_s", "measured to (1/s)", mr.MaxRate, 4))
-		add("relaxation_time_s", "relaxation time (s)", mr.RelaxationTime, 4)
+		fs = append(fs, report.Maybe("relaxation_time_s", "relaxation time (s)", mr.RelaxationTime, 4))
 	}
 	return fs
 }

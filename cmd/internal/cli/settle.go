@@ -143,19 +143,15 @@ func settleFields(r regime.Settling) []report.Field {
 		report.F("drag_N", "drag = buoyant weight (N)", r.Force, 4),
 		report.F("stokes_speed_m_s", "Stokes' law speed, for comparison (m/s)", r.StokesSpeed, 4),
 		report.F("archimedes", "Archimedes number", r.Archimedes, 4),
+		report.Maybe("shear_rate_1_s", "shear rate U/d (1/s)", r.ShearRate, 4),
+		report.Maybe("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4),
+		report.Maybe("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4),
+		report.Maybe("bingham_number", "Bingham number", r.BinghamNumber, 4),
+		report.Maybe("yield_parameter", "yield parameter Y_g = 3τ_y/(d Δρ g); held at ≥ 0.143", r.YieldParameter, 4),
+		report.Maybe("knudsen", "Knudsen number 2λ/d", r.Knudsen, 3),
 	}
-	add := func(key, label string, v float64, sig int) {
-		if !math.IsNaN(v) {
-			fs = append(fs, report.F(key, label, v, sig))
-		}
-	}
-	add("shear_rate_1_s", "shear rate U/d (1/s)", r.ShearRate, 4)
-	add("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4)
-	add("generalized_reynolds", "generalised Reynolds number", r.GeneralizedRe, 4)
-	add("bingham_number", "Bingham number", r.BinghamNumber, 4)
-	add("yield_parameter", "yield parameter Y_g = 3τ_y/(d Δρ g); held at ≥ 0.143", r.YieldParameter, 4)
-	if r.Knudsen == r.Knudsen {
-		fs = append(fs, report.F("knudsen", "Knudsen number 2λ/d", r.Knudsen, 3), report.F("cunningham", "Cunningham slip factor", r.Cunningham, 4))
+	if !math.IsNaN(r.Knudsen) {
+		fs = append(fs, report.F("cunningham", "Cunningham slip factor", r.Cunningham, 4))
 	}
 	return fs
 }

@@ -114,6 +114,7 @@ func List(w io.Writer, title string, items []string) {
 // human name with its unit for tables.
 type Field struct {
 	Key, Label, Value string
+	optional          bool // left out when Value is empty
 }
 
 // F builds a Field from a number, formatted with sig significant digits in
@@ -122,9 +123,29 @@ func F(key, label string, v float64, sig int) Field {
 	return Field{Key: key, Label: label, Value: Num(v, sig)}
 }
 
+// Maybe builds a Field that is left out of the output when v is NaN: a
+// quantity that does not apply to this result.
+func Maybe(key, label string, v float64, sig int) Field {
+	f := F(key, label, v, sig)
+	f.optional = true
+	return f
+}
+
+// present drops optional fields without a value.
+func present(fs []Field) []Field {
+	out := make([]Field, 0, len(fs))
+	for _, f := range fs {
+		if !(f.optional && f.Value == "") {
+			out = append(out, f)
+		}
+	}
+	return out
+}
+
 // Fields writes a single result as a two-column table (quantity with unit,
 // value) or as a one-row CSV with keys as headers.
 func Fields(w io.Writer, format string, fs []Field) error {
+	fs = present(fs)
 	if format == FormatCSV {
 		h := make([]string, len(fs))
 		r := make([]string, len(fs))
