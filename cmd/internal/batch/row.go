@@ -3,10 +3,10 @@ package batch
 import (
 	"math"
 	"sort"
-	"strconv"
 	"strings"
 	"sync"
 
+	"github.com/flowregime/flowregime/cmd/internal/decimal"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/media"
@@ -299,7 +299,7 @@ func appendNum(b []byte, v float64) []byte {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return b
 	}
-	return strconv.AppendFloat(b, v, 'g', 6, 64)
+	return decimal.AppendG(b, v, 6)
 }
 
 // values returns the computed columns as text, in the order of columns().

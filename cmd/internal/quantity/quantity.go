@@ -15,6 +15,8 @@ import (
 	"strings"
 	"unicode"
 	"unicode/utf8"
+
+	"github.com/flowregime/flowregime/cmd/internal/decimal"
 )
 
 // Kind is the physical quantity a text is read as.
@@ -366,14 +368,8 @@ func plainNumber(text string) (float64, bool) {
 	if text == "" || len(text) > 32 {
 		return 0, false
 	}
-	for i := 0; i < len(text); i++ {
-		c := text[i]
-		if !(c >= '0' && c <= '9' || c == '.' || c == '-' || c == '+' || c == 'e' || c == 'E') {
-			return 0, false
-		}
-	}
-	f, err := strconv.ParseFloat(text, 64)
-	if err != nil || math.IsInf(f, 0) || math.IsNaN(f) {
+	f, ok := decimal.Parse(text)
+	if !ok || math.IsInf(f, 0) {
 		return 0, false
 	}
 	return f, true
