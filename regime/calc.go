@@ -85,23 +85,35 @@ type Result struct {
 
 // Calc computes Reynolds and Strouhal numbers, regime, drag and power for
 // one organism in a medium, with every applicable drag law's estimate.
-func Calc(o Organism, m media.Properties) (Result, error) { return calc(o, m, true) }
+func Calc(o Organism, m media.Properties) (Result, error) {
+	var r Result
+	err := calc(&r, &o, &m, true)
+	return r, err
+}
 
 // CalcChosen is [Calc] with only the chosen drag law evaluated and with
 // warnings that carry their codes only (flight warnings keep their text),
 // for batch work where neither is reported.
-func CalcChosen(o Organism, m media.Properties) (Result, error) { return calc(o, m, false) }
+func CalcChosen(o Organism, m media.Properties) (Result, error) {
+	var r Result
+	err := calc(&r, &o, &m, false)
+	return r, err
+}
 
-func calc(o Organism, m media.Properties, all bool) (Result, error) {
+// CalcChosenInto is [CalcChosen] writing into r, whose Warnings slice it
+// reuses, for loops over many organisms.
+func CalcChosenInto(r *Result, o *Organism, m *media.Properties) error { return calc(r, o, m, false) }
+
+func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	n := math.NaN()
 	note := noter(all)
-	r := Result{Shape: o.Body.Shape, Medium: m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
+	*r = Result{Warnings: r.Warnings[:0], Shape: o.Body.Shape, Medium: *m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
 		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 	if err := o.Body.Validate(); err != nil {
-		return r, err
+		return err
 	}
 	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
-		return r, fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
+		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
 	for _, c := range []struct {
 		name string
@@ -110,7 +122,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 		{"wing length", o.WingLength}, {"chord", o.Chord}, {"wing area", o.WingArea}, {"stroke angle", o.StrokeAngle},
 		{"diffusivity", o.Diffusivity}, {"shear rate", o.ShearRate}, {"relaxation time", o.RelaxationTime}} {
 		if !math.IsNaN(c.v) && !(c.v > 0 && !math.IsInf(c.v, 0)) {
-			return r, fmt.Errorf("regime: %s must be positive, got %g", c.name, c.v)
+			return fmt.Errorf("regime: %s must be positive, got %g", c.name, c.v)
 		}
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
@@ -121,7 +133,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	}
 	r.Viscosity = m.ApparentViscosity(r.ShearRate)
 	if !(r.Viscosity > 0) || math.IsInf(r.Viscosity, 0) {
-		return r, fmt.Errorf("regime: the medium's apparent viscosity at %.3g 1/s is not a positive number", r.ShearRate)
+		return fmt.Errorf("regime: the medium's apparent viscosity at %.3g 1/s is not a positive number", r.ShearRate)
 	}
 	var flowPL [2]float64
 	if !m.Newtonian() {
@@ -157,21 +169,32 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	case !math.IsNaN(o.Frequency) && !math.IsNaN(o.Amplitude):
 		r.Strouhal = Strouhal(o.Frequency, o.Amplitude, o.Speed)
 		r.StrouhalBand = StrouhalBand(r.Strouhal)
-		if ref := refLength(o); o.Amplitude > ref {
-			r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(o), ref))
+		if ref := refLength(*o); o.Amplitude > ref {
+			note.add(&r.Warnings, WarnInconsistent, func() string {
+				return fmt.Sprintf("inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(*o), ref)
+			})
 		}
 		// Screening bound 0.05–1: common practice, no single source; cruising
 		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
 		// manoeuvres and slow hovering flight go beyond it.
 		if r.Strouhal < StrouhalScreenLow || r.Strouhal > StrouhalScreenHigh {
-			r.Warnings = append(r.Warnings, note.f(WarnStrouhal, "strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal))
+			note.add(&r.Warnings, WarnStrouhal, func() string {
+				return fmt.Sprintf("strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal)
+			})
 		}
 	case !math.IsNaN(o.Frequency):
-		r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"))
+		note.add(&r.Warnings, WarnInconsistent, func() string {
+			return "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"
+		})
 	case !math.IsNaN(o.Amplitude):
-		r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"))
+		note.add(&r.Warnings, WarnInconsistent, func() string {
+			return "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"
+		})
 	}
-	wings := o.wings()
+	var wings Wings
+	if !math.IsNaN(o.Span) || !math.IsNaN(o.WingLength) {
+		wings = o.wings()
+	}
 	if !math.IsNaN(o.Frequency) && wings.Length > 0 {
 		phi := wings.StrokeAngle
 		if phi > 0 {
@@ -186,7 +209,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, PowerLawK: flowPL[0], PowerLawN: flowPL[1]}
 	dr, err := drag(o.Body, flow, all)
 	if err != nil {
-		return r, err
+		return err
 	}
 	r.Drag = dr
 	r.Warnings = append(r.Warnings, dr.Warnings...)
@@ -195,15 +218,19 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 	switch {
 	case flyer:
-		fp, err := Flight(o.flightInput(m, r.Viscosity, flowPL))
+		in := o.flightInput(*m, r.Viscosity, wings, note)
+		in.Drag = dr.Chosen.Force // at this speed, already computed
+		fp, err := Flight(in)
 		if err != nil {
-			return r, err
+			return err
 		}
 		r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
 		r.Warnings = append(r.Warnings, fp.Warnings...)
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
-			r.Warnings = append(r.Warnings, note.f(WarnInconsistent, "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"))
+			note.add(&r.Warnings, WarnInconsistent, func() string {
+				return "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"
+			})
 		}
 		eff := o.Efficiency
 		r.Power = Power{Kind: PowerSwimming, Efficiency: eff}
@@ -212,7 +239,7 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 			r.Power = Power{Kind: PowerTowing, Efficiency: 1}
 		}
 		if !(eff > 0 && eff <= 1) {
-			return r, fmt.Errorf("regime: efficiency must be in (0, 1], got %g", eff)
+			return fmt.Errorf("regime: efficiency must be in (0, 1], got %g", eff)
 		}
 		r.Power.Total = SwimmingPower(dr.Chosen.Force, o.Speed, eff)
 	}
@@ -239,13 +266,13 @@ func calc(o Organism, m media.Properties, all bool) (Result, error) {
 	}
 	for _, v := range []float64{r.Reynolds, r.Drag.Chosen.Force, r.Drag.Chosen.Coefficient, r.Power.Total, r.Strouhal, r.Peclet, r.CoastDistance} {
 		if math.IsInf(v, 0) {
-			return r, fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
+			return fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
 		}
 	}
 	if math.IsNaN(r.Reynolds) || math.IsNaN(r.Drag.Chosen.Force) || math.IsNaN(r.Power.Total) {
-		return r, fmt.Errorf("regime: the result is not a number; check the inputs")
+		return fmt.Errorf("regime: the result is not a number; check the inputs")
 	}
-	return r, nil
+	return nil
 }
 
 func (o Organism) wings() Wings {
@@ -289,23 +316,16 @@ func refName(o Organism) string {
 	return "body length"
 }
 
-// flightInput builds the flight model's input for the organism; the body's
-// parasite drag comes from the drag laws at each speed.
-func (o Organism) flightInput(m media.Properties, viscosity float64, pl [2]float64) FlightInput {
+// flightInput builds the flight model's input for the organism, without
+// the body's drag.
+func (o Organism) flightInput(m media.Properties, viscosity float64, wings Wings, note noter) FlightInput {
 	k := o.InducedFactor
 	if math.IsNaN(k) {
 		k = DefaultInducedFactor
 	}
 	return FlightInput{
 		Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: viscosity, InducedFactor: k,
-		Disc: o.Disc, Wings: o.wings(),
-		BodyDrag: func(u float64) float64 {
-			d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: viscosity, PowerLawK: pl[0], PowerLawN: pl[1]})
-			if err != nil {
-				return math.NaN()
-			}
-			return d.Chosen.Force
-		},
+		Disc: o.Disc, Wings: wings, brief: !note,
 	}
 }
 
@@ -318,7 +338,15 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	if err := o.Body.Validate(); err != nil {
 		return PowerCurve{}, err
 	}
-	pc, err := FlightPowerCurve(o.flightInput(m, m.DynamicViscosity, [2]float64{}), lo, hi, steps)
+	in := o.flightInput(m, m.DynamicViscosity, o.wings(), true)
+	in.BodyDrag = func(u float64) float64 { // from the drag laws at each speed
+		d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: m.DynamicViscosity})
+		if err != nil {
+			return math.NaN()
+		}
+		return d.Chosen.Force
+	}
+	pc, err := FlightPowerCurve(in, lo, hi, steps)
 	if err != nil {
 		return pc, err
 	}

@@ -19,7 +19,7 @@ func BlasiusCf(re float64) float64 { return 1.32824 / math.Sqrt(re) }
 //
 // Reference: Schlichting, H. (1979), Boundary-Layer Theory, 7th ed.,
 // ch. 21 (Prandtl–Schlichting, 1932).
-func PrandtlSchlichtingCf(re float64) float64 { return 0.455 / math.Pow(math.Log10(re), 2.58) }
+func PrandtlSchlichtingCf(re float64) float64 { return 0.455 / pow(math.Log10(re), 2.58) }
 
 // ITTC1957Cf returns the ITTC-1957 model–ship correlation line
 // C_F = 0.075/(log₁₀ Re − 2)², for Re ≳ 1e5. It is not a flat-plate law: it
@@ -55,5 +55,5 @@ func TransitionCf(re, reCr float64) float64 {
 // author, ch. 6.
 func HoernerFormFactor(l, d float64) float64 {
 	r := d / l
-	return 1 + 1.5*math.Pow(r, 1.5) + 7*r*r*r
+	return 1 + 1.5*r*math.Sqrt(r) + 7*r*r*r
 }

@@ -25,15 +25,17 @@ func warnf(code, format string, args ...any) Warning {
 	return Warning{Code: code, Message: fmt.Sprintf(format, args...)}
 }
 
-// noter makes warnings with messages, or with codes only (brief) where the
-// messages would not be read, as in batch work.
+// noter adds warnings with messages, or with codes only (brief) where the
+// messages would not be read, as in batch work; msg is called only when
+// its text is wanted, so brief work formats nothing.
 type noter bool
 
-func (full noter) f(code, format string, args ...any) Warning {
-	if !full {
-		return Warning{Code: code}
+func (full noter) add(ws *[]Warning, code string, msg func() string) {
+	w := Warning{Code: code}
+	if full {
+		w.Message = msg()
 	}
-	return warnf(code, format, args...)
+	*ws = append(*ws, w)
 }
 
 // Shape is the idealised body shape used to pick drag laws.
@@ -271,6 +273,28 @@ var Laws = []Law{
 		eval: func(b Body, _ Flow, _ float64) (float64, float64) { return b.DragCoefficient, b.ReferenceArea }},
 }
 
+// lawsByShape indexes Laws by shape, in order.
+var lawsByShape = func() map[Shape][]*Law {
+	m := map[Shape][]*Law{}
+	for i := range Laws {
+		m[Laws[i].Shape] = append(m[Laws[i].Shape], &Laws[i])
+	}
+	return m
+}()
+
+// lawsOf returns the laws for a shape, in the order they are tried.
+func lawsOf(s Shape) []*Law {
+	switch s { // the common shapes without a map lookup
+	case Sphere:
+		return sphereLaws
+	case Spheroid:
+		return spheroidLaws
+	}
+	return lawsByShape[s]
+}
+
+var sphereLaws, spheroidLaws = lawsByShape[Sphere], lawsByShape[Spheroid]
+
 // ChoiceLength is the length whose Reynolds number picks the law: the
 // diameter of a sphere or cylinder, the length of other shapes.
 func ChoiceLength(b Body) float64 {
@@ -332,9 +356,8 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 	note := noter(all)
 	reChoice := f.Density * f.Speed * ChoiceLength(b) / f.Viscosity
 	var chosen *Law
-	for i := range Laws {
-		l := &Laws[i]
-		if l.Shape == b.Shape && (!l.powerLaw || f.PowerLawN > 0) && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
+	for _, l := range lawsOf(b.Shape) {
+		if (!l.powerLaw || f.PowerLawN > 0) && reChoice > l.ChooseLo && reChoice <= l.ChooseHi {
 			chosen = l
 			break
 		}
@@ -357,20 +380,30 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 	}
 	c := res.Chosen
 	if !c.InRange {
-		res.Warnings = append(res.Warnings, note.f(WarnLawOutOfRange, "drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c)))
+		note.add(&res.Warnings, WarnLawOutOfRange, func() string {
+			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c))
+		})
 	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
-		res.Warnings = append(res.Warnings, note.f(WarnDragCrisis, "drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds))
+		note.add(&res.Warnings, WarnDragCrisis, func() string {
+			return fmt.Sprintf("drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds)
+		})
 	}
 	if b.Shape == Rod && b.Length/(b.Diameter/2) < 10 {
-		res.Warnings = append(res.Warnings, note.f(WarnGeometry, "drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2)))
+		note.add(&res.Warnings, WarnGeometry, func() string {
+			return fmt.Sprintf("drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2))
+		})
 	}
 	if c.Law == "Haider–Levenspiel" && (b.Shape == Spheroid || b.Shape == Rod) {
-		res.Warnings = append(res.Warnings, note.f(WarnModel, "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"))
+		note.add(&res.Warnings, WarnModel, func() string {
+			return "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"
+		})
 	}
 	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {
 		if r := b.Length / b.Diameter; r < 2 || r > 10 {
-			res.Warnings = append(res.Warnings, note.f(WarnGeometry, "drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r))
+			note.add(&res.Warnings, WarnGeometry, func() string {
+				return fmt.Sprintf("drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r)
+			})
 		}
 	}
 	return res, nil

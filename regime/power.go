@@ -69,6 +69,9 @@ type FlightInput struct {
 	Disc          string  // DiscSpan or DiscStroke
 	Wings         Wings
 	BodyDrag      func(speed float64) float64 // parasite drag of the body, N
+	Drag          float64                     // the body's drag at Speed, N, used when BodyDrag is nil
+
+	brief noter // warnings with codes only (batch work)
 }
 
 // DefaultInducedFactor is the induced-power factor k used when none is
@@ -118,6 +121,7 @@ func Flight(in FlightInput) (FlightPower, error) {
 		w.Length = w.Span / 2
 	}
 	var fp FlightPower
+	note := !in.brief
 	thrust := in.Mass * 9.80665
 	switch in.Disc {
 	case "", DiscSpan:
@@ -135,8 +139,12 @@ func Flight(in FlightInput) (FlightPower, error) {
 	fp.HoverInduced = k * thrust * fp.HoverVelocity
 	fp.InducedVelocity = InducedVelocity(thrust, in.Density, fp.DiscArea, in.Speed)
 	fp.Induced = k * thrust * fp.InducedVelocity
-	if in.BodyDrag != nil && in.Speed > 0 {
+	switch {
+	case in.Speed == 0:
+	case in.BodyDrag != nil:
 		fp.Parasite = in.BodyDrag(in.Speed) * in.Speed
+	case in.Drag > 0:
+		fp.Parasite = in.Drag * in.Speed
 	}
 	if w.Area > 0 {
 		flap := 0.0
@@ -153,15 +161,19 @@ func Flight(in FlightInput) (FlightPower, error) {
 				fp.ProfileCD = 2 * TransitionCf(fp.ChordReynolds, TransitionReynolds)
 			}
 			if fp.ChordReynolds > 0 && fp.ChordReynolds < 1e4 {
-				fp.Warnings = append(fp.Warnings, warnf(WarnModel, "flight: profile drag taken as flat-plate skin friction at chord Re = %.3g; below about 1e4 real wings' profile drag is several times higher (Ellington 1984, part VI): set the profile-drag coefficient from measurements", fp.ChordReynolds))
+				note.add(&fp.Warnings, WarnModel, func() string {
+					return fmt.Sprintf("flight: profile drag taken as flat-plate skin friction at chord Re = %.3g; below about 1e4 real wings' profile drag is several times higher (Ellington 1984, part VI): set the profile-drag coefficient from measurements", fp.ChordReynolds)
+				})
 			}
 		}
 		if w.Frequency > 0 && !(w.StrokeAngle > 0) {
-			fp.Warnings = append(fp.Warnings, warnf(WarnModel, "flight: no stroke angle or amplitude, so profile power is that of gliding wings (a lower bound for flapping)"))
+			note.add(&fp.Warnings, WarnModel, func() string {
+				return "flight: no stroke angle or amplitude, so profile power is that of gliding wings (a lower bound for flapping)"
+			})
 		}
 		fp.Profile = ProfilePower(in.Density, fp.ProfileCD, w.MeanChord(), w.Length, in.Speed, w.StrokeAngle, w.Frequency)
 	} else {
-		fp.Warnings = append(fp.Warnings, warnf(WarnModel, "flight: no wing area or chord given, so profile power is left out"))
+		note.add(&fp.Warnings, WarnModel, func() string { return "flight: no wing area or chord given, so profile power is left out" })
 	}
 	fp.Total = fp.Induced + fp.Parasite + fp.Profile
 	return fp, nil

@@ -1,5 +1,7 @@
 package regime
 
+import "fmt"
+
 // Screening thresholds for survey data. Each flags a measurement worth a
 // second look, not an impossible one.
 const (
@@ -22,14 +24,24 @@ const (
 
 // Screen returns warnings for measurements that look implausible.
 // Strouhal-number and consistency checks are made by [Calc] itself.
-func Screen(o Organism, r Result) []Warning {
+func Screen(o Organism, r *Result) []Warning { return screen(o, r, true) }
+
+// ScreenInto adds [Screen]'s warnings to r.Warnings with their codes only,
+// for batch work.
+func ScreenInto(o *Organism, r *Result) { r.Warnings = append(r.Warnings, screen(*o, r, false)...) }
+
+func screen(o Organism, r *Result, note noter) []Warning {
 	var ws []Warning
 	bl := o.Speed / o.Body.Length
 	switch {
 	case bl > maxRelativeSpeed:
-		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl))
+		note.add(&ws, WarnSpeed, func() string {
+			return fmt.Sprintf("speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl)
+		})
 	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && r.Medium.Medium != "air":
-		ws = append(ws, warnf(WarnSpeed, "speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl))
+		note.add(&ws, WarnSpeed, func() string {
+			return fmt.Sprintf("speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl)
+		})
 	}
 	return ws
 }

@@ -102,7 +102,7 @@ func LambCylinderCD(re float64) float64 {
 //
 // Reference: White, F. M. (2006), Viscous Fluid Flow, 3rd ed., McGraw-Hill,
 // ch. 3.
-func WhiteCylinderCD(re float64) float64 { return 1 + 10*math.Pow(re, -2.0/3) }
+func WhiteCylinderCD(re float64) float64 { return 1 + 10*pow(re, -2.0/3) }
 
 // OseenCorrection returns the creeping-flow drag fS (N) of a body translating
 // along an axis of symmetry corrected for the first effect of inertia,

@@ -30,7 +30,7 @@ func ProudmanPearsonCD(re float64) float64 {
 //
 // Reference: Schiller, L. & Naumann, A. (1933), Über die grundlegenden
 // Berechnungen bei der Schwerkraftaufbereitung, Z. Ver. Dtsch. Ing. 77, 318.
-func SchillerNaumannCD(re float64) float64 { return 24 / re * (1 + 0.15*math.Pow(re, 0.687)) }
+func SchillerNaumannCD(re float64) float64 { return 24 / re * (1 + 0.15*pow(re, 0.687)) }
 
 // CliftGauvinCD returns
 // C_D = (24/Re)(1 + 0.15 Re^0.687) + 0.42/(1 + 4.25e4 Re^−1.16), smooth and
@@ -40,7 +40,7 @@ func SchillerNaumannCD(re float64) float64 { return 24 / re * (1 + 0.15*math.Pow
 // 14–28; as given in Clift, Grace & Weber (1978), Bubbles, Drops, and
 // Particles, Academic Press,.
 func CliftGauvinCD(re float64) float64 {
-	return 24/re*(1+0.15*math.Pow(re, 0.687)) + 0.42/(1+4.25e4*math.Pow(re, -1.16))
+	return 24/re*(1+0.15*pow(re, 0.687)) + 0.42/(1+4.25e4*pow(re, -1.16))
 }
 
 // StandardCurveCD returns the standard drag curve of a smooth sphere, the
@@ -53,17 +53,17 @@ func StandardCurveCD(re float64) float64 {
 	case re <= 0.01:
 		return 3.0/16 + 24/re
 	case re <= 20:
-		return 24 / re * (1 + 0.1315*math.Pow(re, 0.82-0.05*w))
+		return 24 / re * (1 + 0.1315*pow(re, 0.82-0.05*w))
 	case re <= 260:
-		return 24 / re * (1 + 0.1935*math.Pow(re, 0.6305))
+		return 24 / re * (1 + 0.1935*pow(re, 0.6305))
 	case re <= 1500:
-		return math.Pow(10, 1.6435-1.1242*w+0.1558*w*w)
+		return exp10(1.6435 - 1.1242*w + 0.1558*w*w)
 	case re <= 1.2e4:
-		return math.Pow(10, -2.4571+2.5558*w-0.9295*w*w+0.1049*w*w*w)
+		return exp10(-2.4571 + 2.5558*w - 0.9295*w*w + 0.1049*w*w*w)
 	case re <= 4.4e4:
-		return math.Pow(10, -1.9181+0.6370*w-0.0636*w*w)
+		return exp10(-1.9181 + 0.6370*w - 0.0636*w*w)
 	case re <= 3.38e5:
-		return math.Pow(10, -4.3390+1.5809*w-0.1546*w*w)
+		return exp10(-4.3390 + 1.5809*w - 0.1546*w*w)
 	case re <= 4e5:
 		return 29.78 - 5.3*w
 	case re <= 1e6:
@@ -93,5 +93,5 @@ func HaiderLevenspielCD(re, phi float64) float64 {
 	b := 0.0964 + 0.5565*phi
 	c := math.Exp(4.905 - 13.8944*phi + 18.4222*phi*phi - 10.2599*phi*phi*phi)
 	d := math.Exp(1.4681 + 12.2584*phi - 20.7322*phi*phi + 15.8855*phi*phi*phi)
-	return 24/re*(1+a*math.Pow(re, b)) + c/(1+d/re)
+	return 24/re*(1+a*pow(re, b)) + c/(1+d/re)
 }

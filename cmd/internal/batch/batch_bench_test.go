@@ -53,10 +53,11 @@ func BenchmarkRow(b *testing.B) {
 	}
 	cache := newMediumCache()
 	cfg := &Config{DefaultMedium: "freshwater"}
-	consts := newConstants(inputs.Flags{})
+	rc := newRowCells(m, inputs.Flags{})
+	var s scratch
 	b.ResetTimer()
 	for i := range b.N {
-		if _, err := compute(&rowSource{m: m, fields: rows[i%len(rows)], consts: consts}, cfg, cache, 1); err != nil {
+		if _, err := compute(rc.fill(rows[i%len(rows)]), cfg, cache, 1, &s); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -20,7 +20,8 @@ type processor struct {
 	cache           *mediumCache
 	fields          []string
 	vals            []string
-	src             rowSource
+	cells           *rowCells
+	scratch         scratch
 }
 
 func (p *processor) process(c *chunk) result {
@@ -56,11 +57,10 @@ func (p *processor) process(c *chunk) result {
 			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: string(rec)})
 			return
 		}
-		if p.src.consts == nil {
-			p.src = rowSource{m: p.m, consts: newConstants(p.cfg.Constants)}
+		if p.cells == nil {
+			p.cells = newRowCells(p.m, p.cfg.Constants)
 		}
-		p.src.fields = p.fields
-		o, err := compute(&p.src, &p.cfg, p.cache, p.cfg.Seed^fnv64(rec))
+		o, err := compute(p.cells.fill(p.fields), &p.cfg, p.cache, p.cfg.Seed^fnv64(rec), &p.scratch)
 		if err == nil && !p.cfg.Uncertainty && (bytes.Contains(rec, []byte("±")) || bytes.Contains(rec, []byte("+-"))) {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
 		}

@@ -37,93 +37,58 @@ func (cfg Config) columns() []string {
 	return Computed
 }
 
-// rowSource serves one row's cells, with flag constants for quantities that
-// have no column.
-type rowSource struct {
-	m      *mapping
-	fields []string
-	consts *constants
-	mask   *[inputs.NumFields]bool // fields with a column or a constant
+// rowCells reads rows into inputs.Cells: the flag constants once, the
+// columns row by row, plain numbers converted by the column's unit without
+// the general parser.
+type rowCells struct {
+	m     *mapping
+	cells inputs.Cells
+	cols  []int // fields with a column
 }
 
-// Mask implements inputs.Valuer.
-func (s *rowSource) Mask() *[inputs.NumFields]bool {
-	if s.mask == nil {
-		s.mask = new([inputs.NumFields]bool)
-		for f := range s.mask {
-			s.mask[f] = s.m.col[f] >= 0 || s.consts.ok[f]
+func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
+	rc := &rowCells{m: m}
+	rc.cells.Read(constants)
+	for f := range inputs.Fields {
+		if m.col[f] >= 0 {
+			rc.cols = append(rc.cols, f)
+			rc.cells.Label[f] = m.label[f]
 		}
 	}
-	return s.mask
+	return rc
 }
 
-// constants are the flag values for quantities without a column, looked up
-// and parsed once per run rather than once per row.
-type constants struct {
-	text  [inputs.NumFields]string
-	label [inputs.NumFields]string
-	ok    [inputs.NumFields]bool
-	value [inputs.NumFields]quantity.Value
-	err   [inputs.NumFields]error
-}
-
-func newConstants(f inputs.Flags) *constants {
-	c := &constants{}
-	for i := range c.text {
-		c.text[i], _, c.label[i], c.ok[i] = f.Lookup(i)
-		if c.ok[i] && !inputs.Fields[i].Text {
-			c.value[i], c.err[i] = quantity.Parse(inputs.Fields[i].Kind, c.text[i])
+// fill reads one row's fields; the cells are valid until the next call.
+func (rc *rowCells) fill(fields []string) *inputs.Cells {
+	c, m := &rc.cells, rc.m
+	for _, f := range rc.cols {
+		t := ""
+		if col := m.col[f]; col < len(fields) {
+			t = strings.TrimSpace(fields[col])
 		}
-	}
-	return c
-}
-
-// Value implements inputs.Valuer: plain numbers in a column with a known
-// unit are converted without the general parser.
-func (s *rowSource) Value(f int) (quantity.Value, bool, error) {
-	c := s.m.col[f]
-	if c < 0 {
-		return s.consts.value[f], s.consts.ok[f], s.consts.err[f]
-	}
-	if c >= len(s.fields) {
-		return quantity.Value{}, false, nil
-	}
-	t := strings.TrimSpace(s.fields[c])
-	if t == "" {
-		return quantity.Value{}, false, nil
-	}
-	if s.m.sdCol[f] < 0 && s.m.convOK[f] {
-		if v, ok := quantity.PlainNumber(t); ok {
-			return s.m.conv[f].Apply(v), true, nil
+		c.Given[f], c.Err[f], c.Text[f] = t != "", nil, t
+		if t == "" || inputs.Fields[f].Text {
+			continue
 		}
-	}
-	text, unit, _, ok := s.Lookup(f)
-	if !ok {
-		return quantity.Value{}, false, nil
-	}
-	v, err := quantity.ParseDefault(inputs.Fields[f].Kind, text, unit)
-	return v, err == nil, err
-}
-
-func (s *rowSource) Lookup(f int) (string, string, string, bool) {
-	if c := s.m.col[f]; c >= 0 {
-		if c >= len(s.fields) {
-			return "", "", s.m.label[f], false
+		if m.sdCol[f] < 0 && m.convOK[f] {
+			if v, ok := quantity.PlainNumber(t); ok {
+				c.Value[f] = m.conv[f].Apply(v)
+				continue
+			}
 		}
-		t := strings.TrimSpace(s.fields[c])
-		if sc := s.m.sdCol[f]; sc >= 0 && sc < len(s.fields) && t != "" {
-			if sd := strings.TrimSpace(s.fields[sc]); sd != "" {
+		if sc := m.sdCol[f]; sc >= 0 && sc < len(fields) {
+			if sd := strings.TrimSpace(fields[sc]); sd != "" {
 				// "12" and "1" in a column in mm, or "12mm" and "0.1cm".
-				if u := s.m.sdUnit[f]; u != "" {
-					t = t + s.m.unit[f] + "±" + sd + u
+				if u := m.sdUnit[f]; u != "" {
+					t = t + m.unit[f] + "±" + sd + u
 				} else {
 					t = t + "±" + sd
 				}
 			}
 		}
-		return t, s.m.unit[f], s.m.label[f], t != ""
+		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, m.unit[f])
 	}
-	return s.consts.text[f], "", s.consts.label[f], s.consts.ok[f]
+	return c
 }
 
 // mediumCache holds medium properties by condition, shared by the workers
@@ -221,17 +186,24 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	return &e.p, err
 }
 
-// outcome is one computed row.
+// outcome is one computed row; r and flags belong to the worker's scratch
+// and are valid until its next row.
 type outcome struct {
-	r     regime.Result
+	r     *regime.Result
 	flags []string
 	unc   *regime.Uncertainty
 }
 
+// scratch is a worker's reusable space for one row's results.
+type scratch struct {
+	r     regime.Result
+	flags []string
+}
+
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
 // uncertainty of the row's values, seeded by seed.
-func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outcome, error) {
-	in, err := inputs.Build(src, cfg.DefaultMedium, cfg.Uncertainty)
+func compute(c *inputs.Cells, cfg *Config, mc *mediumCache, seed uint64, s *scratch) (outcome, error) {
+	in, err := inputs.BuildCells(c, cfg.DefaultMedium, cfg.Uncertainty)
 	if err != nil {
 		return outcome{}, err
 	}
@@ -239,11 +211,11 @@ func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outc
 	if err != nil {
 		return outcome{}, err
 	}
-	r, err := regime.CalcChosen(in.Organism, *m)
-	if err != nil {
+	r := &s.r
+	if err := regime.CalcChosenInto(r, &in.Organism, m); err != nil {
 		return outcome{}, err
 	}
-	ws := append(r.Warnings, regime.Screen(in.Organism, r)...)
+	regime.ScreenInto(&in.Organism, r)
 	o := outcome{r: r}
 	if cfg.Uncertainty {
 		if us, idx := in.Uncertain(); len(us) > 0 {
@@ -265,21 +237,18 @@ func compute(src inputs.Source, cfg *Config, mc *mediumCache, seed uint64) (outc
 				return outcome{}, err
 			}
 			if u.Failed > 0 {
-				ws = append(ws, media.Warning{Code: regime.WarnModel})
+				r.Warnings = append(r.Warnings, media.Warning{Code: regime.WarnModel})
 			}
 			o.unc = &u
 		}
 	}
-	o.flags = flagCodes(ws)
+	s.flags = flagCodes(s.flags[:0], r.Warnings)
+	o.flags = s.flags
 	return o, nil
 }
 
-// flagCodes returns the sorted distinct warning codes.
-func flagCodes(ws []media.Warning) []string {
-	if len(ws) == 0 {
-		return nil
-	}
-	out := make([]string, 0, len(ws))
+// flagCodes appends the sorted distinct warning codes to out.
+func flagCodes(out []string, ws []media.Warning) []string {
 	for _, w := range ws {
 		out = append(out, w.Code)
 	}

@@ -120,70 +120,64 @@ type Source interface {
 	Lookup(field int) (text, defUnit, label string, ok bool)
 }
 
-// Valuer is an optional fast path of a Source that parses numbers itself
-// (a table with a unit per column): ok is false when the field is absent.
-// Mask, when not nil, says which fields can be present at all, so that
-// absent ones are skipped without a call.
-type Valuer interface {
-	Value(field int) (v quantity.Value, ok bool, err error)
-	Mask() *[NumFields]bool
+// Cells is one organism's inputs already read, the form a table row takes
+// once its cells are parsed; Build reads it without a call per field. Read
+// fills one from any Source.
+type Cells struct {
+	Given [NumFields]bool           // the field has a value or a text
+	Value [NumFields]quantity.Value // numeric fields
+	Text  [NumFields]string         // every field's text, trimmed
+	Err   [NumFields]error          // why a given cell could not be read
+	Label [NumFields]string         // where each field comes from, for errors
 }
 
-// reader parses fields from a Source and keeps the first error.
+// Read parses every field of src into c.
+func (c *Cells) Read(src Source) {
+	for f := range c.Given {
+		text, unit, label, ok := src.Lookup(f)
+		text = strings.TrimSpace(text)
+		c.Label[f] = label
+		c.Given[f] = ok && text != ""
+		c.Value[f], c.Err[f], c.Text[f] = quantity.Value{SI: math.NaN()}, nil, text
+		switch {
+		case !c.Given[f], Fields[f].Text:
+		default:
+			c.Value[f], c.Err[f] = quantity.ParseDefault(Fields[f].Kind, text, unit)
+		}
+	}
+}
+
+// reader takes fields from Cells in Build's order and keeps the first
+// error, so that a row's error names the first field that is wrong.
 type reader struct {
-	src    Source
-	valuer Valuer
-	mask   *[NumFields]bool
-	err    error
+	c   *Cells
+	err error
 }
 
 func newReader(src Source) *reader {
-	v, _ := src.(Valuer)
-	r := &reader{src: src, valuer: v}
-	if v != nil {
-		r.mask = v.Mask()
-	}
-	return r
+	c := new(Cells)
+	c.Read(src)
+	return &reader{c: c}
 }
 
 func (r *reader) value(field int) quantity.Value {
-	if r.err != nil || r.mask != nil && !r.mask[field] {
+	if r.err != nil || !r.c.Given[field] {
 		return quantity.Value{SI: math.NaN()}
 	}
-	nan := quantity.Value{SI: math.NaN()}
-	if r.valuer != nil {
-		v, ok, err := r.valuer.Value(field)
-		if err != nil {
-			_, _, label, _ := r.src.Lookup(field)
-			r.err = &FieldError{Field: field, Label: label, Err: err}
-			return nan
-		}
-		if !ok {
-			return nan
-		}
-		return v
+	if err := r.c.Err[field]; err != nil {
+		r.err = &FieldError{Field: field, Label: r.c.Label[field], Err: err}
+		return quantity.Value{SI: math.NaN()}
 	}
-	text, unit, label, ok := r.src.Lookup(field)
-	if !ok || text == "" {
-		return nan
-	}
-	v, err := quantity.ParseDefault(Fields[field].Kind, text, unit)
-	if err != nil {
-		r.err = &FieldError{Field: field, Label: label, Err: err}
-		return nan
-	}
-	return v
+	return r.c.Value[field]
 }
 
 func (r *reader) num(field int) float64 { return r.value(field).SI }
 
-func (r *reader) text(field int) (string, string) {
-	text, _, label, ok := r.src.Lookup(field)
-	if !ok {
-		return "", label
-	}
-	return strings.TrimSpace(text), label
-}
+// text returns a text field, or "" when it is absent; given reports
+// whether any field is, for the required ones.
+func (r *reader) text(field int) (string, string) { return r.c.Text[field], r.c.Label[field] }
+
+func (r *reader) given(field int) (bool, string) { return r.c.Given[field], r.c.Label[field] }
 
 // Input is everything needed to compute one organism.
 type Input struct {
@@ -196,14 +190,21 @@ type Input struct {
 // applies when no medium is given. With keep, Values holds every parsed
 // field, for uncertainty propagation.
 func Build(src Source, defaultMedium string, keep bool) (Input, error) {
-	rd := newReader(src)
+	return newReader(src).build(defaultMedium, keep)
+}
+
+// BuildCells is [Build] from cells already read.
+func BuildCells(c *Cells, defaultMedium string, keep bool) (Input, error) {
+	rd := reader{c: c}
+	return rd.build(defaultMedium, keep)
+}
+
+func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	var in Input
-	lengthText, lengthLabel := rd.text(Length)
-	if lengthText == "" {
+	if ok, lengthLabel := rd.given(Length); !ok {
 		return in, fmt.Errorf("%s is required, e.g. 12mm (a sphere's diameter, or the body length)", orName(lengthLabel, "length"))
 	}
-	speedText, speedLabel := rd.text(Speed)
-	if speedText == "" {
+	if ok, speedLabel := rd.given(Speed); !ok {
 		return in, fmt.Errorf("%s is required, e.g. 0.4m/s or 3BL/s", orName(speedLabel, "speed"))
 	}
 	if keep {
@@ -238,9 +239,9 @@ func Build(src Source, defaultMedium string, keep bool) (Input, error) {
 	if !math.IsNaN(dia) {
 		shape = regime.Spheroid
 	}
-	cdText, _ := rd.text(DragCoefficient)
-	areaText, _ := rd.text(Area)
-	if cdText != "" || areaText != "" {
+	hasCD, _ := rd.given(DragCoefficient)
+	hasArea, _ := rd.given(Area)
+	if hasCD || hasArea {
 		shape = regime.Measured
 	}
 	if s, label := rd.text(Shape); s != "" {
@@ -252,7 +253,7 @@ func Build(src Source, defaultMedium string, keep bool) (Input, error) {
 	}
 	b := regime.Body{Shape: shape, Length: length, Diameter: dia}
 	if shape == regime.Measured {
-		if cdText == "" || areaText == "" {
+		if !hasCD || !hasArea {
 			return in, fmt.Errorf("a measured body needs both a drag coefficient and its reference area")
 		}
 		b.DragCoefficient = rd.num(DragCoefficient)
@@ -329,8 +330,7 @@ func (rd *reader) conditions(medium string, values []quantity.Value) (media.Cond
 		case "K":
 			c.TemperatureOffset = off.SI + media.ZeroCelsiusK
 		default:
-			_, _, label, _ := rd.src.Lookup(TempOffset)
-			return c, fmt.Errorf("%s: give the offset in K or °C, e.g. 5K", label)
+			return c, fmt.Errorf("%s: give the offset in K or °C, e.g. 5K", rd.c.Label[TempOffset])
 		}
 	}
 	if rd.err != nil {

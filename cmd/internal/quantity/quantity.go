@@ -331,7 +331,7 @@ func KnownUnit(k Kind, u string) bool {
 // Conv converts numbers in one unit of one kind to the library's unit.
 type Conv struct {
 	c    conv
-	unit string
+	tmpl Value // Unit and flags of every converted value
 }
 
 // Resolve returns the conversion for unit (or the kind's bare-number
@@ -351,12 +351,14 @@ func Resolve(k Kind, unit string) (Conv, bool) {
 	if !ok {
 		c, ok = units[k][normalise(unit)]
 	}
-	return Conv{c: c, unit: unit}, ok
+	return Conv{c: c, tmpl: Value{Unit: unit, PerBodyLength: c.note == "bl", Absolute: c.note == "abs"}}, ok
 }
 
 // Apply converts a plain number.
-func (c Conv) Apply(v float64) Value {
-	return Value{SI: v*c.c.factor + c.c.offset, Unit: c.unit, PerBodyLength: c.c.note == "bl", Absolute: c.c.note == "abs"}
+func (c *Conv) Apply(v float64) Value {
+	out := c.tmpl
+	out.SI = v*c.c.factor + c.c.offset
+	return out
 }
 
 // PlainNumber parses text made only of an ASCII decimal number, the fast
