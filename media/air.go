@@ -49,7 +49,7 @@ func StandardAtmosphere(h float64) (tK, pPa float64) {
 	if l.lapse == 0 {
 		pPa = l.p * math.Exp(-g0*ussaM0*(h-l.h)/(ussaRstar*l.t)) // eq. (33b)
 	} else {
-		pPa = l.p * math.Pow(l.t/tK, g0*ussaM0/(ussaRstar*l.lapse)) // eq. (33a)
+		pPa = l.p * math.Exp(g0*ussaM0/(ussaRstar*l.lapse)*math.Log(l.t/tK)) // eq. (33a)
 	}
 	return tK, pPa
 }
@@ -60,7 +60,7 @@ func StandardAtmosphere(h float64) (tK, pPa float64) {
 // 2533:1975 and USSA-76 eq. 51). Published for about 100–1900 K.
 func SutherlandViscosity(tK float64) float64 {
 	const beta, s = 1.458e-6, 110.4
-	return beta * math.Pow(tK, 1.5) / (tK + s)
+	return beta * tK * math.Sqrt(tK) / (tK + s)
 }
 
 // SaturationVapourPressure returns the saturation vapour pressure of water
@@ -116,7 +116,10 @@ type AirConditions struct {
 // viscosity is Sutherland's law with ISO 2533 constants (dry air; the effect
 // of humidity on viscosity, under 1 % at biological temperatures per
 // Tsilingiris 2008, is not applied).
-func Air(c AirConditions) (Properties, error) {
+func Air(c AirConditions) (Properties, error) { return air(c, false) }
+
+// air is [Air]; brief leaves out the method notes and the warnings' texts.
+func air(c AirConditions, brief bool) (Properties, error) {
 	if !finite(c.OffsetK, c.AltitudeM, c.HumidityPercent) || math.IsInf(c.TemperatureC, 0) || math.IsInf(c.PressurePa, 0) {
 		return Properties{}, fmt.Errorf("media: air needs finite altitude, humidity and temperature offset")
 	}
@@ -135,14 +138,18 @@ func Air(c AirConditions) (Properties, error) {
 	p.PressurePa = c.PressurePa
 	if math.IsNaN(p.PressurePa) {
 		p.PressurePa = stdP
-		p.Methods = append(p.Methods, fmt.Sprintf("pressure: US Standard Atmosphere 1976 (ISO 2533) at geometric altitude %.6g m = geopotential height %.6g m'", c.AltitudeM, p.GeopotentialM))
+		p.addMethod(brief, func() string {
+			return fmt.Sprintf("pressure: US Standard Atmosphere 1976 (ISO 2533) at geometric altitude %.6g m = geopotential height %.6g m'", c.AltitudeM, p.GeopotentialM)
+		})
 	}
 	if p.PressurePa <= 0 {
 		return Properties{}, fmt.Errorf("media: air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
 	}
 	if math.IsNaN(c.TemperatureC) {
 		p.TemperatureC = stdT - ZeroCelsiusK + c.OffsetK
-		p.Methods = append(p.Methods, fmt.Sprintf("temperature: US Standard Atmosphere 1976 at that height %+.4g K offset", c.OffsetK))
+		p.addMethod(brief, func() string {
+			return fmt.Sprintf("temperature: US Standard Atmosphere 1976 at that height %+.4g K offset", c.OffsetK)
+		})
 	} else {
 		p.TemperatureC = c.TemperatureC
 	}
@@ -157,15 +164,21 @@ func Air(c AirConditions) (Properties, error) {
 	p.Density = MoistAirDensity(tK, p.PressurePa, h, 0.0004)
 	p.DynamicViscosity = SutherlandViscosity(tK)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
-	p.Methods = append(p.Methods,
-		"density: CIPM-2007 moist-air equation (Picard et al. 2008, Metrologia 45, 149), CO2 mole fraction 0.0004",
-		"viscosity: Sutherland's law with ISO 2533 constants (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), dry air",
-	)
+	if !brief {
+		p.Methods = append(p.Methods,
+			"density: CIPM-2007 moist-air equation (Picard et al. 2008, Metrologia 45, 149), CO2 mole fraction 0.0004",
+			"viscosity: Sutherland's law with ISO 2533 constants (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), dry air",
+		)
+	}
 	if p.PressurePa < 60000 || p.PressurePa > 110000 || p.TemperatureC < 15 || p.TemperatureC > 27 {
-		p.Warnings = append(p.Warnings, outOfRange("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa; used at %.4g °C and %.5g hPa, outside that range (the equation is smooth there, its stated 22 ppm uncertainty is not)", p.TemperatureC, p.PressurePa/100))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa; used at %.4g °C and %.5g hPa, outside that range (the equation is smooth there, its stated 22 ppm uncertainty is not)", p.TemperatureC, p.PressurePa/100)
+		})
 	}
 	if tK < 100 || tK > 1900 {
-		p.Warnings = append(p.Warnings, outOfRange("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
+		})
 	}
 	return p, nil
 }

@@ -53,7 +53,13 @@ func or(v, def float64) float64 {
 }
 
 // Lookup returns the properties of the medium at the conditions.
-func Lookup(c Conditions) (Properties, error) {
+func Lookup(c Conditions) (Properties, error) { return lookup(c, false) }
+
+// LookupBrief is [Lookup] without the method notes and with warnings that
+// carry their codes only, for batch work that reads neither.
+func LookupBrief(c Conditions) (Properties, error) { return lookup(c, true) }
+
+func lookup(c Conditions, brief bool) (Properties, error) {
 	for _, v := range []float64{c.TemperatureC, c.TemperatureOffset, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent, c.LatitudeDeg} {
 		if math.IsInf(v, 0) {
 			return Properties{}, fmt.Errorf("media: conditions must be finite numbers, not infinity")
@@ -81,15 +87,15 @@ func Lookup(c Conditions) (Properties, error) {
 		if !math.IsNaN(c.DepthM) || !math.IsNaN(c.SalinityPractical) {
 			return Properties{}, fmt.Errorf("media: depth and salinity apply to water, not air; use altitude or pressure")
 		}
-		return Air(AirConditions{
+		return air(AirConditions{
 			TemperatureC: c.TemperatureC, OffsetK: or(c.TemperatureOffset, 0),
 			PressurePa: c.PressurePa, AltitudeM: or(c.AltitudeM, 0), HumidityPercent: or(c.HumidityPercent, 0),
-		})
+		}, brief)
 	case KindFreshWater, KindSeawater:
 		if !math.IsNaN(c.HumidityPercent) || !math.IsNaN(c.TemperatureOffset) {
 			return Properties{}, fmt.Errorf("media: humidity and temperature offset apply to air, not water")
 		}
-		return water(c)
+		return water(c, brief)
 	case "":
 		return Properties{}, fmt.Errorf("media: no medium given; accepted: %s", strings.Join(Kinds, ", "))
 	default:
@@ -97,7 +103,7 @@ func Lookup(c Conditions) (Properties, error) {
 	}
 }
 
-func water(c Conditions) (Properties, error) {
+func water(c Conditions, brief bool) (Properties, error) {
 	sea := strings.ToLower(c.Medium) == KindSeawater
 	if !sea && !math.IsNaN(c.SalinityPractical) && c.SalinityPractical != 0 {
 		return Properties{}, fmt.Errorf("media: fresh water has no salinity; use seawater for salty water")
@@ -115,7 +121,9 @@ func water(c Conditions) (Properties, error) {
 			return Properties{}, fmt.Errorf("media: surface altitude %.6g m is outside −5 km to 32 km", alt)
 		}
 		surface = ps
-		notes = append(notes, fmt.Sprintf("surface pressure: US Standard Atmosphere 1976 at %.6g m altitude, %.6g Pa", alt, ps))
+		if !brief {
+			notes = append(notes, fmt.Sprintf("surface pressure: US Standard Atmosphere 1976 at %.6g m altitude, %.6g Pa", alt, ps))
+		}
 	}
 	p := c.PressurePa
 	var props Properties
@@ -130,10 +138,12 @@ func water(c Conditions) (Properties, error) {
 					return Properties{}, fmt.Errorf("media: latitude %.4g° is outside −90° to 90°", lat)
 				}
 				p = surface + SeaPressureAtDepth(depth, lat)*1e4
-				notes = append(notes, fmt.Sprintf("depth to pressure: Saunders & Fofonoff 1976 (Fofonoff & Millard 1983) at latitude %.4g°", lat))
+				if !brief {
+					notes = append(notes, fmt.Sprintf("depth to pressure: Saunders & Fofonoff 1976 (Fofonoff & Millard 1983) at latitude %.4g°", lat))
+				}
 			}
 		}
-		props, err = Seawater(t, sp, p)
+		props, err = seawater(t, sp, p, brief)
 	} else {
 		if math.IsNaN(p) {
 			p = surface
@@ -142,7 +152,7 @@ func water(c Conditions) (Properties, error) {
 				notes = append(notes, "depth to pressure: hydrostatic, IAPWS-IF97 density at the mean pressure, standard gravity")
 			}
 		}
-		props, err = FreshWater(t, p)
+		props, err = freshWater(t, p, brief)
 	}
 	if err != nil {
 		return Properties{}, err

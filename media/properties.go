@@ -1,7 +1,6 @@
 package media
 
 import (
-	"fmt"
 	"math"
 )
 
@@ -30,8 +29,15 @@ const (
 	WarnIgnored     = "conditions-ignored"
 )
 
-func outOfRange(format string, args ...any) Warning {
-	return Warning{Code: WarnOutOfRange, Message: fmt.Sprintf(format, args...)}
+// AddWarning appends a warning with its code to ws, and with its text from
+// msg unless brief: work that reads only the codes, such as a batch over a
+// survey, formats nothing.
+func AddWarning(ws *[]Warning, brief bool, code string, msg func() string) {
+	w := Warning{Code: code}
+	if !brief {
+		w.Message = msg()
+	}
+	*ws = append(*ws, w)
 }
 
 // Rheology is a constitutive model of a non-Newtonian fluid: it gives the
@@ -92,4 +98,11 @@ func finite(vs ...float64) bool {
 		}
 	}
 	return true
+}
+
+// addMethod notes a method used, unless brief.
+func (p *Properties) addMethod(brief bool, note func() string) {
+	if !brief {
+		p.Methods = append(p.Methods, note())
+	}
 }

@@ -111,7 +111,11 @@ func DepthAtSeaPressure(p, lat float64) float64 {
 // converted to IPTS-68 by t68 = 1.00024 t90, Saunders 1990); viscosity is
 // Sharqawy et al. (2010) eq. (22) on the IAPWS R12-08 pure-water viscosity at
 // the same temperature and pressure, which carries the pressure dependence.
-func Seawater(tC, sp, pPa float64) (Properties, error) {
+func Seawater(tC, sp, pPa float64) (Properties, error) { return seawater(tC, sp, pPa, false) }
+
+// seawater is [Seawater]; brief leaves out the method notes and the
+// warnings' texts.
+func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 	if !finite(tC, sp, pPa) {
 		return Properties{}, fmt.Errorf("media: sea water needs finite temperature, salinity and pressure")
 	}
@@ -137,25 +141,37 @@ func Seawater(tC, sp, pPa float64) (Properties, error) {
 	muW := WaterViscosity(tK, WaterDensityIF97(tK, pPa))
 	p.DynamicViscosity = SeawaterViscosity(muW, tC, p.SalinityAbsolute)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
-	p.Methods = []string{
-		"density: UNESCO EOS-80 (Millero & Poisson 1981; Fofonoff & Millard 1983), temperature on IPTS-68",
-		"viscosity: Sharqawy, Lienhard & Zubair 2010 eq. 22 on IAPWS R12-08 pure water at the same temperature and pressure",
-		"salinity: practical (PSS-78); reference-composition salinity SR = SP × 35.16504/35 g/kg (Millero et al. 2008)",
+	if !brief {
+		p.Methods = []string{
+			"density: UNESCO EOS-80 (Millero & Poisson 1981; Fofonoff & Millard 1983), temperature on IPTS-68",
+			"viscosity: Sharqawy, Lienhard & Zubair 2010 eq. 22 on IAPWS R12-08 pure water at the same temperature and pressure",
+			"salinity: practical (PSS-78); reference-composition salinity SR = SP × 35.16504/35 g/kg (Millero et al. 2008)",
+		}
 	}
 	if sp > 42 {
-		p.Warnings = append(p.Warnings, outOfRange("sea water: practical salinity %.4g is above the EOS-80 range 0–42; density is extrapolated", sp))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("sea water: practical salinity %.4g is above the EOS-80 range 0–42; density is extrapolated", sp)
+		})
 	}
 	if tC < -2 || tC > 40 {
-		p.Warnings = append(p.Warnings, outOfRange("sea water: %.4g °C is outside the EOS-80 range −2 to 40 °C; density is extrapolated", tC))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("sea water: %.4g °C is outside the EOS-80 range −2 to 40 °C; density is extrapolated", tC)
+		})
 	}
 	if dbar > 10000 {
-		p.Warnings = append(p.Warnings, outOfRange("sea water: sea pressure %.5g dbar is above the EOS-80 limit of 10000 dbar; density is extrapolated", dbar))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("sea water: sea pressure %.5g dbar is above the EOS-80 limit of 10000 dbar; density is extrapolated", dbar)
+		})
 	}
 	if tC < 0 {
-		p.Warnings = append(p.Warnings, outOfRange("sea water: %.4g °C is below the 0 °C lower limit of the Sharqawy et al. viscosity correlation; viscosity is extrapolated", tC))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("sea water: %.4g °C is below the 0 °C lower limit of the Sharqawy et al. viscosity correlation; viscosity is extrapolated", tC)
+		})
 	}
 	if p.SalinityAbsolute > 150 {
-		p.Warnings = append(p.Warnings, outOfRange("sea water: %.4g g/kg is above the 150 g/kg limit of the Sharqawy et al. viscosity correlation", p.SalinityAbsolute))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("sea water: %.4g g/kg is above the 150 g/kg limit of the Sharqawy et al. viscosity correlation", p.SalinityAbsolute)
+		})
 	}
 	return p, nil
 }

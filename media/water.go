@@ -21,9 +21,10 @@ func WaterViscosity(tK, rho float64) float64 {
 	)
 	tb, rb := tK/tStar, rho/rhoStar
 	h := [4]float64{1.67752, 2.20462, 0.6366564, -0.241605}
-	sum := 0.0
-	for i, hi := range h {
-		sum += hi / math.Pow(tb, float64(i))
+	sum, tbi := 0.0, 1.0
+	for _, hi := range h {
+		sum += hi / tbi
+		tbi *= tb
 	}
 	mu0 := 100 * math.Sqrt(tb) / sum // eq. (11)
 	x, y := 1/tb-1, rb-1
@@ -135,7 +136,11 @@ func waterFreezingK(pPa float64) float64 {
 // IAPWS-IF97 density. It is an error for the water to be frozen or boiling at
 // those conditions; outside 0–100 °C and 0–100 MPa the result carries a
 // warning.
-func FreshWater(tC, pPa float64) (Properties, error) {
+func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false) }
+
+// freshWater is [FreshWater]; brief leaves out the method notes and the
+// warnings' texts.
+func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 	if !finite(tC, pPa) {
 		return Properties{}, fmt.Errorf("media: fresh water needs finite temperature and pressure")
 	}
@@ -155,15 +160,21 @@ func FreshWater(tC, pPa float64) (Properties, error) {
 	p.Density = WaterDensityIF97(tK, pPa)
 	p.DynamicViscosity = WaterViscosity(tK, p.Density)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
-	p.Methods = []string{
-		"density: IAPWS-IF97 region 1 (IAPWS R7-97(2012))",
-		"viscosity: IAPWS 2008 formulation (IAPWS R12-08; Huber et al. 2009, J. Phys. Chem. Ref. Data 38, 101)",
+	if !brief {
+		p.Methods = []string{
+			"density: IAPWS-IF97 region 1 (IAPWS R7-97(2012))",
+			"viscosity: IAPWS 2008 formulation (IAPWS R12-08; Huber et al. 2009, J. Phys. Chem. Ref. Data 38, 101)",
+		}
 	}
 	if tC < 0 {
-		p.Warnings = append(p.Warnings, outOfRange("fresh water: %.4g °C is below 0 °C; IAPWS-IF97 region 1 starts at 273.15 K and is extrapolated here", tC))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("fresh water: %.4g °C is below 0 °C; IAPWS-IF97 region 1 starts at 273.15 K and is extrapolated here", tC)
+		})
 	}
 	if pPa > 100e6 {
-		p.Warnings = append(p.Warnings, outOfRange("fresh water: %.4g MPa is above the 100 MPa limit of IAPWS-IF97 region 1; density is extrapolated", pPa/1e6))
+		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+			return fmt.Sprintf("fresh water: %.4g MPa is above the 100 MPa limit of IAPWS-IF97 region 1; density is extrapolated", pPa/1e6)
+		})
 	}
 	return p, nil
 }
@@ -178,7 +189,7 @@ func waterBoilingC(pPa float64) float64 {
 	if pPa >= 22.064e6 {
 		return 373.946 // critical temperature; above it there is no boiling
 	}
-	beta := math.Pow(pPa/1e6, 0.25)
+	beta := math.Sqrt(math.Sqrt(pPa / 1e6))
 	e := beta*beta + n[3]*beta + n[6]
 	f := n[1]*beta*beta + n[4]*beta + n[7]
 	g := n[2]*beta*beta + n[5]*beta + n[8]

@@ -31,11 +31,7 @@ func warnf(code, format string, args ...any) Warning {
 type noter bool
 
 func (full noter) add(ws *[]Warning, code string, msg func() string) {
-	w := Warning{Code: code}
-	if full {
-		w.Message = msg()
-	}
-	*ws = append(*ws, w)
+	media.AddWarning(ws, !bool(full), code, msg)
 }
 
 // Shape is the idealised body shape used to pick drag laws.

@@ -168,7 +168,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	if ok {
 		return &e.p, e.err
 	}
-	p, err := media.Lookup(c)
+	p, err := media.LookupBrief(c)
 	e = &cached{err: err}
 	nan := math.NaN()
 	e.p = media.Properties{Medium: p.Medium, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
