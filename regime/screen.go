@@ -24,24 +24,26 @@ const (
 
 // Screen returns warnings for measurements that look implausible.
 // Strouhal-number and consistency checks are made by [Calc] itself.
-func Screen(o Organism, r *Result) []Warning { return screen(o, r, true) }
+func Screen(o Organism, r *Result) []Warning {
+	var ws []Warning
+	screen(&o, r, true, &ws)
+	return ws
+}
 
 // ScreenInto adds [Screen]'s warnings to r.Warnings with their codes only,
 // for batch work.
-func ScreenInto(o *Organism, r *Result) { r.Warnings = append(r.Warnings, screen(*o, r, false)...) }
+func ScreenInto(o *Organism, r *Result) { screen(o, r, false, &r.Warnings) }
 
-func screen(o Organism, r *Result, note noter) []Warning {
-	var ws []Warning
+func screen(o *Organism, r *Result, note noter, ws *[]Warning) {
 	bl := o.Speed / o.Body.Length
 	switch {
 	case bl > maxRelativeSpeed:
-		note.add(&ws, WarnSpeed, func() string {
+		note.add(ws, WarnSpeed, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl)
 		})
 	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && r.Medium.Medium != "air":
-		note.add(&ws, WarnSpeed, func() string {
+		note.add(ws, WarnSpeed, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl)
 		})
 	}
-	return ws
 }

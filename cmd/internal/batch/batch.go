@@ -120,11 +120,11 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		if err != nil {
 			return sum, err
 		}
-		if blank(rec) {
+		if blank(string(rec)) {
 			return sum, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
 		}
 		headerRaw = rec
-		if header, err = splitFields(nil, rec, delim); err != nil {
+		if header, err = splitFields(nil, string(rec), delim); err != nil {
 			return sum, fmt.Errorf("line 1 (header): %v", err)
 		}
 		line += n
@@ -209,7 +209,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: cache}
+			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: cache, growth: 8}
 			for c := range jobs {
 				r := p.process(c)
 				select {
@@ -241,6 +241,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 				runErr = err
 				cancel()
 			}
+			putBuffer(pr.out)
 			table = append(table, pr.table...)
 			for _, rj := range pr.rejects {
 				rj.Row += rowBase

@@ -41,14 +41,14 @@ func BenchmarkBatchCSV(b *testing.B) {
 func BenchmarkRow(b *testing.B) {
 	data := surveyData(b, 1000)
 	lines := bytes.Split(bytes.TrimSpace(data), []byte{'\n'})
-	header, _ := splitFields(nil, lines[0], ',')
+	header, _ := splitFields(nil, string(lines[0]), ',')
 	m, err := newMapping(header, nil, nil)
 	if err != nil {
 		b.Fatal(err)
 	}
 	var rows [][]string
 	for _, l := range lines[1:] {
-		f, _ := splitFields(nil, l, ',')
+		f, _ := splitFields(nil, string(l), ',')
 		rows = append(rows, f)
 	}
 	cache := newMediumCache()

@@ -1,12 +1,12 @@
 package batch
 
 import (
-	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
 	"strings"
+	"sync"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/report"
@@ -22,6 +22,24 @@ type processor struct {
 	vals            []string
 	cells           *rowCells
 	scratch         scratch
+	growth          int // expected output bytes per input byte, in quarters
+}
+
+// buffers recycles chunks' output buffers: the writer returns each one
+// after writing it.
+var buffers sync.Pool
+
+func getBuffer(size int) []byte {
+	if b, ok := buffers.Get().(*[]byte); ok && cap(*b) >= size {
+		return (*b)[:0]
+	}
+	return make([]byte, 0, size)
+}
+
+func putBuffer(b []byte) {
+	if cap(b) > 0 {
+		buffers.Put(&b)
+	}
 }
 
 func (p *processor) process(c *chunk) result {
@@ -32,8 +50,8 @@ func (p *processor) process(c *chunk) result {
 		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
 		res.read++
 	}
-	out := make([]byte, 0, len(c.data)+len(c.data)/2)
-	eachRecord(c.data, p.cfg.InFormat != JSONL, func(rec []byte, off int) {
+	out := getBuffer(len(c.data) * p.growth / 4)
+	eachRecord(c.data, p.cfg.InFormat != JSONL, func(rec string, off int) {
 		if blank(rec) {
 			res.blank++
 			return
@@ -46,7 +64,7 @@ func (p *processor) process(c *chunk) result {
 		var err error
 		p.fields = p.fields[:0]
 		if p.cfg.InFormat == JSONL {
-			keys, raws, p.fields, err = p.alignJSON(rec)
+			keys, raws, p.fields, err = p.alignJSON([]byte(rec))
 		} else {
 			p.fields, err = splitFields(p.fields, rec, p.delim)
 			if err == nil && len(p.fields) != len(p.m.header) {
@@ -54,18 +72,23 @@ func (p *processor) process(c *chunk) result {
 			}
 		}
 		if err != nil {
-			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: string(rec)})
+			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: strings.Clone(rec)})
 			return
 		}
 		if p.cells == nil {
 			p.cells = newRowCells(p.m, p.cfg.Constants)
 		}
-		o, err := compute(p.cells.fill(p.fields), &p.cfg, p.cache, p.cfg.Seed^fnv64(rec), &p.scratch)
-		if err == nil && !p.cfg.Uncertainty && (bytes.Contains(rec, []byte("±")) || bytes.Contains(rec, []byte("+-"))) {
+		var seed uint64
+		if p.cfg.Uncertainty {
+			seed = p.cfg.Seed ^ fnv64(rec)
+		}
+		cells := p.cells.fill(p.fields)
+		o, err := compute(cells, &p.cfg, p.cache, seed, &p.scratch)
+		if err == nil && !p.cfg.Uncertainty && uncertain(cells) {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
 		}
 		if err != nil {
-			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: string(rec)}
+			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: strings.Clone(rec)}
 			var fe *inputs.FieldError
 			if errors.As(err, &fe) {
 				rj.Reason = fe.Err.Error()
@@ -110,6 +133,11 @@ func (p *processor) process(c *chunk) result {
 		}
 	})
 	res.out = out
+	if len(c.data) > 0 {
+		// Output size per input byte for the next chunk, in quarters, with
+		// room to spare, so that the buffer is not regrown row by row.
+		p.growth = max(p.growth, 4*len(out)/len(c.data)+2)
+	}
 	res.rows = row
 	return res
 }
@@ -196,8 +224,18 @@ func renderTable(w io.Writer, rows [][]string) error {
 	return report.Table(w, rows[0], rows[1:])
 }
 
+// uncertain reports whether any value was given with an uncertainty.
+func uncertain(c *inputs.Cells) bool {
+	for f, given := range c.Given {
+		if given && c.Err[f] == nil && c.Value[f].SD > 0 {
+			return true
+		}
+	}
+	return false
+}
+
 // fnv64 is the FNV-1a hash of b (Fowler, Noll & Vo), used to seed each row.
-func fnv64(b []byte) uint64 {
+func fnv64(b string) uint64 {
 	h := uint64(14695981039346656037)
 	for _, c := range b {
 		h ^= uint64(c)

@@ -16,9 +16,9 @@ const chunkSize = 256 << 10
 // chunk is a run of whole records.
 type chunk struct {
 	seq       int
-	data      []byte
-	firstLine int   // line number of the first byte of data (1-based)
-	overlong  []int // lines of records skipped for length just before data
+	data      string // immutable, so that records and fields are substrings of it
+	firstLine int    // line number of the first byte of data (1-based)
+	overlong  []int  // lines of records skipped for length just before data
 	eof       bool
 }
 
@@ -106,14 +106,13 @@ func (c *chunker) boundary() int {
 }
 
 func (c *chunker) emit(cut int) *chunk {
-	data := make([]byte, cut)
-	copy(data, c.buf[:cut])
+	data := string(c.buf[:cut])
 	rest := copy(c.buf, c.buf[cut:])
 	c.buf = c.buf[:rest]
 	ch := &chunk{seq: c.seq, data: data, firstLine: c.line, overlong: c.overlong, eof: c.eof && rest == 0}
 	c.overlong = nil
 	c.seq++
-	c.line += bytes.Count(data, []byte{'\n'})
+	c.line += strings.Count(data, "\n")
 	return ch
 }
 
@@ -145,11 +144,11 @@ func (c *chunker) skipOverlong() error {
 	}
 }
 
-func blank(rec []byte) bool { return len(bytes.TrimSpace(rec)) == 0 }
+func blank(rec string) bool { return len(strings.TrimSpace(rec)) == 0 }
 
 // eachRecord calls fn for each record of data with its line offset from
 // the chunk's first line; rec excludes the line ending (\n or \r\n).
-func eachRecord(data []byte, quotes bool, fn func(rec []byte, lineOff int)) {
+func eachRecord(data string, quotes bool, fn func(rec string, lineOff int)) {
 	line, start, in := 0, 0, false
 	recLine := 0
 	for i := 0; i < len(data); i++ {
@@ -183,10 +182,9 @@ func eachRecord(data []byte, quotes bool, fn func(rec []byte, lineOff int)) {
 var errQuote = errors.New(`a quoted field is not closed, or has text after its closing quote; write "" for a quote inside a quoted field`)
 
 // splitFields splits one CSV or TSV record into fields (RFC 4180 quoting),
-// appending to dst. The record is copied into one string and unquoted
-// fields are substrings of it, so a row costs one allocation.
-func splitFields(dst []string, rec []byte, delim byte) ([]string, error) {
-	srec := string(rec)
+// appending to dst. Unquoted fields are substrings of the record, so a row
+// without doubled quotes costs no allocation.
+func splitFields(dst []string, srec string, delim byte) ([]string, error) {
 	for i := 0; ; {
 		if i < len(srec) && srec[i] == '"' {
 			j := i + 1
