@@ -66,7 +66,13 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 		if col := m.col[f]; col < len(fields) {
 			t = strings.TrimSpace(fields[col])
 		}
-		c.Given[f], c.Err[f], c.Text[f] = t != "", nil, t
+		c.Given[f] = t != ""
+		if c.Err[f] != nil { // pointer stores only when something changes
+			c.Err[f] = nil
+		}
+		if c.Text[f] != t {
+			c.Text[f] = t
+		}
 		if t == "" || inputs.Fields[f].Text {
 			continue
 		}

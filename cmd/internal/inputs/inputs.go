@@ -161,7 +161,14 @@ func newReader(src Source) *reader {
 }
 
 func (r *reader) value(field int) quantity.Value {
-	if r.err != nil || !r.c.Given[field] {
+	if !r.c.Given[field] {
+		return quantity.Value{SI: math.NaN()}
+	}
+	return r.given(field)
+}
+
+func (r *reader) given(field int) quantity.Value {
+	if r.err != nil {
 		return quantity.Value{SI: math.NaN()}
 	}
 	if err := r.c.Err[field]; err != nil {
@@ -171,13 +178,18 @@ func (r *reader) value(field int) quantity.Value {
 	return r.c.Value[field]
 }
 
-func (r *reader) num(field int) float64 { return r.value(field).SI }
+func (r *reader) num(field int) float64 {
+	if !r.c.Given[field] {
+		return math.NaN()
+	}
+	return r.given(field).SI
+}
 
 // text returns a text field, or "" when it is absent; given reports
 // whether any field is, for the required ones.
 func (r *reader) text(field int) (string, string) { return r.c.Text[field], r.c.Label[field] }
 
-func (r *reader) given(field int) (bool, string) { return r.c.Given[field], r.c.Label[field] }
+func (r *reader) has(field int) (bool, string) { return r.c.Given[field], r.c.Label[field] }
 
 // Input is everything needed to compute one organism.
 type Input struct {
@@ -201,10 +213,10 @@ func BuildCells(c *Cells, defaultMedium string, keep bool) (Input, error) {
 
 func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	var in Input
-	if ok, lengthLabel := rd.given(Length); !ok {
+	if ok, lengthLabel := rd.has(Length); !ok {
 		return in, fmt.Errorf("%s is required, e.g. 12mm (a sphere's diameter, or the body length)", orName(lengthLabel, "length"))
 	}
-	if ok, speedLabel := rd.given(Speed); !ok {
+	if ok, speedLabel := rd.has(Speed); !ok {
 		return in, fmt.Errorf("%s is required, e.g. 0.4m/s or 3BL/s", orName(speedLabel, "speed"))
 	}
 	if keep {
@@ -214,10 +226,11 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 		}
 	}
 	val := func(field int) float64 {
-		v := rd.value(field)
-		if keep {
-			in.Values[field] = v
+		if !keep {
+			return rd.num(field)
 		}
+		v := rd.value(field)
+		in.Values[field] = v
 		return v.SI
 	}
 	length := val(Length)
@@ -239,8 +252,8 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	if !math.IsNaN(dia) {
 		shape = regime.Spheroid
 	}
-	hasCD, _ := rd.given(DragCoefficient)
-	hasArea, _ := rd.given(Area)
+	hasCD, _ := rd.has(DragCoefficient)
+	hasArea, _ := rd.has(Area)
 	if hasCD || hasArea {
 		shape = regime.Measured
 	}
@@ -310,10 +323,11 @@ func Conditions(src Source, medium string) (media.Conditions, error) {
 func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
 	c := media.Unset(medium)
 	get := func(field int) float64 {
-		v := rd.value(field)
-		if values != nil {
-			values[field] = v
+		if values == nil {
+			return rd.num(field)
 		}
+		v := rd.value(field)
+		values[field] = v
 		return v.SI
 	}
 	c.TemperatureC = get(Temperature)
