@@ -1,11 +1,13 @@
 package regime
 
 import (
+	"fmt"
 	"math"
 	"strings"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
+	"gonum.org/v1/gonum/integrate/quad"
 )
 
 func relErr(got, want float64) float64 { return math.Abs(got/want - 1) }
@@ -204,6 +206,20 @@ func TestGlauertInducedVelocity(t *testing.T) {
 // Blade-element profile power in hover against the closed form
 // ρC_D c (πΦf)³ (4/(3π)) R⁴/4 (two wings, simple-harmonic stroke; cycle
 // mean of |sin|³ = 4/(3π)), and gliding against ½ρC_D S V³.
+// The span integral's closed form against gonum's Gauss–Legendre
+// quadrature (quad.Fixed, 200 nodes; the integrand is smooth).
+func TestSpanIntegralAgainstQuadrature(t *testing.T) {
+	for _, c := range []struct{ v, omega, r float64 }{
+		{5, 0, 0.2}, {0, 80, 0.2}, {5, 80, 0.2}, {10, 1, 0.21}, {0.3, 400, 0.012}, {12, 3000, 0.004}, {1e-3, 50, 1},
+	} {
+		want := quad.Fixed(func(x float64) float64 {
+			s := c.v*c.v + c.omega*c.omega*x*x
+			return s * math.Sqrt(s)
+		}, 0, c.r, 200, quad.Legendre{}, 0)
+		checkRel(t, fmt.Sprintf("span integral V=%g ω=%g R=%g", c.v, c.omega, c.r), spanIntegral(c.v, c.omega, c.r), want, 1e-12)
+	}
+}
+
 func TestProfilePowerClosedForms(t *testing.T) {
 	const rho, cd, c, r, phi, f = 1.2, 0.1, 0.01, 0.05, 2.0, 30.0
 	want := rho * cd * c * math.Pow(math.Pi*phi*f, 3) * 4 / (3 * math.Pi) * math.Pow(r, 4) / 4
