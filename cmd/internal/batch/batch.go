@@ -209,7 +209,8 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: cache, growth: 8}
+			local := newLocalMedia(cache, localSlots/workers)
+			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: local, growth: 8}
 			for c := range jobs {
 				r := p.process(c)
 				select {
@@ -276,6 +277,10 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	sum.Elapsed = time.Since(start)
 	return sum, runErr
 }
+
+// localSlots bounds the workers' medium tables together: 1<<18 slots of
+// 64 bytes, 16 MiB.
+const localSlots = 1 << 18
 
 type countingReader struct {
 	r io.Reader

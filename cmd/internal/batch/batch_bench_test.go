@@ -51,7 +51,7 @@ func BenchmarkRow(b *testing.B) {
 		f, _ := splitFields(nil, string(l), ',')
 		rows = append(rows, f)
 	}
-	cache := newMediumCache()
+	cache := newLocalMedia(newMediumCache(), localSlots)
 	cfg := &Config{DefaultMedium: "freshwater"}
 	rc := newRowCells(m, inputs.Flags{})
 	var s scratch

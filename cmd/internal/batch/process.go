@@ -17,7 +17,7 @@ type processor struct {
 	cfg             Config
 	m               *mapping
 	delim, outDelim byte
-	cache           *mediumCache
+	cache           *localMedia
 	fields          []string
 	vals            []string
 	cells           *rowCells

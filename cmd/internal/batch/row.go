@@ -208,7 +208,7 @@ type scratch struct {
 
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
 // uncertainty of the row's values, seeded by seed.
-func compute(c *inputs.Cells, cfg *Config, mc *mediumCache, seed uint64, s *scratch) (outcome, error) {
+func compute(c *inputs.Cells, cfg *Config, mc *localMedia, seed uint64, s *scratch) (outcome, error) {
 	in, err := inputs.BuildCells(c, cfg.DefaultMedium, cfg.Uncertainty)
 	if err != nil {
 		return outcome{}, err

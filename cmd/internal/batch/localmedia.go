@@ -1,0 +1,166 @@
+package batch
+
+import (
+	"math"
+
+	"github.com/flowregime/flowregime/media"
+)
+
+// localMedia is one worker's table of built-in media (air, fresh and sea
+// water) by condition, in front of the shared mediumCache. A slot holds, in
+// one 64-byte cache line, the medium, up to three given conditions and what
+// a row's computation reads of the properties (density, viscosities,
+// temperature, warning count), so that a hit costs one trip to memory and
+// no lock. Failed lookups are not kept (they are rejected rows); medium
+// files and rows with more than three conditions go to the shared cache.
+type localMedia struct {
+	slots  []mediaSlot // open addressing, linear probing; length a power of two
+	used   int
+	max    int // slots at most
+	shared *mediumCache
+	p      media.Properties // the last hit, rebuilt; valid until the next lookup
+}
+
+// localKey is a condition in compact form: the medium id and which of the
+// eight conditions are given (bits 8–15) in word 0, their values in order.
+type localKey struct {
+	w0 uint64
+	v  [3]uint64
+}
+
+type mediaSlot struct {
+	key                localKey // key.w0 == 0 marks an empty slot
+	tempC, rho, mu, nu float64
+}
+
+const (
+	localFirst = 1 << 12 // slots at first
+	probes     = 4       // slots tried before one is overwritten
+	warnShift  = 16      // the warning count sits above the mask in a slot's w0
+)
+
+var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.KindSeawater}
+
+// outOfRange are shared, read-only warnings that rebuilt properties point to.
+var outOfRange = func() []media.Warning {
+	ws := make([]media.Warning, 8)
+	for i := range ws {
+		ws[i].Code = media.WarnOutOfRange
+	}
+	return ws
+}()
+
+func newLocalMedia(shared *mediumCache, maxSlots int) *localMedia {
+	return &localMedia{slots: make([]mediaSlot, localFirst), max: max(maxSlots, localFirst), shared: shared}
+}
+
+// compact returns the compact key, or false when the medium is not built in
+// or more than three conditions are given.
+func compact(k *cacheKey) (localKey, bool) {
+	var lk localKey
+	if k[0] == 0 || k[0] > 3 {
+		return lk, false
+	}
+	lk.w0 = k[0]
+	n := 0
+	for i, w := range k[1:] {
+		if w == canonicalNaN {
+			continue
+		}
+		if n == len(lk.v) {
+			return lk, false
+		}
+		lk.v[n] = w
+		lk.w0 |= 1 << (8 + i)
+		n++
+	}
+	return lk, true
+}
+
+func (k *localKey) hash() uint64 {
+	h := k.w0*0x9e3779b97f4a7c15 + k.v[0]*0xc2b2ae3d27d4eb4f + k.v[1]*0x165667b19e3779f9 + k.v[2]*0xd6e8feb86659fd93
+	// SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast splittable
+	// pseudorandom number generators, OOPSLA '14).
+	h ^= h >> 30
+	h *= 0xbf58476d1ce4e5b9
+	h ^= h >> 27
+	h *= 0x94d049bb133111eb
+	return h ^ h>>31
+}
+
+func (s *mediaSlot) matches(k *localKey) bool {
+	return s.key.w0&(1<<warnShift-1) == k.w0 && s.key.v == k.v
+}
+
+// lookup returns the medium's properties; the result must not be modified
+// and is valid until the next call.
+func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
+	full := l.shared.key(c)
+	k, ok := compact(&full)
+	if !ok {
+		return l.shared.lookup(c)
+	}
+	h := k.hash()
+	mask := uint64(len(l.slots) - 1)
+	for i := range uint64(probes) {
+		s := &l.slots[(h+i)&mask]
+		if s.matches(&k) {
+			l.rebuild(s)
+			return &l.p, nil
+		}
+		if s.key.w0 == 0 {
+			break
+		}
+	}
+	p, err := media.LookupBrief(c)
+	if err != nil {
+		return nil, err
+	}
+	if p.Rheology != nil || len(p.Warnings) > len(outOfRange) {
+		return l.shared.lookup(c)
+	}
+	for _, w := range p.Warnings {
+		if w.Code != media.WarnOutOfRange {
+			return l.shared.lookup(c)
+		}
+	}
+	s := mediaSlot{key: k, tempC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity}
+	s.key.w0 |= uint64(len(p.Warnings)) << warnShift
+	l.insert(s, h)
+	l.rebuild(&s) // the same properties as a hit gives
+	return &l.p, nil
+}
+
+// rebuild sets l.p from a slot: the fields a row's computation reads, NaN
+// for the rest.
+func (l *localMedia) rebuild(s *mediaSlot) {
+	nan := math.NaN()
+	n := int(s.key.w0 >> warnShift)
+	l.p = media.Properties{Medium: builtinName[s.key.w0&0xff], TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
+		KinematicViscosity: s.nu, PressurePa: nan, SalinityPractical: nan, SalinityAbsolute: nan,
+		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan,
+		Warnings: outOfRange[:n:n]}
+}
+
+// insert stores a slot, doubling the table while it is at most half full
+// and below its size limit, and overwriting an old slot when it cannot grow.
+func (l *localMedia) insert(s mediaSlot, h uint64) {
+	if 2*(l.used+1) > len(l.slots) && 2*len(l.slots) <= l.max {
+		old := l.slots
+		l.slots, l.used = make([]mediaSlot, 2*len(old)), 0
+		for i := range old {
+			if old[i].key.w0 != 0 {
+				l.insert(old[i], old[i].key.hash())
+			}
+		}
+	}
+	mask := uint64(len(l.slots) - 1)
+	for i := range uint64(probes) {
+		if t := &l.slots[(h+i)&mask]; t.key.w0 == 0 {
+			*t = s
+			l.used++
+			return
+		}
+	}
+	l.slots[h&mask] = s
+}
