@@ -43,7 +43,16 @@ func (cfg Config) columns() []string {
 type rowCells struct {
 	m     *mapping
 	cells inputs.Cells
-	cols  []int // fields with a column
+	plan  []column // the columns that hold inputs
+}
+
+// column is how one input column is read.
+type column struct {
+	field, col, sdCol int
+	text              bool // a text field (shape, medium, disc)
+	fast              bool // plain numbers convert by conv
+	conv              quantity.Conv
+	full              bool // the cell's Value holds conv's unit and flags, so a plain number sets SI alone
 }
 
 func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
@@ -51,7 +60,8 @@ func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
 	rc.cells.Read(constants)
 	for f := range inputs.Fields {
 		if m.col[f] >= 0 {
-			rc.cols = append(rc.cols, f)
+			rc.plan = append(rc.plan, column{field: f, col: m.col[f], sdCol: m.sdCol[f], text: inputs.Fields[f].Text,
+				fast: m.sdCol[f] < 0 && m.convOK[f], conv: m.conv[f]})
 			rc.cells.Label[f] = m.label[f]
 		}
 	}
@@ -60,39 +70,49 @@ func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
 
 // fill reads one row's fields; the cells are valid until the next call.
 func (rc *rowCells) fill(fields []string) *inputs.Cells {
-	c, m := &rc.cells, rc.m
-	for _, f := range rc.cols {
+	c := &rc.cells
+	for i := range rc.plan {
+		p := &rc.plan[i]
+		f := p.field
 		t := ""
-		if col := m.col[f]; col < len(fields) {
-			t = strings.TrimSpace(fields[col])
+		if p.col < len(fields) {
+			t = strings.TrimSpace(fields[p.col])
 		}
 		c.Given[f] = t != ""
 		if c.Err[f] != nil { // pointer stores only when something changes
 			c.Err[f] = nil
 		}
-		if c.Text[f] != t {
-			c.Text[f] = t
-		}
-		if t == "" || inputs.Fields[f].Text {
+		if p.text {
+			if c.Text[f] != t {
+				c.Text[f] = t
+			}
 			continue
 		}
-		if m.sdCol[f] < 0 && m.convOK[f] {
+		if t == "" {
+			continue
+		}
+		if p.fast {
 			if v, ok := quantity.PlainNumber(t); ok {
-				c.Value[f] = m.conv[f].Apply(v)
+				if p.full {
+					c.Value[f].SI = p.conv.SI(v)
+				} else {
+					c.Value[f], p.full = p.conv.Apply(v), true
+				}
 				continue
 			}
 		}
-		if sc := m.sdCol[f]; sc >= 0 && sc < len(fields) {
-			if sd := strings.TrimSpace(fields[sc]); sd != "" {
+		p.full = false
+		if p.sdCol >= 0 && p.sdCol < len(fields) {
+			if sd := strings.TrimSpace(fields[p.sdCol]); sd != "" {
 				// "12" and "1" in a column in mm, or "12mm" and "0.1cm".
-				if u := m.sdUnit[f]; u != "" {
-					t = t + m.unit[f] + "±" + sd + u
+				if u := rc.m.sdUnit[f]; u != "" {
+					t = t + rc.m.unit[f] + "±" + sd + u
 				} else {
 					t = t + "±" + sd
 				}
 			}
 		}
-		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, m.unit[f])
+		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, rc.m.unit[f])
 	}
 	return c
 }

@@ -126,7 +126,7 @@ type Source interface {
 type Cells struct {
 	Given [NumFields]bool           // the field has a value or a text
 	Value [NumFields]quantity.Value // numeric fields
-	Text  [NumFields]string         // every field's text, trimmed
+	Text  [NumFields]string         // text fields' texts, trimmed
 	Err   [NumFields]error          // why a given cell could not be read
 	Label [NumFields]string         // where each field comes from, for errors
 }
@@ -138,9 +138,11 @@ func (c *Cells) Read(src Source) {
 		text = strings.TrimSpace(text)
 		c.Label[f] = label
 		c.Given[f] = ok && text != ""
-		c.Value[f], c.Err[f], c.Text[f] = quantity.Value{SI: math.NaN()}, nil, text
+		c.Value[f], c.Err[f], c.Text[f] = quantity.Value{SI: math.NaN()}, nil, ""
 		switch {
-		case !c.Given[f], Fields[f].Text:
+		case !c.Given[f]:
+		case Fields[f].Text:
+			c.Text[f] = text
 		default:
 			c.Value[f], c.Err[f] = quantity.ParseDefault(Fields[f].Kind, text, unit)
 		}

@@ -357,9 +357,13 @@ func Resolve(k Kind, unit string) (Conv, bool) {
 // Apply converts a plain number.
 func (c *Conv) Apply(v float64) Value {
 	out := c.tmpl
-	out.SI = v*c.c.factor + c.c.offset
+	out.SI = c.SI(v)
 	return out
 }
+
+// SI converts a plain number to the library's unit; Apply's Value has the
+// unit and flags as well.
+func (c *Conv) SI(v float64) float64 { return v*c.c.factor + c.c.offset }
 
 // PlainNumber parses text made only of an ASCII decimal number, the fast
 // path for data sheets; anything else (units, uncertainty, NaN) is false.
