@@ -19,39 +19,42 @@ var exact10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e1
 // (strconv's "Inf", "NaN", hexadecimal and underscored forms are not) or is
 // out of float64's range.
 //
-// Numbers whose significand has at most 19 digits and is below 2⁵³, with a
+// Numbers of at most 19 digits whose significand is below 2⁵³, with a
 // decimal exponent within ±22, are converted by one correctly rounded
 // multiplication or division of two exactly represented numbers (Clinger,
 // W. D. (1990), How to read floating point numbers accurately, PLDI '90,
 // 92–101, the "fast path"); everything else goes to strconv.
 func Parse(s string) (float64, bool) {
 	i, neg := 0, false
-	if i < len(s) && (s[i] == '+' || s[i] == '-') {
-		neg = s[i] == '-'
-		i++
+	if len(s) > 0 && (s[0] == '+' || s[0] == '-') {
+		neg = s[0] == '-'
+		i = 1
 	}
 	var mant uint64
-	nd, exp, digits := 0, 0, 0
-	for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-		digits++
-		if mant == 0 && s[i] == '0' {
-			continue
+	start := i
+	for ; i < len(s); i++ {
+		d := s[i] - '0'
+		if d > 9 {
+			break
 		}
-		nd++
-		mant = mant*10 + uint64(s[i]-'0')
+		mant = mant*10 + uint64(d)
 	}
+	digits, exp := i-start, 0
 	if i < len(s) && s[i] == '.' {
-		for i++; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-			digits++
-			exp--
-			if mant == 0 && s[i] == '0' {
-				continue
+		i++
+		frac := i
+		for ; i < len(s); i++ {
+			d := s[i] - '0'
+			if d > 9 {
+				break
 			}
-			nd++
-			mant = mant*10 + uint64(s[i]-'0')
+			mant = mant*10 + uint64(d)
 		}
+		digits += i - frac
+		exp = frac - i
 	}
-	if digits == 0 {
+	// 19 digits, leading zeros included, cannot overflow the significand.
+	if digits == 0 || digits > 19 {
 		return slow(s)
 	}
 	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
@@ -75,7 +78,7 @@ func Parse(s string) (float64, bool) {
 		}
 		exp += e
 	}
-	if i != len(s) || nd > 19 || mant >= 1<<53 {
+	if i != len(s) || mant >= 1<<53 {
 		return slow(s)
 	}
 	f := float64(mant)
@@ -140,11 +143,17 @@ func AppendG(b []byte, v float64, prec int) []byte {
 		r = lo
 		e++
 	}
-	var digs [9]byte
+	var digs [10]byte
 	n := uint64(r)
-	for i := prec - 1; i >= 0; i-- {
-		digs[i] = byte('0' + n%10)
-		n /= 10
+	i := prec
+	for ; i >= 2; i -= 2 { // two digits at a time
+		q := n / 100
+		d := 2 * (n - 100*q)
+		digs[i-2], digs[i-1] = pairs[d], pairs[d+1]
+		n = q
+	}
+	if i == 1 {
+		digs[0] = byte('0' + n)
 	}
 	nd := prec
 	for nd > 1 && digs[nd-1] == '0' {
@@ -155,6 +164,11 @@ func AppendG(b []byte, v float64, prec int) []byte {
 	}
 	return format(b, digs[:nd], e+1, prec)
 }
+
+// pairs holds "00" to "99".
+const pairs = "00010203040506070809101112131415161718192021222324252627282930313233343536373839" +
+	"40414243444546474849505152535455565758596061626364656667686970717273747576777879" +
+	"8081828384858687888990919293949596979899"
 
 // pow10 holds 10^k for k in −330…330, each correctly rounded.
 var pow10 = func() (t [661]float64) {
