@@ -51,26 +51,11 @@ func (p *processor) process(c *chunk) result {
 		res.read++
 	}
 	out := getBuffer(len(c.data) * p.growth / 4)
-	eachRecord(c.data, p.cfg.InFormat != JSONL, func(rec string, off int) {
-		if blank(rec) {
-			res.blank++
-			return
-		}
+	// handle computes one record whose fields have been read (or not: err).
+	handle := func(rec string, off int, fields, keys []string, raws []json.RawMessage, err error) {
 		row++
 		res.read++
 		line := c.firstLine + off
-		var raws []json.RawMessage
-		var keys []string
-		var err error
-		p.fields = p.fields[:0]
-		if p.cfg.InFormat == JSONL {
-			keys, raws, p.fields, err = p.alignJSON([]byte(rec))
-		} else {
-			p.fields, err = splitFields(p.fields, rec, p.delim)
-			if err == nil && len(p.fields) != len(p.m.header) {
-				err = fmt.Errorf("has %d fields, the header has %d", len(p.fields), len(p.m.header))
-			}
-		}
 		if err != nil {
 			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: strings.Clone(rec)})
 			return
@@ -82,7 +67,7 @@ func (p *processor) process(c *chunk) result {
 		if p.cfg.Uncertainty {
 			seed = p.cfg.Seed ^ fnv64(rec)
 		}
-		cells := p.cells.fill(p.fields)
+		cells := p.cells.fill(fields)
 		o, err := compute(cells, &p.cfg, p.cache, seed, &p.scratch)
 		if err == nil && !p.cfg.Uncertainty && uncertain(cells) {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
@@ -116,7 +101,7 @@ func (p *processor) process(c *chunk) result {
 			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV {
 				out = append(out, rec...)
 			} else {
-				for i, f := range p.fields {
+				for i, f := range fields {
 					if i > 0 {
 						out = append(out, p.outDelim)
 					}
@@ -126,12 +111,33 @@ func (p *processor) process(c *chunk) result {
 			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty)
 			out = append(out, '\n')
 		case JSONL:
-			out = p.appendJSON(out, keys, raws)
+			out = p.appendJSON(out, fields, keys, raws)
 			out = append(out, '\n')
 		case Table:
-			res.table = append(res.table, append(append([]string{}, p.fields...), p.vals...))
+			res.table = append(res.table, append(append([]string{}, fields...), p.vals...))
 		}
-	})
+	}
+	if p.cfg.InFormat == JSONL {
+		eachRecord(c.data, false, func(rec string, off int) {
+			if blank(rec) {
+				res.blank++
+				return
+			}
+			keys, raws, fields, err := p.alignJSON([]byte(rec))
+			handle(rec, off, fields, keys, raws, err)
+		})
+	} else {
+		p.fields = eachCSVRecord(c.data, p.delim, p.fields, func(rec string, fields []string, err error, off int) {
+			if blank(rec) {
+				res.blank++
+				return
+			}
+			if err == nil && len(fields) != len(p.m.header) {
+				err = fmt.Errorf("has %d fields, the header has %d", len(fields), len(p.m.header))
+			}
+			handle(rec, off, fields, nil, nil, err)
+		})
+	}
 	res.out = out
 	if len(c.data) > 0 {
 		// Output size per input byte for the next chunk, in quarters, with
@@ -171,7 +177,7 @@ func indexOf(ss []string, s string) int {
 
 // appendJSON writes the row as one JSON object: the input's own members
 // unchanged, then the computed ones (numbers as numbers, absent as null).
-func (p *processor) appendJSON(b []byte, keys []string, raws []json.RawMessage) []byte {
+func (p *processor) appendJSON(b []byte, fields, keys []string, raws []json.RawMessage) []byte {
 	b = append(b, '{')
 	n := 0
 	if p.cfg.InFormat == JSONL {
@@ -191,7 +197,7 @@ func (p *processor) appendJSON(b []byte, keys []string, raws []json.RawMessage) 
 			}
 			b = appendJSONString(b, h)
 			b = append(b, ':')
-			b = appendJSONString(b, p.fields[i])
+			b = appendJSONString(b, fields[i])
 			n++
 		}
 	}

@@ -179,6 +179,70 @@ func eachRecord(data string, quotes bool, fn func(rec string, lineOff int)) {
 	}
 }
 
+// eachCSVRecord is eachRecord for CSV and TSV with each record also split
+// into fields, as splitFields does: a record without quotes is split in the
+// same pass that finds its end; one with quotes is found and split as
+// eachRecord and splitFields do. fields is valid until fn returns; the
+// returned slice is for reuse.
+func eachCSVRecord(data string, delim byte, dst []string, fn func(rec string, fields []string, err error, lineOff int)) []string {
+	line := 0
+	for pos := 0; pos < len(data); {
+		fields := dst[:0]
+		start, fstart, i := pos, pos, pos
+		for ; i < len(data); i++ {
+			if c := data[i]; c == delim {
+				fields = append(fields, data[fstart:i])
+				fstart = i + 1
+			} else if c == '\n' || c == '"' {
+				break
+			}
+		}
+		if i < len(data) && data[i] == '"' {
+			end, lines := quotedRecordEnd(data, start)
+			rec := trimCR(data[start:end])
+			var err error
+			fields, err = splitFields(dst[:0], rec, delim)
+			fn(rec, fields, err, line)
+			dst, line, pos = fields, line+lines+1, end+1
+			continue
+		}
+		end := i
+		if end > start && data[end-1] == '\r' {
+			end--
+		}
+		fields = append(fields, data[fstart:max(fstart, end)])
+		fn(data[start:end], fields, nil, line)
+		dst, line, pos = fields, line+1, i+1
+	}
+	return dst
+}
+
+// quotedRecordEnd returns the index of the newline that ends the record at
+// start (newlines between double quotes do not), or len(data), and how many
+// newlines lie inside it.
+func quotedRecordEnd(data string, start int) (end, lines int) {
+	in := false
+	for j := start; j < len(data); j++ {
+		switch data[j] {
+		case '"':
+			in = !in
+		case '\n':
+			if !in {
+				return j, lines
+			}
+			lines++
+		}
+	}
+	return len(data), lines
+}
+
+func trimCR(rec string) string {
+	if len(rec) > 0 && rec[len(rec)-1] == '\r' {
+		return rec[:len(rec)-1]
+	}
+	return rec
+}
+
 var errQuote = errors.New(`a quoted field is not closed, or has text after its closing quote; write "" for a quote inside a quoted field`)
 
 // splitFields splits one CSV or TSV record into fields (RFC 4180 quoting),

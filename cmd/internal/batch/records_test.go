@@ -1,0 +1,66 @@
+package batch
+
+import (
+	"math/rand/v2"
+	"reflect"
+	"testing"
+)
+
+// eachCSVRecord must find and split records exactly as eachRecord followed
+// by splitFields, the two-pass reference kept for JSON Lines and quotes.
+func checkCSVRecords(t *testing.T, data string, delim byte) {
+	t.Helper()
+	type rec struct {
+		rec    string
+		fields []string
+		err    bool
+		line   int
+	}
+	var want, got []rec
+	eachRecord(data, true, func(r string, off int) {
+		f, err := splitFields(nil, r, delim)
+		want = append(want, rec{r, f, err != nil, off})
+	})
+	eachCSVRecord(data, delim, nil, func(r string, fields []string, err error, off int) {
+		got = append(got, rec{r, append([]string(nil), fields...), err != nil, off})
+	})
+	for i := range want {
+		if want[i].err { // fields after a quoting error are not compared
+			want[i].fields = nil
+		}
+	}
+	for i := range got {
+		if got[i].err {
+			got[i].fields = nil
+		}
+	}
+	if !reflect.DeepEqual(got, want) {
+		t.Fatalf("data %q:\n got %+v\nwant %+v", data, got, want)
+	}
+}
+
+func TestEachCSVRecordMatchesTwoPasses(t *testing.T) {
+	for _, d := range []string{"", "\n", "a,b\n", "a,b", "a,b\r\n", "a,\r\n,\n", "\r\n\r\n", "\"a,b\",c\nd,e\n",
+		"x,\"multi\nline\",y\nz\n", "5\" fish,3\n", "\"unclosed,1\n2,3\n", "a,\"\"\"\",b\r\n", "\"a\"x,b\n", ",,,\n"} {
+		checkCSVRecords(t, d, ',')
+	}
+	rng := rand.New(rand.NewPCG(5, 6))
+	const alphabet = "ab,\t\"\r\n 1"
+	b := make([]byte, 0, 64)
+	for range 200000 {
+		b = b[:0]
+		for range rng.IntN(40) {
+			b = append(b, alphabet[rng.IntN(len(alphabet))])
+		}
+		checkCSVRecords(t, string(b), ',')
+		checkCSVRecords(t, string(b), '\t')
+	}
+}
+
+func FuzzEachCSVRecord(f *testing.F) {
+	f.Add("a,\"b\nc\",d\r\ne,f\n")
+	f.Fuzz(func(t *testing.T, data string) {
+		checkCSVRecords(t, data, ',')
+		checkCSVRecords(t, data, '\t')
+	})
+}
