@@ -84,7 +84,7 @@ func (c *chunker) fill() error {
 
 // boundary returns the index just past the last record end in buf, 0 if none.
 func (c *chunker) boundary() int {
-	if !c.quotes {
+	if !c.quotes || bytes.IndexByte(c.buf, '"') < 0 {
 		return bytes.LastIndexByte(c.buf, '\n') + 1
 	}
 	last, in := 0, false
@@ -293,11 +293,25 @@ func splitFields(dst []string, srec string, delim byte) ([]string, error) {
 	}
 }
 
+// special marks the bytes that make a CSV or TSV field need quotes.
+var special = func() (t [2][256]bool) {
+	for i, d := range []byte{',', '\t'} {
+		for _, c := range []byte{d, '"', '\n', '\r'} {
+			t[i][c] = true
+		}
+	}
+	return t
+}()
+
 // appendField appends s to b as a CSV/TSV field, quoting when needed.
 func appendField(b []byte, s string, delim byte) []byte {
 	need := false
+	sp := &special[0]
+	if delim != ',' {
+		sp = &special[1]
+	}
 	for i := 0; i < len(s); i++ {
-		if c := s[i]; c == delim || c == '"' || c == '\n' || c == '\r' {
+		if sp[s[i]] || s[i] == delim {
 			need = true
 			break
 		}
