@@ -306,3 +306,26 @@ func TestTSVAndTable(t *testing.T) {
 		t.Errorf("table:\n%s", tab)
 	}
 }
+
+// Without propagation, a value given with an uncertainty is flagged as
+// ignored; a "±" in a column that holds no input is not.
+func TestUncertaintyIgnoredFlag(t *testing.T) {
+	in := "note,length (mm),speed (mm/s)\n" +
+		"plain,12,40\n" +
+		"given,12±1,40\n" +
+		"note says ±,12,40\n"
+	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV})
+	if len(rejects) > 0 {
+		t.Fatalf("rejects: %v", rejects)
+	}
+	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, want := range []bool{false, true, false} {
+		flags := recs[i+1][len(recs[i+1])-1]
+		if got := strings.Contains(flags, WarnUncertaintyIgnored); got != want {
+			t.Errorf("row %q: flags %q, %s expected %v", recs[i+1][0], flags, WarnUncertaintyIgnored, want)
+		}
+	}
+}

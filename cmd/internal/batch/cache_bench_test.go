@@ -1,19 +1,61 @@
 package batch
 
 import (
+	"math"
+	"math/rand/v2"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
 )
 
-// BenchmarkCacheHit measures a medium-cache hit.
+// BenchmarkCacheHit measures a hit in a worker's table of built-in media.
 func BenchmarkCacheHit(b *testing.B) {
-	mc := newMediumCache()
+	lm := newLocalMedia(newMediumCache(), localSlots)
 	c := media.Unset("seawater")
 	c.TemperatureC, c.SalinityPractical = 12.3, 33.1
-	mc.lookup(c)
+	lm.lookup(c)
 	b.ResetTimer()
 	for range b.N {
-		mc.lookup(c)
+		lm.lookup(c)
+	}
+}
+
+// The worker's table must give what a lookup without any cache gives
+// (media.LookupBrief), field by field where a row's computation reads it,
+// including when a table far too small for the conditions overwrites its
+// slots, and for conditions it does not hold (more than three given).
+func TestLocalMediaMatchesLookup(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 8))
+	for _, size := range []int{localFirst, localSlots} {
+		lm := newLocalMedia(newMediumCache(), size)
+		for range 60000 {
+			var c media.Conditions
+			switch rng.IntN(4) {
+			case 0:
+				c = media.Unset(media.KindAir)
+				c.TemperatureC, c.AltitudeM = math.Round(rng.Float64()*400)/10, float64(rng.IntN(3000))
+			case 1:
+				c = media.Unset(media.KindFreshWater)
+				c.TemperatureC = math.Round(rng.Float64()*300) / 10
+			case 2:
+				c = media.Unset(media.KindSeawater)
+				c.TemperatureC, c.SalinityPractical = math.Round(rng.Float64()*300)/10, math.Round(rng.Float64()*400)/10
+			default: // four conditions: the shared cache's path
+				c = media.Unset(media.KindSeawater)
+				c.TemperatureC, c.SalinityPractical, c.DepthM, c.LatitudeDeg = 10, 35, float64(rng.IntN(50)), 45
+			}
+			want, werr := media.LookupBrief(c)
+			got, gerr := lm.lookup(c)
+			if (werr != nil) != (gerr != nil) {
+				t.Fatalf("%+v: error %v, want %v", c, gerr, werr)
+			}
+			if werr != nil {
+				continue
+			}
+			if got.Medium != want.Medium || got.Density != want.Density || got.DynamicViscosity != want.DynamicViscosity ||
+				got.KinematicViscosity != want.KinematicViscosity || got.TemperatureC != want.TemperatureC || len(got.Warnings) != len(want.Warnings) {
+				t.Fatalf("%+v: got %+v, want %+v", c, *got, want)
+			}
+		}
 	}
 }
