@@ -107,7 +107,7 @@ func CalcChosenInto(r *Result, o *Organism, m *media.Properties) error { return 
 func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	n := math.NaN()
 	note := noter(all)
-	*r = Result{Warnings: r.Warnings[:0], Shape: o.Body.Shape, Medium: *m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
+	*r = Result{Warnings: r.Warnings[:0], Drag: DragResult{Warnings: r.Drag.Warnings[:0]}, Shape: o.Body.Shape, Medium: *m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
 		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 	if err := o.Body.Validate(); err != nil {
 		return err
@@ -115,14 +115,10 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
 		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
-	for _, c := range []struct {
-		name string
-		v    float64
-	}{{"frequency", o.Frequency}, {"amplitude", o.Amplitude}, {"mass", o.Mass}, {"span", o.Span},
-		{"wing length", o.WingLength}, {"chord", o.Chord}, {"wing area", o.WingArea}, {"stroke angle", o.StrokeAngle},
-		{"diffusivity", o.Diffusivity}, {"shear rate", o.ShearRate}, {"relaxation time", o.RelaxationTime}} {
-		if !math.IsNaN(c.v) && !(c.v > 0 && !math.IsInf(c.v, 0)) {
-			return fmt.Errorf("regime: %s must be positive, got %g", c.name, c.v)
+	for i, v := range [...]float64{o.Frequency, o.Amplitude, o.Mass, o.Span, o.WingLength, o.Chord, o.WingArea,
+		o.StrokeAngle, o.Diffusivity, o.ShearRate, o.RelaxationTime} {
+		if v == v && !(v > 0 && v <= math.MaxFloat64) { // given (not NaN) and not positive and finite
+			return fmt.Errorf("regime: %s must be positive, got %g", optionalNames[i], v)
 		}
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
@@ -207,11 +203,10 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 
 	// Drag.
 	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity, PowerLawK: flowPL[0], PowerLawN: flowPL[1]}
-	dr, err := drag(o.Body, flow, all)
-	if err != nil {
+	if err := dragInto(&r.Drag, o.Body, flow, all); err != nil {
 		return err
 	}
-	r.Drag = dr
+	dr := &r.Drag
 	r.Warnings = append(r.Warnings, dr.Warnings...)
 
 	// Power.
@@ -264,16 +259,19 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)
 	}
-	for _, v := range []float64{r.Reynolds, r.Drag.Chosen.Force, r.Drag.Chosen.Coefficient, r.Power.Total, r.Strouhal, r.Peclet, r.CoastDistance} {
-		if math.IsInf(v, 0) {
-			return fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
-		}
+	if math.IsInf(r.Reynolds, 0) || math.IsInf(r.Drag.Chosen.Force, 0) || math.IsInf(r.Drag.Chosen.Coefficient, 0) ||
+		math.IsInf(r.Power.Total, 0) || math.IsInf(r.Strouhal, 0) || math.IsInf(r.Peclet, 0) || math.IsInf(r.CoastDistance, 0) {
+		return fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
 	}
 	if math.IsNaN(r.Reynolds) || math.IsNaN(r.Drag.Chosen.Force) || math.IsNaN(r.Power.Total) {
 		return fmt.Errorf("regime: the result is not a number; check the inputs")
 	}
 	return nil
 }
+
+// optionalNames name the optional values in the order calc checks them.
+var optionalNames = [...]string{"frequency", "amplitude", "mass", "span", "wing length", "chord", "wing area",
+	"stroke angle", "diffusivity", "shear rate", "relaxation time"}
 
 func (o Organism) wings() Wings {
 	w := Wings{Span: o.Span, Length: o.WingLength, Frequency: o.Frequency, StrokeAngle: o.StrokeAngle, ProfileCD: o.ProfileCD}

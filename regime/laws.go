@@ -342,13 +342,21 @@ func (l *Law) estimate(b Body, f Flow) Estimate {
 }
 
 func drag(b Body, f Flow, all bool) (DragResult, error) {
-	if err := b.Validate(); err != nil {
-		return DragResult{}, err
-	}
-	if err := f.validate(); err != nil {
-		return DragResult{}, err
-	}
 	var res DragResult
+	if err := b.Validate(); err != nil {
+		return res, err
+	}
+	err := dragInto(&res, b, f, all)
+	return res, err
+}
+
+// dragInto is drag for a body already validated, writing into res, whose
+// Warnings slice it reuses.
+func dragInto(res *DragResult, b Body, f Flow, all bool) error {
+	if err := f.validate(); err != nil {
+		return err
+	}
+	*res = DragResult{Warnings: res.Warnings[:0]}
 	note := noter(all)
 	reChoice := f.Density * f.Speed * ChoiceLength(b) / f.Viscosity
 	var chosen *Law
@@ -359,7 +367,7 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 		}
 	}
 	if chosen == nil {
-		return DragResult{}, fmt.Errorf("regime: no drag law covers a %s at this Reynolds number", b.Shape)
+		return fmt.Errorf("regime: no drag law covers a %s at this Reynolds number", b.Shape)
 	}
 	res.Chosen = chosen.estimate(b, f)
 	if all {
@@ -374,10 +382,10 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 			}
 		}
 	}
-	c := res.Chosen
+	c := &res.Chosen
 	if !c.InRange {
 		note.add(&res.Warnings, WarnLawOutOfRange, func() string {
-			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(c))
+			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(*c))
 		})
 	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
@@ -402,7 +410,7 @@ func drag(b Body, f Flow, all bool) (DragResult, error) {
 			})
 		}
 	}
-	return res, nil
+	return nil
 }
 
 // applicable reports whether an estimate is worth showing beside the chosen
