@@ -44,7 +44,7 @@ type exitError struct {
 func (e exitError) Error() string { return e.msg }
 
 const estimateNotice = `All figures are estimates from published laws and correlations, for
-research and teaching. They are not a design basis for structures that
+research and screening. They are not a design basis for structures that
 animals must pass (fish passes, culverts, screens, turbines): defer to local
 regulations and licensed engineering practice for those.`
 
