@@ -30,26 +30,12 @@ func Parse(s string) (float64, bool) {
 		neg = s[0] == '-'
 		i = 1
 	}
-	var mant uint64
 	start := i
-	for ; i < len(s); i++ {
-		d := s[i] - '0'
-		if d > 9 {
-			break
-		}
-		mant = mant*10 + uint64(d)
-	}
+	i, mant := accumulate(s, i, 0)
 	digits, exp := i-start, 0
 	if i < len(s) && s[i] == '.' {
-		i++
-		frac := i
-		for ; i < len(s); i++ {
-			d := s[i] - '0'
-			if d > 9 {
-				break
-			}
-			mant = mant*10 + uint64(d)
-		}
+		frac := i + 1
+		i, mant = accumulate(s, frac, mant)
 		digits += i - frac
 		exp = frac - i
 	}
@@ -95,6 +81,19 @@ func Parse(s string) (float64, bool) {
 		f = -f
 	}
 	return f, true
+}
+
+// accumulate appends the decimal digits of s from i to mant and returns
+// the index after them.
+func accumulate(s string, i int, mant uint64) (int, uint64) {
+	for ; i < len(s); i++ {
+		d := s[i] - '0'
+		if d > 9 {
+			break
+		}
+		mant = mant*10 + uint64(d)
+	}
+	return i, mant
 }
 
 func slow(s string) (float64, bool) {
