@@ -329,3 +329,16 @@ func TestUncertaintyIgnoredFlag(t *testing.T) {
 		}
 	}
 }
+
+// A flag constant given with an uncertainty is flagged on every row when
+// it is not propagated.
+func TestUncertaintyIgnoredConstant(t *testing.T) {
+	in := "length (mm),speed (mm/s)\n12,40\n13,41\n"
+	out, rejects, sum := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV, Constants: inputs.Flags{"temperature": "12±1C"}})
+	if len(rejects) > 0 {
+		t.Fatalf("rejects: %v", rejects)
+	}
+	if sum.Flags[WarnUncertaintyIgnored] != 2 {
+		t.Errorf("flag counts %v, want %s on both rows; output:\n%s", sum.Flags, WarnUncertaintyIgnored, out)
+	}
+}

@@ -44,6 +44,7 @@ func putBuffer(b []byte) {
 
 func (p *processor) process(c *chunk) result {
 	res := result{seq: c.seq, flags: map[string]int{}}
+	var counts flagCounts
 	row := 0 // within the chunk; the writer adds the rows before it
 	for _, l := range c.overlong {
 		row++
@@ -69,7 +70,7 @@ func (p *processor) process(c *chunk) result {
 		}
 		cells := p.cells.fill(fields)
 		o, err := compute(cells, &p.cfg, p.cache, seed, &p.scratch)
-		if err == nil && !p.cfg.Uncertainty && uncertain(cells) {
+		if err == nil && !p.cfg.Uncertainty && p.cells.uncertain {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
 		}
 		if err != nil {
@@ -86,7 +87,7 @@ func (p *processor) process(c *chunk) result {
 			return
 		}
 		for _, f := range o.flags {
-			res.flags[f]++
+			counts.add(f)
 		}
 		if p.cfg.FlaggedOnly && len(o.flags) == 0 {
 			res.filtered++
@@ -137,6 +138,9 @@ func (p *processor) process(c *chunk) result {
 			}
 			handle(rec, off, fields, nil, nil, err)
 		})
+	}
+	for _, fc := range counts {
+		res.flags[fc.code] += fc.n
 	}
 	res.out = out
 	if len(c.data) > 0 {
@@ -230,14 +234,24 @@ func renderTable(w io.Writer, rows [][]string) error {
 	return report.Table(w, rows[0], rows[1:])
 }
 
-// uncertain reports whether any value was given with an uncertainty.
-func uncertain(c *inputs.Cells) bool {
-	for f, given := range c.Given {
-		if given && c.Err[f] == nil && c.Value[f].SD > 0 {
-			return true
+// flagCounts counts flag codes, a handful of distinct ones, without a map
+// access per row.
+type flagCounts []struct {
+	code string
+	n    int
+}
+
+func (fc *flagCounts) add(code string) {
+	for i := range *fc {
+		if (*fc)[i].code == code {
+			(*fc)[i].n++
+			return
 		}
 	}
-	return false
+	*fc = append(*fc, struct {
+		code string
+		n    int
+	}{code, 1})
 }
 
 // fnv64 is the FNV-1a hash of b (Fowler, Noll & Vo), used to seed each row.

@@ -41,9 +41,11 @@ func (cfg Config) columns() []string {
 // columns row by row, plain numbers converted by the column's unit without
 // the general parser.
 type rowCells struct {
-	m     *mapping
-	cells inputs.Cells
-	plan  []column // the columns that hold inputs
+	m         *mapping
+	cells     inputs.Cells
+	plan      []column // the columns that hold inputs
+	constSD   bool     // a flag constant carries an uncertainty
+	uncertain bool     // the last row filled has a value with an uncertainty
 }
 
 // column is how one input column is read.
@@ -59,6 +61,9 @@ func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
 	rc := &rowCells{m: m}
 	rc.cells.Read(constants)
 	for f := range inputs.Fields {
+		if m.col[f] < 0 && rc.cells.Given[f] && rc.cells.Err[f] == nil && rc.cells.Value[f].SD > 0 {
+			rc.constSD = true
+		}
 		if m.col[f] >= 0 {
 			rc.plan = append(rc.plan, column{field: f, col: m.col[f], sdCol: m.sdCol[f], text: inputs.Fields[f].Text,
 				fast: m.sdCol[f] < 0 && m.convOK[f], conv: m.conv[f]})
@@ -71,6 +76,7 @@ func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
 // fill reads one row's fields; the cells are valid until the next call.
 func (rc *rowCells) fill(fields []string) *inputs.Cells {
 	c := &rc.cells
+	rc.uncertain = rc.constSD
 	for i := range rc.plan {
 		p := &rc.plan[i]
 		f := p.field
@@ -113,6 +119,9 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 			}
 		}
 		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, rc.m.unit[f])
+		if c.Err[f] == nil && c.Value[f].SD > 0 {
+			rc.uncertain = true
+		}
 	}
 	return c
 }
