@@ -6,7 +6,6 @@ import (
 	"math/rand/v2"
 	"sort"
 
-	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
@@ -53,8 +52,9 @@ const (
 	MethodLinear     = "linear"
 )
 
-// Evaluator computes a result for input values in the order of the inputs.
-type Evaluator func(x []float64) (Result, error)
+// Evaluator computes the result for input values in the order of the
+// inputs into r, which the caller reuses from one evaluation to the next.
+type Evaluator func(x []float64, r *Result) error
 
 // MonteCarlo propagates the inputs' uncertainty by drawing them (see
 // UncertainInput) with a PCG generator seeded by seed, evaluating each draw,
@@ -77,14 +77,15 @@ func MonteCarlo(inputs []UncertainInput, eval Evaluator, draws int, seed uint64)
 		}
 	}
 	u := Uncertainty{Method: MethodMonteCarlo, Draws: draws, Seed: seed, RegimeProbability: map[string]float64{}, LawProbability: map[string]float64{}}
-	var re, st, dr, pw []float64
+	re, dr, pw := make([]float64, 0, draws), make([]float64, 0, draws), make([]float64, 0, draws)
+	var st []float64
 	x := make([]float64, len(inputs))
+	var r Result
 	for range draws {
 		for i, s := range samplers {
 			x[i] = s()
 		}
-		r, err := eval(x)
-		if err != nil {
+		if err := eval(x, &r); err != nil {
 			u.Failed++
 			continue
 		}
@@ -111,15 +112,75 @@ func MonteCarlo(inputs []UncertainInput, eval Evaluator, draws int, seed uint64)
 	return u, nil
 }
 
+// band returns the median and the 2.5th and 97.5th percentiles of v as the
+// empirical quantiles of gonum's stat.Quantile (the smallest value whose
+// empirical CDF reaches p), found by selection rather than a full sort; v
+// is reordered.
 func band(v []float64) Band {
 	if len(v) == 0 {
 		return Band{math.NaN(), math.NaN(), math.NaN()}
 	}
-	sort.Float64s(v)
-	return Band{
-		Median: stat.Quantile(0.5, stat.Empirical, v, nil),
-		Low95:  stat.Quantile(0.025, stat.Empirical, v, nil),
-		High95: stat.Quantile(0.975, stat.Empirical, v, nil),
+	lo, mid, hi := empiricalRank(0.025, len(v)), empiricalRank(0.5, len(v)), empiricalRank(0.975, len(v))
+	selectRank(v, mid)
+	selectRank(v[:mid], lo) // after the first selection, the smaller ranks lie left of mid
+	selectRank(v[mid:], hi-mid)
+	return Band{Median: v[mid], Low95: v[lo], High95: v[hi]}
+}
+
+// empiricalRank is the 0-based rank of stat.Quantile's empirical p-quantile
+// of n unweighted values: the first i with i+1 ≥ p·n.
+func empiricalRank(p float64, n int) int {
+	return max(int(math.Ceil(p*float64(n)))-1, 0)
+}
+
+// selectRank reorders v so that v[k] is the value of rank k, smaller values
+// before it and larger after (Hoare's selection, Hoare 1961, Algorithm 65:
+// FIND, Commun. ACM 4, 321, with a median-of-three pivot); after 64 rounds
+// without an end it sorts, so the worst case stays O(n log n). It does
+// nothing when k is out of range. The values must not be NaN.
+func selectRank(v []float64, k int) {
+	if k < 0 || k >= len(v) {
+		return
+	}
+	lo, hi := 0, len(v)-1
+	for round := 0; lo < hi; round++ {
+		if round == 64 {
+			sort.Float64s(v[lo : hi+1])
+			return
+		}
+		m := lo + (hi-lo)/2
+		if v[m] < v[lo] {
+			v[m], v[lo] = v[lo], v[m]
+		}
+		if v[hi] < v[lo] {
+			v[hi], v[lo] = v[lo], v[hi]
+		}
+		if v[hi] < v[m] {
+			v[hi], v[m] = v[m], v[hi]
+		}
+		pivot := v[m]
+		i, j := lo, hi
+		for i <= j {
+			for v[i] < pivot {
+				i++
+			}
+			for pivot < v[j] {
+				j--
+			}
+			if i <= j {
+				v[i], v[j] = v[j], v[i]
+				i++
+				j--
+			}
+		}
+		switch {
+		case k <= j:
+			hi = j
+		case k >= i:
+			lo = i
+		default: // j < k < i: v[k] equals the pivot and is in place
+			return
+		}
 	}
 }
 
@@ -135,14 +196,14 @@ func Linear(inputs []UncertainInput, eval Evaluator) (Uncertainty, error) {
 	for i, in := range inputs {
 		x0[i] = in.Value
 	}
-	r0, err := eval(x0)
-	if err != nil {
+	var r Result
+	if err := eval(x0, &r); err != nil {
 		return Uncertainty{}, err
 	}
-	quantities := func(r Result) [4]float64 {
+	quantities := func(r *Result) [4]float64 {
 		return [4]float64{r.Reynolds, r.Strouhal, r.Drag.Chosen.Force, r.Power.Total}
 	}
-	q0 := quantities(r0)
+	q0, regime0 := quantities(&r), r.Regime
 	var variance [4]float64
 	x := make([]float64, len(inputs))
 	for i, in := range inputs {
@@ -158,8 +219,8 @@ func Linear(inputs []UncertainInput, eval Evaluator) (Uncertainty, error) {
 			} else {
 				x[i] = in.Value + sign*h
 			}
-			r, err := eval(x)
-			return quantities(r), err
+			err := eval(x, &r)
+			return quantities(&r), err
 		}
 		up, err1 := step(1)
 		dn, err2 := step(-1)
@@ -188,7 +249,7 @@ func Linear(inputs []UncertainInput, eval Evaluator) (Uncertainty, error) {
 		pi := nrm.CDF((math.Log(1000)-math.Log(q0[0]))/sd) - pv
 		u.RegimeProbability = map[string]float64{RegimeViscous: pv, RegimeIntermediate: pi, RegimeInertial: 1 - pv - pi}
 	} else {
-		u.RegimeProbability[r0.Regime] = 1
+		u.RegimeProbability[regime0] = 1
 	}
 	return u, nil
 }

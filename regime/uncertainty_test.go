@@ -2,9 +2,12 @@ package regime
 
 import (
 	"math"
+	"math/rand/v2"
+	"sort"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
+	"gonum.org/v1/gonum/stat"
 )
 
 // Re = UL/ν is a product of powers of its inputs, so with log-normal U and L
@@ -14,8 +17,9 @@ import (
 func TestReynoldsLogNormalClosedForm(t *testing.T) {
 	w := water20(t)
 	const l0, u0, sdl, sdu = 0.01, 0.05, 0.001, 0.01
-	eval := func(x []float64) (Result, error) {
-		return CalcChosen(NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1]), w)
+	eval := func(x []float64, r *Result) error {
+		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
+		return CalcChosenInto(r, &o, &w)
 	}
 	in := []UncertainInput{{"length", l0, sdl, true}, {"speed", u0, sdu, true}}
 	s := math.Sqrt(math.Log1p(0.01) + math.Log1p(0.04))
@@ -65,8 +69,9 @@ func TestRegimeProbabilityAtBoundary(t *testing.T) {
 	w := water20(t)
 	d := 1e-3
 	u := 1 * w.KinematicViscosity / d
-	eval := func(x []float64) (Result, error) {
-		return CalcChosen(NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1]), w)
+	eval := func(x []float64, r *Result) error {
+		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
+		return CalcChosenInto(r, &o, &w)
 	}
 	in := []UncertainInput{{"length", d, 0.1 * d, true}, {"speed", u, 0.1 * u, true}}
 	mc, _ := MonteCarlo(in, eval, 4000, 7)
@@ -142,8 +147,9 @@ func TestDeborahWeissenberg(t *testing.T) {
 func TestLinearAgainstMonteCarlo(t *testing.T) {
 	w := water20(t)
 	u := 50 * w.KinematicViscosity / 1e-3
-	eval := func(x []float64) (Result, error) {
-		return CalcChosen(NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1]), w)
+	eval := func(x []float64, r *Result) error {
+		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
+		return CalcChosenInto(r, &o, &w)
 	}
 	in := []UncertainInput{{"length", 1e-3, 3e-5, true}, {"speed", u, 0.03 * u, true}}
 	lin, _ := Linear(in, eval)
@@ -151,4 +157,28 @@ func TestLinearAgainstMonteCarlo(t *testing.T) {
 	checkRel(t, "drag median", lin.Drag.Median, mc.Drag.Median, 0.02)
 	checkRel(t, "drag low95", lin.Drag.Low95, mc.Drag.Low95, 0.02)
 	checkRel(t, "drag high95", lin.Drag.High95, mc.Drag.High95, 0.02)
+}
+
+// band's selection gives exactly gonum's stat.Quantile (empirical) of the
+// sorted values, for samples of many sizes, with ties and without.
+func TestBandMatchesGonumQuantile(t *testing.T) {
+	rng := rand.New(rand.NewPCG(9, 10))
+	for _, n := range []int{1, 2, 3, 7, 39, 40, 41, 100, 1000, 9999, 10000} {
+		for _, ties := range []bool{false, true} {
+			v := make([]float64, n)
+			for i := range v {
+				v[i] = rng.NormFloat64()
+				if ties {
+					v[i] = math.Round(v[i] * 3)
+				}
+			}
+			sorted := append([]float64(nil), v...)
+			sort.Float64s(sorted)
+			want := Band{stat.Quantile(0.5, stat.Empirical, sorted, nil), stat.Quantile(0.025, stat.Empirical, sorted, nil),
+				stat.Quantile(0.975, stat.Empirical, sorted, nil)}
+			if got := band(v); got != want {
+				t.Errorf("n = %d, ties %v: band %+v, gonum %+v", n, ties, got, want)
+			}
+		}
+	}
 }

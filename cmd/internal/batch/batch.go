@@ -185,7 +185,11 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	var readErr error
 	go func() {
 		defer close(jobs)
-		ck := newChunker(body, cfg.InFormat != JSONL, line)
+		size := chunkSize
+		if cfg.Uncertainty {
+			size = uncertainChunk
+		}
+		ck := newChunker(body, cfg.InFormat != JSONL, line, size)
 		for {
 			c, err := ck.next()
 			if err == io.EOF {

@@ -10,8 +10,13 @@ import (
 // maxRecord bounds one record; a longer one is rejected, not held in memory.
 const maxRecord = 8 << 20
 
-// chunkSize is the amount of input handed to a worker at a time.
-const chunkSize = 256 << 10
+// chunkSize is the amount of input handed to a worker at a time;
+// uncertainChunk when each row takes thousands of evaluations, so that even
+// a short table spreads over the workers.
+const (
+	chunkSize      = 256 << 10
+	uncertainChunk = 4 << 10
+)
 
 // chunk is a run of whole records.
 type chunk struct {
@@ -33,18 +38,21 @@ type chunker struct {
 	seq      int
 	eof      bool
 	overlong []int
+	size     int // bytes per chunk, about
 }
 
-func newChunker(r io.Reader, quotes bool, line int) *chunker {
-	return &chunker{r: r, quotes: quotes, line: line}
+func newChunker(r io.Reader, quotes bool, line, size int) *chunker {
+	return &chunker{r: r, quotes: quotes, line: line, size: size}
 }
 
 // next returns the next chunk, or io.EOF.
 func (c *chunker) next() (*chunk, error) {
 	for {
 		cut := 0
-		if len(c.buf) >= chunkSize || c.eof {
-			cut = c.boundary()
+		if len(c.buf) >= c.size || c.eof {
+			if cut = c.boundary(c.size); cut == 0 && len(c.buf) > c.size {
+				cut = c.boundary(len(c.buf)) // a record longer than a chunk
+			}
 		}
 		if cut > 0 {
 			return c.emit(cut), nil
@@ -82,13 +90,14 @@ func (c *chunker) fill() error {
 	return err
 }
 
-// boundary returns the index just past the last record end in buf, 0 if none.
-func (c *chunker) boundary() int {
-	if !c.quotes || bytes.IndexByte(c.buf, '"') < 0 {
-		return bytes.LastIndexByte(c.buf, '\n') + 1
+// boundary returns the index just past the last record end in the first
+// limit bytes of buf, 0 if none.
+func (c *chunker) boundary(limit int) int {
+	b := c.buf[:min(limit, len(c.buf))]
+	if !c.quotes || bytes.IndexByte(b, '"') < 0 {
+		return bytes.LastIndexByte(b, '\n') + 1
 	}
 	last, in := 0, false
-	b := c.buf
 	for i := 0; i < len(b); {
 		j := bytes.IndexAny(b[i:], "\"\n")
 		if j < 0 {

@@ -1,8 +1,10 @@
 package batch
 
 import (
+	"io"
 	"math/rand/v2"
 	"reflect"
+	"strings"
 	"testing"
 )
 
@@ -63,4 +65,41 @@ func FuzzEachCSVRecord(f *testing.F) {
 		checkCSVRecords(t, data, ',')
 		checkCSVRecords(t, data, '\t')
 	})
+}
+
+// Chunks of any size put back together are the input, and cut only where a
+// record ends: the records of the chunks are the records of the whole.
+func TestChunkerSizes(t *testing.T) {
+	rng := rand.New(rand.NewPCG(11, 12))
+	const alphabet = "ab,\"\r\n\n 1"
+	for range 2000 {
+		b := make([]byte, rng.IntN(3000))
+		for i := range b {
+			b[i] = alphabet[rng.IntN(len(alphabet))]
+		}
+		var whole []string
+		eachRecord(string(b), true, func(r string, _ int) { whole = append(whole, r) })
+		for _, size := range []int{1, 7, 64, 4096} {
+			ck := newChunker(strings.NewReader(string(b)), true, 1, size)
+			var joined strings.Builder
+			var parts []string
+			for {
+				c, err := ck.next()
+				if err == io.EOF {
+					break
+				}
+				if err != nil {
+					t.Fatal(err)
+				}
+				joined.WriteString(c.data)
+				eachRecord(c.data, true, func(r string, _ int) { parts = append(parts, r) })
+			}
+			if joined.String() != string(b) {
+				t.Fatalf("size %d: chunks do not join to the input %q", size, b)
+			}
+			if !reflect.DeepEqual(parts, whole) {
+				t.Fatalf("size %d: records %q, want %q", size, parts, whole)
+			}
+		}
+	}
 }

@@ -254,14 +254,7 @@ func compute(c *inputs.Cells, cfg *Config, mc *localMedia, seed uint64, s *scrat
 	o := outcome{r: r}
 	if cfg.Uncertainty {
 		if us, idx := in.Uncertain(); len(us) > 0 {
-			lookup := func(c media.Conditions) (media.Properties, error) {
-				p, err := mc.lookup(c)
-				if err != nil {
-					return media.Properties{}, err
-				}
-				return *p, nil
-			}
-			eval := in.Evaluator(idx, lookup, regime.CalcChosen)
+			eval := in.Evaluator(idx, mc.lookup)
 			var u regime.Uncertainty
 			if cfg.Method == regime.MethodLinear {
 				u, err = regime.Linear(us, eval)

@@ -106,7 +106,10 @@ func (u *uncertaintyFlags) propagate(in inputs.Input) (*regime.Uncertainty, erro
 	if len(us) == 0 {
 		return nil, nil
 	}
-	eval := in.Evaluator(idx, media.Lookup, regime.CalcChosen)
+	eval := in.Evaluator(idx, func(c media.Conditions) (*media.Properties, error) {
+		p, err := media.LookupBrief(c)
+		return &p, err
+	})
 	var res regime.Uncertainty
 	var err error
 	if u.method == regime.MethodLinear {

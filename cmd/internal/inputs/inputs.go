@@ -400,6 +400,11 @@ func Positive(field int) bool {
 
 // With returns the input with one numeric field set to v (SI units).
 func (in Input) With(field int, v float64) Input {
+	in.set(field, v)
+	return in
+}
+
+func (in *Input) set(field int, v float64) {
 	o, c := &in.Organism, &in.Conditions
 	switch field {
 	case Length:
@@ -457,7 +462,6 @@ func (in Input) With(field int, v float64) Input {
 	case Latitude:
 		c.LatitudeDeg = v
 	}
-	return in
 }
 
 // Uncertain lists the fields given with an uncertainty, as inputs for
@@ -474,19 +478,20 @@ func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
 	return us, idx
 }
 
-// Evaluator returns a function computing the result for values of the
-// uncertain fields idx, with the medium from lookup (media.Lookup, or a
-// cache in front of it) for each.
-func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (media.Properties, error), calc func(regime.Organism, media.Properties) (regime.Result, error)) regime.Evaluator {
-	return func(x []float64) (regime.Result, error) {
-		d := in
+// Evaluator returns a function computing, with regime.CalcChosenInto, the
+// result for values of the uncertain fields idx, with the medium from
+// lookup (media.LookupBrief, or a cache in front of it) for each. Every call
+// sets all of idx, so one copy of the input serves all draws.
+func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (*media.Properties, error)) regime.Evaluator {
+	d := in
+	return func(x []float64, r *regime.Result) error {
 		for i, f := range idx {
-			d = d.With(f, x[i])
+			d.set(f, x[i])
 		}
 		m, err := lookup(d.Conditions)
 		if err != nil {
-			return regime.Result{}, err
+			return err
 		}
-		return calc(d.Organism, m)
+		return regime.CalcChosenInto(r, &d.Organism, m)
 	}
 }
