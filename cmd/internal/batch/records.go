@@ -314,23 +314,28 @@ var special = func() (t [2][256]bool) {
 
 // appendField appends s to b as a CSV/TSV field, quoting when needed.
 func appendField(b []byte, s string, delim byte) []byte {
-	need := false
+	if !needsQuote(s, delim) {
+		return append(b, s...)
+	}
+	return appendQuoted(b, s)
+}
+
+// needsQuote reports whether s must be quoted as a CSV/TSV field.
+func needsQuote(s string, delim byte) bool {
 	sp := &special[0]
 	if delim != ',' {
 		sp = &special[1]
 	}
 	for i := 0; i < len(s); i++ {
 		if sp[s[i]] || s[i] == delim {
-			need = true
-			break
+			return true
 		}
 	}
-	if len(s) > 0 && (s[0] == ' ' || s[len(s)-1] == ' ') {
-		need = true
-	}
-	if !need {
-		return append(b, s...)
-	}
+	return len(s) > 0 && (s[0] == ' ' || s[len(s)-1] == ' ')
+}
+
+// appendQuoted appends s in double quotes, doubling the quotes inside.
+func appendQuoted(b []byte, s string) []byte {
 	b = append(b, '"')
 	for i := 0; i < len(s); i++ {
 		if s[i] == '"' {

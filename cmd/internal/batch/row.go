@@ -2,6 +2,7 @@ package batch
 
 import (
 	"math"
+	"slices"
 	"sort"
 	"strings"
 	"sync"
@@ -331,27 +332,40 @@ func (o outcome) uncValues() []float64 {
 		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
+// textMemo remembers, for one text column, whether its last value needed
+// quotes: the regime, law and power-kind columns repeat a few constant
+// strings, and comparing a string with itself costs no byte scan.
+type textMemo struct {
+	last  string
+	quote bool
+	set   bool
+}
+
+func (m *textMemo) append(b []byte, s string, delim byte) []byte {
+	if !m.set || s != m.last {
+		m.last, m.quote, m.set = s, needsQuote(s, delim), true
+	}
+	if !m.quote {
+		return append(b, s...)
+	}
+	return appendQuoted(b, s)
+}
+
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
-// by the delimiter, without building intermediate strings.
-func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
+// by the delimiter, without building intermediate strings; memo serves the
+// three text columns.
+func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, memo *[3]textMemo) []byte {
 	r := o.r
-	num := func(v float64) {
-		b = append(b, delim)
-		b = appendNum(b, v)
-	}
-	text := func(s string) {
-		b = append(b, delim)
-		b = appendField(b, s, delim)
-	}
-	num(r.Medium.Density)
-	num(r.Viscosity / r.Medium.Density)
-	num(r.Reynolds)
-	text(r.Regime)
-	num(r.Strouhal)
-	text(r.Drag.Chosen.Law)
-	num(r.Drag.Chosen.Force)
-	text(r.Power.Kind)
-	num(r.Power.Total)
+	b = slices.Grow(b, 256)
+	b = appendNum(append(b, delim), r.Medium.Density)
+	b = appendNum(append(b, delim), r.Viscosity/r.Medium.Density)
+	b = appendNum(append(b, delim), r.Reynolds)
+	b = memo[0].append(append(b, delim), r.Regime, delim)
+	b = appendNum(append(b, delim), r.Strouhal)
+	b = memo[1].append(append(b, delim), r.Drag.Chosen.Law, delim)
+	b = appendNum(append(b, delim), r.Drag.Chosen.Force)
+	b = memo[2].append(append(b, delim), r.Power.Kind, delim)
+	b = appendNum(append(b, delim), r.Power.Total)
 	b = append(b, delim)
 	for i, f := range o.flags {
 		if i > 0 {
@@ -361,7 +375,7 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
 	}
 	if withUnc {
 		for _, v := range o.uncValues() {
-			num(v)
+			b = appendNum(append(b, delim), v)
 		}
 	}
 	return b
