@@ -332,23 +332,28 @@ func (o outcome) uncValues() []float64 {
 		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
-// textMemo remembers, for one text column, whether its last value needed
-// quotes: the regime, law and power-kind columns repeat a few constant
+// textMemo remembers, for one text column, the field text of its last few
+// values: the regime, law and power-kind columns repeat a few constant
 // strings, and comparing a string with itself costs no byte scan.
 type textMemo struct {
-	last  string
-	quote bool
-	set   bool
+	in, out [8]string
+	n, next int
 }
 
 func (m *textMemo) append(b []byte, s string, delim byte) []byte {
-	if !m.set || s != m.last {
-		m.last, m.quote, m.set = s, needsQuote(s, delim), true
+	for i := range m.n {
+		if m.in[i] == s {
+			return append(b, m.out[i]...)
+		}
 	}
-	if !m.quote {
-		return append(b, s...)
+	out := s
+	if needsQuote(s, delim) {
+		out = string(appendQuoted(nil, s))
 	}
-	return appendQuoted(b, s)
+	m.in[m.next], m.out[m.next] = s, out
+	m.next = (m.next + 1) % len(m.in)
+	m.n = min(m.n+1, len(m.in))
+	return append(b, out...)
 }
 
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
