@@ -380,6 +380,9 @@ func parseObject(line []byte) (keys []string, raws []json.RawMessage, texts []st
 		keys, raws, texts = append(keys, k), append(raws, raw), append(texts, text)
 	}
 	if _, err := dec.Token(); err != nil {
+		if errors.Is(err, io.EOF) {
+			return nil, nil, nil, fmt.Errorf("malformed JSON: the object is not closed with }")
+		}
 		return nil, nil, nil, fmt.Errorf("malformed JSON: %v", err)
 	}
 	if dec.More() {

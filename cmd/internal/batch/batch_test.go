@@ -342,3 +342,12 @@ func TestUncertaintyIgnoredConstant(t *testing.T) {
 		t.Errorf("flag counts %v, want %s on both rows; output:\n%s", sum.Flags, WarnUncertaintyIgnored, out)
 	}
 }
+
+// A JSON object cut short is rejected with a reason a user can act on.
+func TestJSONLinesUnclosed(t *testing.T) {
+	in := "{\"length (mm)\": 12, \"speed (cm/s)\": 5}\n{\"length (mm)\": 12, \"speed (cm/s)\": 5\n"
+	_, rejects, sum := runBatch(t, []byte(in), Config{InFormat: JSONL, OutFormat: JSONL})
+	if sum.Written != 1 || len(rejects) != 1 || rejects[0].Line != 2 || !strings.Contains(rejects[0].Reason, "not closed with }") {
+		t.Errorf("written %d, rejects %+v", sum.Written, rejects)
+	}
+}

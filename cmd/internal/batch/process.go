@@ -23,7 +23,6 @@ type processor struct {
 	cells           *rowCells
 	scratch         scratch
 	growth          int // expected output bytes per input byte, in quarters
-	memo            [3]textMemo
 }
 
 // buffers recycles chunks' output buffers: the writer returns each one
@@ -110,7 +109,7 @@ func (p *processor) process(c *chunk) result {
 					out = appendField(out, f, p.outDelim)
 				}
 			}
-			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty, &p.memo)
+			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty)
 			out = append(out, '\n')
 		case JSONL:
 			out = p.appendJSON(out, fields, keys, raws)

@@ -332,44 +332,19 @@ func (o outcome) uncValues() []float64 {
 		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
-// textMemo remembers, for one text column, the field text of its last few
-// values: the regime, law and power-kind columns repeat a few constant
-// strings, and comparing a string with itself costs no byte scan.
-type textMemo struct {
-	in, out [8]string
-	n, next int
-}
-
-func (m *textMemo) append(b []byte, s string, delim byte) []byte {
-	for i := range m.n {
-		if m.in[i] == s {
-			return append(b, m.out[i]...)
-		}
-	}
-	out := s
-	if needsQuote(s, delim) {
-		out = string(appendQuoted(nil, s))
-	}
-	m.in[m.next], m.out[m.next] = s, out
-	m.next = (m.next + 1) % len(m.in)
-	m.n = min(m.n+1, len(m.in))
-	return append(b, out...)
-}
-
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
-// by the delimiter, without building intermediate strings; memo serves the
-// three text columns.
-func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, memo *[3]textMemo) []byte {
+// by the delimiter, without building intermediate strings.
+func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
 	r := o.r
 	b = slices.Grow(b, 256)
 	b = appendNum(append(b, delim), r.Medium.Density)
 	b = appendNum(append(b, delim), r.Viscosity/r.Medium.Density)
 	b = appendNum(append(b, delim), r.Reynolds)
-	b = memo[0].append(append(b, delim), r.Regime, delim)
+	b = appendField(append(b, delim), r.Regime, delim)
 	b = appendNum(append(b, delim), r.Strouhal)
-	b = memo[1].append(append(b, delim), r.Drag.Chosen.Law, delim)
+	b = appendField(append(b, delim), r.Drag.Chosen.Law, delim)
 	b = appendNum(append(b, delim), r.Drag.Chosen.Force)
-	b = memo[2].append(append(b, delim), r.Power.Kind, delim)
+	b = appendField(append(b, delim), r.Power.Kind, delim)
 	b = appendNum(append(b, delim), r.Power.Total)
 	b = append(b, delim)
 	for i, f := range o.flags {

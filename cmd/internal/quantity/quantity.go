@@ -9,6 +9,7 @@
 package quantity
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -305,6 +306,9 @@ func splitNumber(s string) (float64, string, error) {
 	num := s[:end]
 	unit := strings.TrimSpace(s[end:])
 	f, err := strconv.ParseFloat(num, 64)
+	if errors.Is(err, strconv.ErrRange) {
+		return 0, "", fmt.Errorf("%q is too large a number (beyond about 1.8e308)", num)
+	}
 	if err != nil {
 		return 0, "", fmt.Errorf("%q is not a number", num)
 	}
