@@ -104,6 +104,7 @@ func TestBadInputIsOneLine(t *testing.T) {
 		{[]string{"calc", "--length", "1mm", "--speed", "1mm/s", "--uncertainty", "bayes"}, "--uncertainty \"bayes\"", ExitUsage},
 		{[]string{"sweep", "--length", "1mm", "--speed", "1mm/s"}, "sweep needs --vary", ExitUsage},
 		{[]string{"sweep", "--vary", "shape=1:2", "--length", "1mm", "--speed", "1mm/s"}, "not a numeric input", ExitUsage},
+		{[]string{"sweep", "--vary", "speed=1mm/s:0.1cm/s", "--length", "1mm", "--speed", "1mm/s"}, "from and to are the same", ExitUsage},
 		{[]string{"tabulate", "../../../testdata/batch/lakeside.csv", "--by", "nonesuch"}, "--by: no column \"nonesuch\"", ExitUsage},
 	}
 	for _, c := range cases {

@@ -91,6 +91,9 @@ func parseVary(v string) (int, float64, float64, error) {
 	if a.PerBodyLength || b.PerBodyLength {
 		return 0, 0, 0, usagef("--vary speed: give speeds in m/s, mm/s, … (BL/s is not swept)")
 	}
+	if a.SI == b.SI {
+		return 0, 0, 0, usagef("--vary %s: from and to are the same; give two different ends", name)
+	}
 	return f, a.SI, b.SI, nil
 }
 
