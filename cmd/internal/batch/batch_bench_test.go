@@ -53,7 +53,7 @@ func BenchmarkRow(b *testing.B) {
 	}
 	cache := newLocalMedia(newMediumCache(), localSlots)
 	cfg := &Config{DefaultMedium: "freshwater"}
-	rc := newRowCells(m, inputs.Flags{})
+	rc := newRowCells(m, inputs.Flags{}, "freshwater", false)
 	var s scratch
 	b.ResetTimer()
 	for i := range b.N {

@@ -62,15 +62,17 @@ func (p *processor) process(c *chunk) result {
 			return
 		}
 		if p.cells == nil {
-			p.cells = newRowCells(p.m, p.cfg.Constants)
+			p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty)
 		}
 		var seed uint64
 		if p.cfg.Uncertainty {
 			seed = p.cfg.Seed ^ fnv64(rec)
 		}
-		cells := p.cells.fill(fields)
-		o, err := compute(cells, &p.cfg, p.cache, seed, &p.scratch)
-		if err == nil && !p.cfg.Uncertainty && p.cells.uncertain {
+		o, err, direct := p.computeDirect(fields)
+		if !direct {
+			o, err = compute(p.cells.fill(fields), &p.cfg, p.cache, seed, &p.scratch)
+		}
+		if err == nil && !p.cfg.Uncertainty && !direct && p.cells.uncertain {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
 		}
 		if err != nil {
@@ -150,6 +152,20 @@ func (p *processor) process(c *chunk) result {
 	}
 	res.rows = row
 	return res
+}
+
+// computeDirect computes a row of plain numbers without reading it into
+// cells; direct is false when the row needs the general path.
+func (p *processor) computeDirect(fields []string) (o outcome, err error, direct bool) {
+	if p.cells.direct == nil {
+		return o, nil, false
+	}
+	in, err, ok := p.cells.direct.Row(fields)
+	if !ok || err != nil {
+		return o, err, ok
+	}
+	o, err = computeInput(in, &p.cfg, p.cache, 0, &p.scratch)
+	return o, err, true
 }
 
 // alignJSON parses a JSON object and lines its values up with the header

@@ -43,6 +43,7 @@ func (cfg Config) columns() []string {
 // the general parser.
 type rowCells struct {
 	m         *mapping
+	direct    *inputs.Direct // rows of plain numbers, when the columns allow; nil otherwise
 	cells     inputs.Cells
 	plan      []column // the columns that hold inputs
 	constSD   bool     // a flag constant carries an uncertainty
@@ -58,9 +59,20 @@ type column struct {
 	full              bool // the cell's Value holds conv's unit and flags, so a plain number sets SI alone
 }
 
-func newRowCells(m *mapping, constants inputs.Flags) *rowCells {
+func newRowCells(m *mapping, constants inputs.Flags, defaultMedium string, uncertainty bool) *rowCells {
 	rc := &rowCells{m: m}
 	rc.cells.Read(constants)
+	var cols []inputs.Column
+	direct := !uncertainty
+	for f := range inputs.Fields {
+		if m.col[f] >= 0 {
+			cols = append(cols, inputs.Column{Field: f, Col: m.col[f], Conv: m.conv[f]})
+			direct = direct && m.sdCol[f] < 0 && (inputs.Fields[f].Text || m.convOK[f])
+		}
+	}
+	if direct {
+		rc.direct, _ = inputs.NewDirect(&rc.cells, cols, m.label, defaultMedium)
+	}
 	for f := range inputs.Fields {
 		if m.col[f] < 0 && rc.cells.Given[f] && rc.cells.Err[f] == nil && rc.cells.Value[f].SD > 0 {
 			rc.constSD = true
@@ -243,6 +255,11 @@ func compute(c *inputs.Cells, cfg *Config, mc *localMedia, seed uint64, s *scrat
 	if err != nil {
 		return outcome{}, err
 	}
+	return computeInput(&in, cfg, mc, seed, s)
+}
+
+// computeInput evaluates one row's input.
+func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s *scratch) (outcome, error) {
 	m, err := mc.lookup(in.Conditions)
 	if err != nil {
 		return outcome{}, err

@@ -167,3 +167,18 @@ func BenchmarkStrconvParse(b *testing.B) {
 		strconv.ParseFloat(ss[i%len(ss)], 64)
 	}
 }
+
+// BenchmarkAppendGMixed formats log-uniform values over the range the batch
+// prints (10⁻¹³ to 10⁶), in an order the branch predictor cannot learn.
+func BenchmarkAppendGMixed(b *testing.B) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	vals := make([]float64, 4096)
+	for i := range vals {
+		vals[i] = math.Pow(10, -13+19*rng.Float64())
+	}
+	buf := make([]byte, 0, 32)
+	b.ResetTimer()
+	for i := range b.N {
+		buf = AppendG(buf[:0], vals[i%len(vals)], 6)
+	}
+}

@@ -255,27 +255,15 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 		in.Values[Speed] = sp
 	}
 
-	shape := regime.Sphere
-	if !math.IsNaN(dia) {
-		shape = regime.Spheroid
-	}
 	hasCD, _ := rd.has(DragCoefficient)
 	hasArea, _ := rd.has(Area)
-	if hasCD || hasArea {
-		shape = regime.Measured
-	}
-	if s, label := rd.text(Shape); s != "" {
-		sh, err := regime.ParseShape(s)
-		if err != nil {
-			return in, fmt.Errorf("%s: %s", label, strings.TrimPrefix(err.Error(), "regime: "))
-		}
-		shape = sh
+	shapeText, shapeLabel := rd.text(Shape)
+	shape, err := bodyShape(!math.IsNaN(dia), hasCD, hasArea, shapeText, shapeLabel)
+	if err != nil {
+		return in, err
 	}
 	b := regime.Body{Shape: shape, Length: length, Diameter: dia}
 	if shape == regime.Measured {
-		if !hasCD || !hasArea {
-			return in, fmt.Errorf("a measured body needs both a drag coefficient and its reference area")
-		}
 		b.DragCoefficient = rd.num(DragCoefficient)
 		b.ReferenceArea = rd.num(Area)
 	}
@@ -298,8 +286,8 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	if rd.err != nil {
 		return in, rd.err
 	}
-	if err := b.Validate(); err != nil {
-		return in, fmt.Errorf("%s", strings.TrimPrefix(err.Error(), "regime: "))
+	if err := validBody(b); err != nil {
+		return in, err
 	}
 	in.Organism = o
 
@@ -313,6 +301,49 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	}
 	in.Conditions = c
 	return in, nil
+}
+
+// bodyShape is the shape of a body: the named one, else a measured body
+// when a drag coefficient or area is given, a spheroid when a diameter is,
+// a sphere otherwise. label names the shape's origin in errors.
+func bodyShape(hasDia, hasCD, hasArea bool, name, label string) (regime.Shape, error) {
+	shape := regime.Sphere
+	if hasDia {
+		shape = regime.Spheroid
+	}
+	if hasCD || hasArea {
+		shape = regime.Measured
+	}
+	if name != "" {
+		sh, err := regime.ParseShape(name)
+		if err != nil {
+			return shape, fmt.Errorf("%s: %s", label, strings.TrimPrefix(err.Error(), "regime: "))
+		}
+		shape = sh
+	}
+	if shape == regime.Measured && (!hasCD || !hasArea) {
+		return shape, fmt.Errorf("a measured body needs both a drag coefficient and its reference area")
+	}
+	return shape, nil
+}
+
+// validBody is regime's check of a body, worded for a user.
+func validBody(b regime.Body) error {
+	if err := b.Validate(); err != nil {
+		return fmt.Errorf("%s", strings.TrimPrefix(err.Error(), "regime: "))
+	}
+	return nil
+}
+
+// checkConditions rejects medium conditions that contradict each other.
+func checkConditions(c media.Conditions) error {
+	if !math.IsNaN(c.TemperatureC) && !math.IsNaN(c.TemperatureOffset) {
+		return fmt.Errorf("a temperature offset applies to the standard-atmosphere temperature; give either a temperature or an offset, not both")
+	}
+	if !math.IsNaN(c.DepthM) && !math.IsNaN(c.PressurePa) {
+		return fmt.Errorf("give either a depth or a pressure, not both")
+	}
+	return nil
 }
 
 func orName(label, name string) string {
@@ -357,13 +388,7 @@ func (rd *reader) conditions(medium string, values []quantity.Value) (media.Cond
 	if rd.err != nil {
 		return c, rd.err
 	}
-	if !math.IsNaN(c.TemperatureC) && !math.IsNaN(c.TemperatureOffset) {
-		return c, fmt.Errorf("a temperature offset applies to the standard-atmosphere temperature; give either a temperature or an offset, not both")
-	}
-	if !math.IsNaN(c.DepthM) && !math.IsNaN(c.PressurePa) {
-		return c, fmt.Errorf("give either a depth or a pressure, not both")
-	}
-	return c, nil
+	return c, checkConditions(c)
 }
 
 // Flags is a Source over flag values keyed by field name.
@@ -405,62 +430,8 @@ func (in Input) With(field int, v float64) Input {
 }
 
 func (in *Input) set(field int, v float64) {
-	o, c := &in.Organism, &in.Conditions
-	switch field {
-	case Length:
-		o.Body.Length = v
-	case Diameter:
-		o.Body.Diameter = v
-	case Speed:
-		o.Speed = v
-	case Frequency:
-		o.Frequency = v
-	case Amplitude:
-		o.Amplitude = v
-	case Mass:
-		o.Mass = v
-	case Span:
-		o.Span = v
-	case WingLength:
-		o.WingLength = v
-	case Chord:
-		o.Chord = v
-	case WingArea:
-		o.WingArea = v
-	case StrokeAngle:
-		o.StrokeAngle = v
-	case Efficiency:
-		o.Efficiency = v
-	case DragCoefficient:
-		o.Body.DragCoefficient = v
-	case Area:
-		o.Body.ReferenceArea = v
-	case InducedFactor:
-		o.InducedFactor = v
-	case ProfileDrag:
-		o.ProfileCD = v
-	case Diffusivity:
-		o.Diffusivity = v
-	case ShearRate:
-		o.ShearRate = v
-	case RelaxationTime:
-		o.RelaxationTime = v
-	case Temperature:
-		c.TemperatureC = v
-	case TempOffset:
-		c.TemperatureOffset = v
-	case Salinity:
-		c.SalinityPractical = v
-	case Depth:
-		c.DepthM = v
-	case Pressure:
-		c.PressurePa = v
-	case Altitude:
-		c.AltitudeM = v
-	case Humidity:
-		c.HumidityPercent = v
-	case Latitude:
-		c.LatitudeDeg = v
+	if p := in.field(field); p != nil {
+		*p = v
 	}
 }
 

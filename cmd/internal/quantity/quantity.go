@@ -365,6 +365,9 @@ func (c *Conv) Apply(v float64) Value {
 	return out
 }
 
+// PerBodyLength reports whether the unit is body lengths (per second).
+func (c *Conv) PerBodyLength() bool { return c.tmpl.PerBodyLength }
+
 // SI converts a plain number to the library's unit; Apply's Value has the
 // unit and flags as well.
 func (c *Conv) SI(v float64) float64 { return v*c.c.factor + c.c.offset }

@@ -1,0 +1,227 @@
+package inputs
+
+import (
+	"math"
+	"strings"
+
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
+)
+
+// Column is a table column that holds one field, with the conversion of
+// its unit (quantity.Resolve).
+type Column struct {
+	Field, Col int
+	Conv       quantity.Conv
+}
+
+// Direct reads table rows whose cells are plain numbers straight into an
+// Input, without Cells: the fast path of a batch. A row it gives is the
+// Input BuildCells would give for the same cells, error included; a row
+// with anything else in a numeric cell (a unit, an uncertainty, a word) or
+// without a length or speed is left to the caller's Cells and BuildCells,
+// which also name the cell at fault.
+type Direct struct {
+	in, base      Input
+	nums          []directNum
+	text          [NumFields]int // column of each text field, −1 if none
+	speedPerBL    bool           // the speed column is in body lengths per second
+	shapeLabel    string
+	defaultMedium string
+}
+
+type directNum struct {
+	col  int
+	dst  *float64
+	conv quantity.Conv
+}
+
+// NewDirect prepares direct reading for the columns, with the constants
+// already read into cells for the fields that have no column. ok is false
+// when the columns or constants need the general path for every row: a
+// column whose unit is not known in advance, a temperature offset, or a
+// constant with an uncertainty or an error.
+func NewDirect(constants *Cells, cols []Column, labels [NumFields]string, defaultMedium string) (*Direct, bool) {
+	d := &Direct{defaultMedium: defaultMedium}
+	d.base.Organism = regime.NewOrganism(regime.Body{Length: math.NaN(), Diameter: math.NaN(),
+		DragCoefficient: math.NaN(), ReferenceArea: math.NaN()}, math.NaN())
+	d.base.Conditions = media.Unset("")
+	hasCol := [NumFields]bool{}
+	for i := range d.text {
+		d.text[i] = -1
+	}
+	for _, c := range cols {
+		hasCol[c.Field] = true
+		switch {
+		case c.Field == TempOffset:
+			return nil, false
+		case Fields[c.Field].Text:
+			d.text[c.Field] = c.Col
+		case c.Conv.PerBodyLength() && c.Field != Speed:
+			return nil, false
+		default:
+			d.speedPerBL = d.speedPerBL || c.Conv.PerBodyLength()
+			d.nums = append(d.nums, directNum{col: c.Col, dst: d.in.field(c.Field), conv: c.Conv})
+		}
+	}
+	for f := range Fields {
+		if hasCol[f] || !constants.Given[f] {
+			continue
+		}
+		v := constants.Value[f]
+		switch {
+		case constants.Err[f] != nil || f == TempOffset:
+			return nil, false
+		case Fields[f].Text:
+		case v.SD > 0 || v.PerBodyLength || math.IsNaN(v.SI):
+			return nil, false
+		default:
+			*d.base.field(f) = v.SI
+		}
+	}
+	d.shapeLabel = labels[Shape]
+	if !hasCol[Shape] {
+		d.shapeLabel = constants.Label[Shape]
+	}
+	d.base.Organism.Disc = constants.Text[Disc]
+	d.base.Conditions.Medium = constants.Text[Medium]
+	d.base.Organism.Body.Shape = regime.Shape(constants.Text[Shape])
+	return d, true
+}
+
+// Row reads one row's fields. ok is false when the row needs the general
+// path; otherwise the Input (valid until the next call) or the error is
+// BuildCells'.
+func (d *Direct) Row(fields []string) (in *Input, err error, ok bool) {
+	d.in = d.base
+	for i := range d.nums {
+		n := &d.nums[i]
+		if n.col >= len(fields) {
+			continue
+		}
+		t := fields[n.col]
+		if t == "" {
+			continue
+		}
+		if t[0] <= ' ' || t[len(t)-1] <= ' ' {
+			if t = strings.TrimSpace(t); t == "" {
+				continue
+			}
+		}
+		v, ok := quantity.PlainNumber(t)
+		if !ok {
+			return nil, nil, false
+		}
+		*n.dst = n.conv.SI(v)
+	}
+	o := &d.in.Organism
+	if math.IsNaN(o.Body.Length) || math.IsNaN(o.Speed) {
+		return nil, nil, false
+	}
+	for f, col := range d.text {
+		if col >= 0 && col < len(fields) {
+			d.setText(f, strings.TrimSpace(fields[col]))
+		} else if col >= 0 {
+			d.setText(f, "")
+		}
+	}
+	if d.speedPerBL {
+		o.Speed *= o.Body.Length
+	}
+	b := &o.Body
+	hasCD, hasArea := !math.IsNaN(b.DragCoefficient), !math.IsNaN(b.ReferenceArea)
+	shape, err := bodyShape(!math.IsNaN(b.Diameter), hasCD, hasArea, string(b.Shape), d.shapeLabel)
+	if err != nil {
+		return nil, err, true
+	}
+	b.Shape = shape
+	if shape != regime.Measured { // BuildCells leaves them zero
+		b.DragCoefficient, b.ReferenceArea = 0, 0
+	}
+	if err := validBody(*b); err != nil {
+		return nil, err, true
+	}
+	if d.in.Conditions.Medium == "" {
+		d.in.Conditions.Medium = d.defaultMedium
+	}
+	if err := checkConditions(d.in.Conditions); err != nil {
+		return nil, err, true
+	}
+	return &d.in, nil, true
+}
+
+// setText stores a text field; the shape is kept as its text until Row
+// resolves it.
+func (d *Direct) setText(f int, t string) {
+	switch f {
+	case Shape:
+		d.in.Organism.Body.Shape = regime.Shape(t)
+	case Medium:
+		d.in.Conditions.Medium = t
+	case Disc:
+		d.in.Organism.Disc = t
+	}
+}
+
+// field returns where a numeric field is kept in the Input.
+func (in *Input) field(f int) *float64 {
+	o, c := &in.Organism, &in.Conditions
+	switch f {
+	case Length:
+		return &o.Body.Length
+	case Diameter:
+		return &o.Body.Diameter
+	case Speed:
+		return &o.Speed
+	case Frequency:
+		return &o.Frequency
+	case Amplitude:
+		return &o.Amplitude
+	case Mass:
+		return &o.Mass
+	case Span:
+		return &o.Span
+	case WingLength:
+		return &o.WingLength
+	case Chord:
+		return &o.Chord
+	case WingArea:
+		return &o.WingArea
+	case StrokeAngle:
+		return &o.StrokeAngle
+	case Efficiency:
+		return &o.Efficiency
+	case DragCoefficient:
+		return &o.Body.DragCoefficient
+	case Area:
+		return &o.Body.ReferenceArea
+	case InducedFactor:
+		return &o.InducedFactor
+	case ProfileDrag:
+		return &o.ProfileCD
+	case Diffusivity:
+		return &o.Diffusivity
+	case ShearRate:
+		return &o.ShearRate
+	case RelaxationTime:
+		return &o.RelaxationTime
+	case Temperature:
+		return &c.TemperatureC
+	case TempOffset:
+		return &c.TemperatureOffset
+	case Salinity:
+		return &c.SalinityPractical
+	case Depth:
+		return &c.DepthM
+	case Pressure:
+		return &c.PressurePa
+	case Altitude:
+		return &c.AltitudeM
+	case Humidity:
+		return &c.HumidityPercent
+	case Latitude:
+		return &c.LatitudeDeg
+	}
+	return nil
+}
