@@ -55,22 +55,30 @@ func newLocalMedia(shared *mediumCache, maxSlots int) *localMedia {
 }
 
 // compact returns the compact key, or false when the medium is not built in
-// or more than three conditions are given.
-func compact(k *cacheKey) (localKey, bool) {
+// or more than three conditions are given. The conditions are taken in
+// mediumCache.key's order, so that equal keys mean equal conditions.
+func compact(c *media.Conditions) (localKey, bool) {
 	var lk localKey
-	if k[0] == 0 || k[0] > 3 {
+	switch c.Medium {
+	case media.KindAir:
+		lk.w0 = 1
+	case media.KindFreshWater:
+		lk.w0 = 2
+	case media.KindSeawater:
+		lk.w0 = 3
+	default:
 		return lk, false
 	}
-	lk.w0 = k[0]
 	n := 0
-	for i, w := range k[1:] {
-		if w == canonicalNaN {
+	for i, v := range [...]float64{c.TemperatureC, c.TemperatureOffset, c.SalinityPractical, c.PressurePa,
+		c.DepthM, c.AltitudeM, c.HumidityPercent, c.LatitudeDeg} {
+		if v != v { // unset
 			continue
 		}
 		if n == len(lk.v) {
 			return lk, false
 		}
-		lk.v[n] = w
+		lk.v[n] = math.Float64bits(v)
 		lk.w0 |= 1 << (8 + i)
 		n++
 	}
@@ -95,8 +103,7 @@ func (s *mediaSlot) matches(k *localKey) bool {
 // lookup returns the medium's properties; the result must not be modified
 // and is valid until the next call.
 func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
-	full := l.shared.key(c)
-	k, ok := compact(&full)
+	k, ok := compact(&c)
 	if !ok {
 		return l.shared.lookup(c)
 	}
