@@ -337,11 +337,13 @@ func needsQuote(s string, delim byte) bool {
 // appendQuoted appends s in double quotes, doubling the quotes inside.
 func appendQuoted(b []byte, s string) []byte {
 	b = append(b, '"')
-	for i := 0; i < len(s); i++ {
-		if s[i] == '"' {
-			b = append(b, '"')
+	for {
+		i := strings.IndexByte(s, '"')
+		if i < 0 {
+			break
 		}
-		b = append(b, s[i])
+		b = append(append(b, s[:i+1]...), '"')
+		s = s[i+1:]
 	}
-	return append(b, '"')
+	return append(append(b, s...), '"')
 }
