@@ -182,3 +182,17 @@ func BenchmarkAppendGMixed(b *testing.B) {
 		buf = AppendG(buf[:0], vals[i%len(vals)], 6)
 	}
 }
+
+// BenchmarkParseMixed reads survey-like cells of varying length in an order
+// the branch predictor cannot learn.
+func BenchmarkParseMixed(b *testing.B) {
+	rng := rand.New(rand.NewPCG(5, 6))
+	ss := make([]string, 4096)
+	for i := range ss {
+		ss[i] = strconv.FormatFloat(math.Pow(10, -3+7*rng.Float64()), 'f', rng.IntN(5), 64)
+	}
+	b.ResetTimer()
+	for i := range b.N {
+		Parse(ss[i%len(ss)])
+	}
+}
