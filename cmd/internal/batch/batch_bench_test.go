@@ -36,9 +36,9 @@ func BenchmarkBatchCSV(b *testing.B) {
 	b.ReportMetric(float64(n*b.N)/b.Elapsed().Seconds(), "rows/s")
 }
 
-// BenchmarkRow measures the computation of one row, without reading or
-// writing.
-func BenchmarkRow(b *testing.B) {
+// rowBench prepares the rows of a 1000-row survey, split into fields, and
+// a worker's reading and medium table.
+func rowBench(b *testing.B) ([][]string, *rowCells, *localMedia, *Config) {
 	data := surveyData(b, 1000)
 	lines := bytes.Split(bytes.TrimSpace(data), []byte{'\n'})
 	header, _ := splitFields(nil, string(lines[0]), ',')
@@ -51,9 +51,33 @@ func BenchmarkRow(b *testing.B) {
 		f, _ := splitFields(nil, string(l), ',')
 		rows = append(rows, f)
 	}
-	cache := newLocalMedia(newMediumCache(), localSlots)
-	cfg := &Config{DefaultMedium: "freshwater"}
-	rc := newRowCells(m, inputs.Flags{}, "freshwater", false)
+	return rows, newRowCells(m, inputs.Flags{}, "freshwater", false), newLocalMedia(newMediumCache(), localSlots), &Config{DefaultMedium: "freshwater"}
+}
+
+// BenchmarkRow measures the computation of one row, without reading or
+// writing, the way batch computes rows of plain numbers.
+func BenchmarkRow(b *testing.B) {
+	rows, rc, cache, cfg := rowBench(b)
+	var s scratch
+	b.ResetTimer()
+	for i := range b.N {
+		fields := rows[i%len(rows)]
+		in, err, ok := rc.direct.Row(fields)
+		if ok && err == nil {
+			_, err = computeInput(in, cfg, cache, 1, &s)
+		} else if !ok {
+			_, err = compute(rc.fill(fields), cfg, cache, 1, &s)
+		}
+		if err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkRowCells is BenchmarkRow through cells for every row, the path
+// for rows with units, uncertainties or words in their cells.
+func BenchmarkRowCells(b *testing.B) {
+	rows, rc, cache, cfg := rowBench(b)
 	var s scratch
 	b.ResetTimer()
 	for i := range b.N {
