@@ -119,3 +119,33 @@ func TestDirectDeclines(t *testing.T) {
 		}
 	}
 }
+
+// FuzzDirectEqualsCells feeds arbitrary cells to both paths:
+// go test -fuzz FuzzDirectEqualsCells ./cmd/internal/batch
+func FuzzDirectEqualsCells(f *testing.F) {
+	header := []string{"length (mm)", "diameter (mm)", "shape", "speed (BL/s)", "mass (g)", "span (mm)", "medium", "temp_C", "depth (m)", "pressure (kPa)"}
+	m, err := newMapping(header, nil, nil)
+	if err != nil {
+		f.Fatal(err)
+	}
+	rc := newRowCells(m, inputs.Flags{"salinity": "30"}, "freshwater", false)
+	f.Add("12.5", "", "", "3", "", "", "", "15", "", "")
+	f.Add("12.5", "2", "rod", "3", "1.2", "30", "air", "15", "", "")
+	f.Add(" 1e3", "0", "SPHERE", "-1", "", "", "seawater", "40", "10", "101")
+	f.Fuzz(func(t *testing.T, a, b, c, d, e, g, h, i, j, k string) {
+		fields := []string{a, b, c, d, e, g, h, i, j, k}
+		got, gotErr, ok := rc.direct.Row(fields)
+		if !ok {
+			return
+		}
+		want, wantErr := inputs.BuildCells(rc.fill(fields), "freshwater", false)
+		if fmt.Sprint(gotErr) != fmt.Sprint(wantErr) {
+			t.Fatalf("%q: direct error %v, cells error %v", fields, gotErr, wantErr)
+		}
+		if gotErr == nil {
+			if g, w := fmt.Sprintf("%#v %#v", got.Organism, got.Conditions), fmt.Sprintf("%#v %#v", want.Organism, want.Conditions); g != w {
+				t.Fatalf("%q:\ndirect %s\ncells  %s", fields, g, w)
+			}
+		}
+	})
+}
