@@ -62,7 +62,7 @@ func BenchmarkRow(b *testing.B) {
 	b.ResetTimer()
 	for i := range b.N {
 		fields := rows[i%len(rows)]
-		in, err, ok := rc.direct.Row(fields)
+		in, ok, err := rc.direct.Row(fields)
 		if ok && err == nil {
 			_, err = computeInput(in, cfg, cache, 1, &s)
 		} else if !ok {

@@ -74,7 +74,7 @@ func TestDirectEqualsCells(t *testing.T) {
 						fields[i] = number(rng)
 					}
 				}
-				got, gotErr, ok := rc.direct.Row(fields)
+				got, ok, gotErr := rc.direct.Row(fields)
 				if !ok {
 					continue
 				}
@@ -134,7 +134,7 @@ func FuzzDirectEqualsCells(f *testing.F) {
 	f.Add(" 1e3", "0", "SPHERE", "-1", "", "", "seawater", "40", "10", "101")
 	f.Fuzz(func(t *testing.T, a, b, c, d, e, g, h, i, j, k string) {
 		fields := []string{a, b, c, d, e, g, h, i, j, k}
-		got, gotErr, ok := rc.direct.Row(fields)
+		got, ok, gotErr := rc.direct.Row(fields)
 		if !ok {
 			return
 		}

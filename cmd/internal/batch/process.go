@@ -68,7 +68,7 @@ func (p *processor) process(c *chunk) result {
 		if p.cfg.Uncertainty {
 			seed = p.cfg.Seed ^ fnv64(rec)
 		}
-		o, err, direct := p.computeDirect(fields)
+		o, direct, err := p.computeDirect(fields)
 		if !direct {
 			o, err = compute(p.cells.fill(fields), &p.cfg, p.cache, seed, &p.scratch)
 		}
@@ -156,16 +156,16 @@ func (p *processor) process(c *chunk) result {
 
 // computeDirect computes a row of plain numbers without reading it into
 // cells; direct is false when the row needs the general path.
-func (p *processor) computeDirect(fields []string) (o outcome, err error, direct bool) {
+func (p *processor) computeDirect(fields []string) (o outcome, direct bool, err error) {
 	if p.cells.direct == nil {
-		return o, nil, false
+		return o, false, nil
 	}
-	in, err, ok := p.cells.direct.Row(fields)
+	in, ok, err := p.cells.direct.Row(fields)
 	if !ok || err != nil {
-		return o, err, ok
+		return o, ok, err
 	}
 	o, err = computeInput(in, &p.cfg, p.cache, 0, &p.scratch)
-	return o, err, true
+	return o, true, err
 }
 
 // alignJSON parses a JSON object and lines its values up with the header

@@ -24,12 +24,16 @@ type Column struct {
 // which also name the cell at fault.
 type Direct struct {
 	in, base      Input
+	shape         string // the row's shape text, resolved by Row
+	baseShape     string // the shape constant, if any
 	nums          []directNum
-	text          [NumFields]int // column of each text field, −1 if none
-	speedPerBL    bool           // the speed column is in body lengths per second
+	texts         []directText
+	speedPerBL    bool // the speed column is in body lengths per second
 	shapeLabel    string
 	defaultMedium string
 }
+
+type directText struct{ field, col int }
 
 type directNum struct {
 	col  int
@@ -48,16 +52,13 @@ func NewDirect(constants *Cells, cols []Column, labels [NumFields]string, defaul
 		DragCoefficient: math.NaN(), ReferenceArea: math.NaN()}, math.NaN())
 	d.base.Conditions = media.Unset("")
 	hasCol := [NumFields]bool{}
-	for i := range d.text {
-		d.text[i] = -1
-	}
 	for _, c := range cols {
 		hasCol[c.Field] = true
 		switch {
 		case c.Field == TempOffset:
 			return nil, false
 		case Fields[c.Field].Text:
-			d.text[c.Field] = c.Col
+			d.texts = append(d.texts, directText{c.Field, c.Col})
 		case c.Conv.PerBodyLength() && c.Field != Speed:
 			return nil, false
 		default:
@@ -86,15 +87,15 @@ func NewDirect(constants *Cells, cols []Column, labels [NumFields]string, defaul
 	}
 	d.base.Organism.Disc = constants.Text[Disc]
 	d.base.Conditions.Medium = constants.Text[Medium]
-	d.base.Organism.Body.Shape = regime.Shape(constants.Text[Shape])
+	d.baseShape = constants.Text[Shape]
 	return d, true
 }
 
 // Row reads one row's fields. ok is false when the row needs the general
 // path; otherwise the Input (valid until the next call) or the error is
 // BuildCells'.
-func (d *Direct) Row(fields []string) (in *Input, err error, ok bool) {
-	d.in = d.base
+func (d *Direct) Row(fields []string) (in *Input, ok bool, err error) {
+	d.in, d.shape = d.base, d.baseShape
 	for i := range d.nums {
 		n := &d.nums[i]
 		if n.col >= len(fields) {
@@ -111,52 +112,52 @@ func (d *Direct) Row(fields []string) (in *Input, err error, ok bool) {
 		}
 		v, ok := quantity.PlainNumber(t)
 		if !ok {
-			return nil, nil, false
+			return nil, false, nil
 		}
 		*n.dst = n.conv.SI(v)
 	}
 	o := &d.in.Organism
 	if math.IsNaN(o.Body.Length) || math.IsNaN(o.Speed) {
-		return nil, nil, false
+		return nil, false, nil
 	}
-	for f, col := range d.text {
-		if col >= 0 && col < len(fields) {
-			d.setText(f, strings.TrimSpace(fields[col]))
-		} else if col >= 0 {
-			d.setText(f, "")
+	for _, t := range d.texts {
+		text := ""
+		if t.col < len(fields) {
+			text = strings.TrimSpace(fields[t.col])
 		}
+		d.setText(t.field, text)
 	}
 	if d.speedPerBL {
 		o.Speed *= o.Body.Length
 	}
 	b := &o.Body
 	hasCD, hasArea := !math.IsNaN(b.DragCoefficient), !math.IsNaN(b.ReferenceArea)
-	shape, err := bodyShape(!math.IsNaN(b.Diameter), hasCD, hasArea, string(b.Shape), d.shapeLabel)
+	shape, err := bodyShape(!math.IsNaN(b.Diameter), hasCD, hasArea, d.shape, d.shapeLabel)
 	if err != nil {
-		return nil, err, true
+		return nil, true, err
 	}
 	b.Shape = shape
 	if shape != regime.Measured { // BuildCells leaves them zero
 		b.DragCoefficient, b.ReferenceArea = 0, 0
 	}
 	if err := validBody(*b); err != nil {
-		return nil, err, true
+		return nil, true, err
 	}
 	if d.in.Conditions.Medium == "" {
 		d.in.Conditions.Medium = d.defaultMedium
 	}
 	if err := checkConditions(d.in.Conditions); err != nil {
-		return nil, err, true
+		return nil, true, err
 	}
-	return &d.in, nil, true
+	return &d.in, true, nil
 }
 
-// setText stores a text field; the shape is kept as its text until Row
+// setText stores a text field; the shape is kept as text until Row
 // resolves it.
 func (d *Direct) setText(f int, t string) {
 	switch f {
 	case Shape:
-		d.in.Organism.Body.Shape = regime.Shape(t)
+		d.shape = t
 	case Medium:
 		d.in.Conditions.Medium = t
 	case Disc:
