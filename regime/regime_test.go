@@ -203,9 +203,6 @@ func TestGlauertInducedVelocity(t *testing.T) {
 	checkRel(t, "fast limit", InducedVelocity(T, rho, A, 300), T/(2*rho*A*300), 1e-4)
 }
 
-// Blade-element profile power in hover against the closed form
-// ρC_D c (πΦf)³ (4/(3π)) R⁴/4 (two wings, simple-harmonic stroke; cycle
-// mean of |sin|³ = 4/(3π)), and gliding against ½ρC_D S V³.
 // The span integral's closed form against gonum's Gauss–Legendre
 // quadrature (quad.Fixed, 200 nodes; the integrand is smooth).
 func TestSpanIntegralAgainstQuadrature(t *testing.T) {
@@ -220,6 +217,9 @@ func TestSpanIntegralAgainstQuadrature(t *testing.T) {
 	}
 }
 
+// Blade-element profile power in hover against the closed form
+// ρC_D c (πΦf)³ (4/(3π)) R⁴/4 (two wings, simple-harmonic stroke; cycle
+// mean of |sin|³ = 4/(3π)), and gliding against ½ρC_D S V³.
 func TestProfilePowerClosedForms(t *testing.T) {
 	const rho, cd, c, r, phi, f = 1.2, 0.1, 0.01, 0.05, 2.0, 30.0
 	want := rho * cd * c * math.Pow(math.Pi*phi*f, 3) * 4 / (3 * math.Pi) * math.Pow(r, 4) / 4

@@ -173,6 +173,12 @@ func TestHeaderMatching(t *testing.T) {
 	if err != nil || m.col[inputs.Length] != 0 || m.unit[inputs.Length] != "mm" || m.unit[inputs.Speed] != "cm/s" {
 		t.Errorf("overrides: %v %+v", err, m)
 	}
+	// A --column naming no header says which headers there are, and the
+	// first wrong flag in name order is the one reported.
+	_, err = newMapping([]string{"Body length", "speed"}, map[string]string{"speed": "U", "length": "BL"}, nil)
+	if err == nil || !strings.HasPrefix(err.Error(), `--column length="BL"`) || !strings.Contains(err.Error(), "columns are: Body length, speed") {
+		t.Errorf("unknown --column header: %v", err)
+	}
 }
 
 // FuzzRecords feeds arbitrary bytes as a CSV body: no panic, and every

@@ -2,6 +2,8 @@ package batch
 
 import (
 	"fmt"
+	"maps"
+	"slices"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -116,7 +118,8 @@ func newMapping(header []string, columns, units map[string]string) (*mapping, er
 		m.col[i], m.sdCol[i] = -1, -1
 	}
 	forced := map[int]bool{}
-	for name, h := range columns {
+	for _, name := range slices.Sorted(maps.Keys(columns)) { // the same error for the same flags
+		h := columns[name]
 		f := inputs.Index(name)
 		if f < 0 {
 			return nil, fmt.Errorf("--column %s=…: unknown quantity %q; accepted: %s", name, name, fieldNames())
@@ -128,7 +131,7 @@ func newMapping(header []string, columns, units map[string]string) (*mapping, er
 			}
 		}
 		if idx < 0 {
-			return nil, fmt.Errorf("--column %s=%q: no such column in the header", name, h)
+			return nil, fmt.Errorf("--column %s=%q: no such column in the header; columns are: %s", name, h, strings.Join(header, ", "))
 		}
 		m.col[f] = idx
 		_, m.unit[f] = splitHeader(h)

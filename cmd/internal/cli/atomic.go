@@ -1,6 +1,9 @@
 package cli
 
 import (
+	"errors"
+	"fmt"
+	"io/fs"
 	"os"
 	"path/filepath"
 )
@@ -66,7 +69,12 @@ func createAtomic(target string) (*atomicFile, error) {
 		dir = "."
 	}
 	f, err := os.CreateTemp(dir, "."+base+".*.tmp")
-	if err != nil {
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		return nil, fmt.Errorf("the folder %s does not exist", filepath.Clean(dir))
+	case errors.Is(err, fs.ErrPermission):
+		return nil, fmt.Errorf("no permission to create files in %s", filepath.Clean(dir))
+	case err != nil:
 		return nil, err
 	}
 	return &atomicFile{File: f, target: target, nextSync: syncEvery}, nil

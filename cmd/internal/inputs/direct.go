@@ -167,7 +167,15 @@ func (d *Direct) setText(f int, t string) {
 
 // field returns where a numeric field is kept in the Input.
 func (in *Input) field(f int) *float64 {
-	o, c := &in.Organism, &in.Conditions
+	if p := conditionField(&in.Conditions, f); p != nil {
+		return p
+	}
+	return organismField(&in.Organism, f)
+}
+
+// organismField returns where a numeric field of the organism is kept, or
+// nil.
+func organismField(o *regime.Organism, f int) *float64 {
 	switch f {
 	case Length:
 		return &o.Body.Length
@@ -207,6 +215,14 @@ func (in *Input) field(f int) *float64 {
 		return &o.ShearRate
 	case RelaxationTime:
 		return &o.RelaxationTime
+	}
+	return nil
+}
+
+// conditionField returns where a numeric condition of the medium is kept,
+// or nil.
+func conditionField(c *media.Conditions, f int) *float64 {
+	switch f {
 	case Temperature:
 		return &c.TemperatureC
 	case TempOffset:

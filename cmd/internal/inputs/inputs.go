@@ -268,21 +268,14 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 		b.ReferenceArea = rd.num(Area)
 	}
 	o := regime.NewOrganism(b, speed)
-	o.Frequency = val(Frequency)
-	o.Amplitude = val(Amplitude)
-	o.Mass = val(Mass)
-	o.Span = val(Span)
-	o.WingLength = val(WingLength)
-	o.Chord = val(Chord)
-	o.WingArea = val(WingArea)
-	o.StrokeAngle = val(StrokeAngle)
-	o.Efficiency = val(Efficiency)
-	o.InducedFactor = rd.num(InducedFactor)
-	o.ProfileCD = rd.num(ProfileDrag)
-	o.Diffusivity = rd.num(Diffusivity)
+	for _, f := range organismOptional {
+		if f.kept {
+			*organismField(&o, f.field) = val(f.field)
+		} else {
+			*organismField(&o, f.field) = rd.num(f.field)
+		}
+	}
 	o.Disc, _ = rd.text(Disc)
-	o.ShearRate = rd.num(ShearRate)
-	o.RelaxationTime = rd.num(RelaxationTime)
 	if rd.err != nil {
 		return in, rd.err
 	}
@@ -346,6 +339,24 @@ func checkConditions(c media.Conditions) error {
 	return nil
 }
 
+// read lists numeric fields in the order they are read, which is the order
+// in which a row's first error is named; kept fields go into Input.Values
+// for uncertainty propagation.
+type read struct {
+	field int
+	kept  bool
+}
+
+// organismOptional are the organism's optional numeric fields.
+var organismOptional = [...]read{{Frequency, true}, {Amplitude, true}, {Mass, true}, {Span, true},
+	{WingLength, true}, {Chord, true}, {WingArea, true}, {StrokeAngle, true}, {Efficiency, true},
+	{InducedFactor, false}, {ProfileDrag, false}, {Diffusivity, false}, {ShearRate, false}, {RelaxationTime, false}}
+
+// conditionFields are the medium's numeric conditions but the temperature
+// offset, whose unit matters.
+var conditionFields = [...]read{{Temperature, true}, {Salinity, true}, {Depth, true}, {Pressure, true},
+	{Altitude, true}, {Humidity, true}, {Latitude, false}}
+
 func orName(label, name string) string {
 	if label == "" {
 		return name
@@ -360,21 +371,14 @@ func Conditions(src Source, medium string) (media.Conditions, error) {
 
 func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
 	c := media.Unset(medium)
-	get := func(field int) float64 {
-		if values == nil {
-			return rd.num(field)
+	for _, f := range conditionFields {
+		if f.kept && values != nil {
+			values[f.field] = rd.value(f.field)
+			*conditionField(&c, f.field) = values[f.field].SI
+		} else {
+			*conditionField(&c, f.field) = rd.num(f.field)
 		}
-		v := rd.value(field)
-		values[field] = v
-		return v.SI
 	}
-	c.TemperatureC = get(Temperature)
-	c.SalinityPractical = get(Salinity)
-	c.DepthM = get(Depth)
-	c.PressurePa = get(Pressure)
-	c.AltitudeM = get(Altitude)
-	c.HumidityPercent = get(Humidity)
-	c.LatitudeDeg = rd.num(Latitude)
 	if off := rd.value(TempOffset); !math.IsNaN(off.SI) {
 		switch off.Unit {
 		case "", "C", "°C", "degC":
