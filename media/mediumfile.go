@@ -6,9 +6,11 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"math"
 	"os"
 	"strings"
+	"syscall"
 )
 
 // Medium file schema, version 1. A medium file describes a measured fluid:
@@ -102,9 +104,16 @@ func (f MediumFile) Check() error {
 	return err
 }
 
-// LoadMediumFile reads and checks the medium file at path.
+// MaxMediumFileBytes is the largest medium file read; real ones are well
+// under 2 kB.
+const MaxMediumFileBytes = 1 << 20
+
+// LoadMediumFile reads and checks the medium file at path. Only a regular
+// file of at most MaxMediumFileBytes is read: it is opened without waiting
+// (a FIFO would otherwise block until a writer comes) and checked before
+// any byte is read.
 func LoadMediumFile(path string) (MediumFile, error) {
-	fh, err := os.Open(path)
+	fh, err := openRegular(path, MaxMediumFileBytes)
 	if err != nil {
 		return MediumFile{}, fmt.Errorf("media: cannot read medium file: %v", err)
 	}
@@ -114,6 +123,43 @@ func LoadMediumFile(path string) (MediumFile, error) {
 		return f, fmt.Errorf("%s: %w", path, err)
 	}
 	return f, nil
+}
+
+// openRegular opens path for reading if it is a regular file of at most
+// limit bytes, and refuses it otherwise.
+func openRegular(path string, limit int64) (*os.File, error) {
+	fh, err := os.OpenFile(path, os.O_RDONLY|syscall.O_NONBLOCK, 0)
+	if err != nil {
+		return nil, err
+	}
+	info, err := fh.Stat()
+	switch {
+	case err != nil:
+	case !info.Mode().IsRegular():
+		err = fmt.Errorf("%s is %s, not a regular file", path, fileKind(info.Mode()))
+	case info.Size() > limit:
+		err = fmt.Errorf("%s has %d bytes; a medium file has at most %d", path, info.Size(), limit)
+	}
+	if err != nil {
+		fh.Close()
+		return nil, err
+	}
+	return fh, nil
+}
+
+// fileKind names the kind of a file that is not a regular one.
+func fileKind(m fs.FileMode) string {
+	switch {
+	case m.IsDir():
+		return "a folder"
+	case m&fs.ModeNamedPipe != 0:
+		return "a named pipe (FIFO)"
+	case m&fs.ModeDevice != 0:
+		return "a device"
+	case m&fs.ModeSocket != 0:
+		return "a socket"
+	}
+	return "a special file"
 }
 
 // MeasuredRheology is a fitted model with the range it was measured over.

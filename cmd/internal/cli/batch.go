@@ -6,12 +6,10 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"os/signal"
 	"path/filepath"
 	"sort"
 	"strconv"
 	"strings"
-	"syscall"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -143,6 +141,32 @@ func (o *batchOptions) open(s Streams) (io.ReadCloser, int64, error) {
 	return f, size, nil
 }
 
+// inputFiles are the files batch and tabulate read: the table and a
+// medium file given by --medium.
+func (o *batchOptions) inputFiles(s Streams) []namedFile {
+	ins := []namedFile{{what: "the input " + o.input, path: o.input}}
+	if o.input == "-" {
+		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
+	}
+	if media.IsMediumFile(o.medium) {
+		ins = append(ins, namedFile{what: "the medium file " + o.medium, path: o.medium})
+	}
+	return ins
+}
+
+// outputFiles are the files batch writes: -o (else the standard output)
+// and --rejects.
+func (o *batchOptions) outputFiles(s Streams) []namedFile {
+	outs := []namedFile{{what: "the standard output", file: stdFile(s.Out)}}
+	if o.output != "" {
+		outs[0] = namedFile{what: "-o " + o.output, path: o.output}
+	}
+	if o.rejects != "" {
+		outs = append(outs, namedFile{what: "--rejects " + o.rejects, path: o.rejects})
+	}
+	return outs
+}
+
 func formatFromName(name string) string {
 	switch strings.ToLower(filepath.Ext(name)) {
 	case ".tsv", ".tab":
@@ -240,10 +264,11 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	if ctx == nil {
 		ctx = context.Background()
 	}
-	ctx, stop := signal.NotifyContext(ctx, os.Interrupt, syscall.SIGTERM)
-	defer stop()
 	cfg, err := o.config()
 	if err != nil {
+		return err
+	}
+	if err := checkOutputs(o.inputFiles(s), o.outputFiles(s)); err != nil {
 		return err
 	}
 	in, size, err := o.open(s)
@@ -254,7 +279,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	var out io.Writer = s.Out
 	var outFile, rejFile *atomicFile
 	if o.output != "" {
-		if outFile, err = createAtomic(o.output); err != nil {
+		if outFile, err = s.outs.create(o.output); err != nil {
 			return fmt.Errorf("cannot write %s: %v", o.output, err)
 		}
 		defer outFile.abort()
@@ -262,7 +287,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	}
 	var rejW *csv.Writer
 	if o.rejects != "" {
-		if rejFile, err = createAtomic(o.rejects); err != nil {
+		if rejFile, err = s.outs.create(o.rejects); err != nil {
 			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
 		}
 		defer rejFile.abort()

@@ -193,6 +193,17 @@ func runFit(o *fitOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
+	ins := []namedFile{{what: "the input " + o.input, path: o.input}}
+	if o.input == "-" {
+		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
+	}
+	outs := []namedFile{{what: "the standard output", file: stdFile(s.Out)}}
+	if o.save != "" {
+		outs = append(outs, namedFile{what: "--save " + o.save, path: o.save})
+	}
+	if err := checkOutputs(ins, outs); err != nil {
+		return err
+	}
 	var in io.Reader = s.In
 	if o.input != "-" {
 		f, err := os.Open(o.input)
@@ -212,7 +223,7 @@ func runFit(o *fitOptions, s Streams) error {
 		return fmt.Errorf("%s", trimPkg(err))
 	}
 	if o.save != "" {
-		if err := o.saveMedium(rep); err != nil {
+		if err := o.saveMedium(rep, s); err != nil {
 			return err
 		}
 	}
@@ -270,7 +281,7 @@ func runFit(o *fitOptions, s Streams) error {
 	return nil
 }
 
-func (o *fitOptions) saveMedium(rep media.FitReport) error {
+func (o *fitOptions) saveMedium(rep media.FitReport, s Streams) error {
 	if o.density == "" {
 		return usagef("--save needs the fluid's --density, e.g. --density 1010kg/m3")
 	}
@@ -314,7 +325,7 @@ func (o *fitOptions) saveMedium(rep media.FitReport) error {
 	if err := mf.Check(); err != nil {
 		return fmt.Errorf("%s", trimPkg(err))
 	}
-	af, err := createAtomic(o.save)
+	af, err := s.outs.create(o.save)
 	if err != nil {
 		return fmt.Errorf("cannot write %s: %v", o.save, err)
 	}
@@ -322,9 +333,12 @@ func (o *fitOptions) saveMedium(rep media.FitReport) error {
 	e := json.NewEncoder(af)
 	e.SetIndent("", "  ")
 	if err := e.Encode(mf); err != nil {
-		return err
+		return fmt.Errorf("cannot write %s: %v", o.save, err)
 	}
-	return af.commit()
+	if err := af.commit(); err != nil {
+		return fmt.Errorf("cannot write %s: %v", o.save, err)
+	}
+	return nil
 }
 
 type modelJSON struct {

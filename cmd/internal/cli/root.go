@@ -4,10 +4,14 @@
 package cli
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"io"
+	"os"
+	"os/signal"
 	"strings"
+	"syscall"
 
 	"github.com/spf13/cobra"
 )
@@ -17,6 +21,8 @@ type Streams struct {
 	In  io.Reader
 	Out io.Writer
 	Err io.Writer
+
+	outs *outputSet // the run's temporary files; set by Main
 }
 
 // Exit codes.
@@ -25,7 +31,18 @@ const (
 	ExitFailure  = 1 // the computation could not be done (impossible condition, …)
 	ExitUsage    = 2 // bad flags or arguments
 	ExitRejected = 3 // a batch finished but rejected some rows
+
+	// A run stopped by a signal exits with 128 + the signal's number.
+	ExitHangup    = 128 + 1  // SIGHUP
+	ExitInterrupt = 128 + 2  // SIGINT (Ctrl-C)
+	ExitTerminate = 128 + 15 // SIGTERM
 )
+
+// signalNames name the stop signals in messages.
+var signalNames = map[int]string{ExitHangup - 128: "SIGHUP", ExitInterrupt - 128: "SIGINT", ExitTerminate - 128: "SIGTERM"}
+
+// stopSignals stop every command.
+var stopSignals = []os.Signal{syscall.SIGINT, syscall.SIGTERM, syscall.SIGHUP}
 
 // usageError marks a mistake in flags or arguments.
 type usageError struct{ err error }
@@ -71,11 +88,57 @@ really lives in, and what drag and power follow from the law that fits.
 }
 
 // Main runs the command line and returns the process exit code. Errors are
-// one line on stderr, prefixed with "flowregime: ".
+// one line on stderr, prefixed with "flowregime: ". A write error on the
+// standard output fails the run (exit 1) whatever the command. SIGINT,
+// SIGTERM and SIGHUP stop it at once, even while it waits for input: its
+// temporary files are removed, no output is renamed into place, and the
+// code is 128 + the signal's number.
 func Main(args []string, s Streams) int {
+	stop := make(chan os.Signal, 1)
+	signal.Notify(stop, stopSignals...)
+	defer signal.Stop(stop)
+	// With SIGPIPE notified, a write to a closed pipe fails with EPIPE, which
+	// is reported like any write error, instead of killing the process
+	// before the temporary files are removed.
+	pipe := make(chan os.Signal, 1)
+	signal.Notify(pipe, syscall.SIGPIPE)
+	defer signal.Stop(pipe)
+
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	out := &checkedWriter{w: s.Out}
+	s.Out, s.outs = out, newOutputSet()
+	done := make(chan int, 1)
+	go func() {
+		defer func() {
+			if r := recover(); r != nil {
+				s.outs.stop()
+				panic(r)
+			}
+		}()
+		done <- execute(ctx, args, s, out)
+	}()
+	select {
+	case code := <-done:
+		return code
+	case sig := <-stop:
+		cancel()
+		n := int(sig.(syscall.Signal))
+		fmt.Fprintf(s.Err, "flowregime: stopped by %s (signal %d); %s\n", signalNames[n], n, stoppedOutputs(s.outs.stop()))
+		return 128 + n
+	}
+}
+
+// execute runs the command tree and turns its error into a message and an
+// exit code.
+func execute(ctx context.Context, args []string, s Streams, out *checkedWriter) int {
 	root := NewRoot(s)
 	root.SetArgs(args)
-	err := root.Execute()
+	err := root.ExecuteContext(ctx)
+	if werr := out.failed(); werr != nil {
+		fmt.Fprintf(s.Err, "flowregime: cannot write the output: %v\n", werr)
+		return ExitFailure
+	}
 	if err == nil {
 		return ExitOK
 	}
@@ -93,4 +156,12 @@ func Main(args []string, s Streams) int {
 		return ExitUsage
 	}
 	return ExitFailure
+}
+
+// stoppedOutputs says what a stopped run left of its output files.
+func stoppedOutputs(renamed []string) string {
+	if len(renamed) == 0 {
+		return "no output file was replaced"
+	}
+	return "already written before the signal: " + strings.Join(renamed, ", ")
 }

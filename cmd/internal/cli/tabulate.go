@@ -95,15 +95,18 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 	if ctx == nil {
 		ctx = context.Background()
 	}
+	cfg, err := o.config()
+	if err != nil {
+		return err
+	}
+	if err := checkOutputs(o.inputFiles(s), []namedFile{{what: "the standard output", file: stdFile(s.Out)}}); err != nil {
+		return err
+	}
 	in, _, err := o.open(s)
 	if err != nil {
 		return err
 	}
 	defer in.Close()
-	cfg, err := o.config()
-	if err != nil {
-		return err
-	}
 	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec)
 	if err != nil {
 		return err
