@@ -32,6 +32,7 @@ type atomicFile struct {
 	nextSync int64
 	syncing  chan error // the background sync running, if any
 	syncErr  error      // the first background sync's failure
+	writeErr error      // the first write's failure
 }
 
 // syncEvery is how many bytes are written between background syncs.
@@ -43,6 +44,9 @@ const maxNameBytes = 255
 
 func (a *atomicFile) Write(p []byte) (int, error) {
 	n, err := a.File.Write(p)
+	if err != nil && a.writeErr == nil {
+		a.writeErr = err
+	}
 	if a.direct {
 		return n, err
 	}

@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"cmp"
 	"context"
 	"encoding/csv"
 	"fmt"
@@ -316,20 +317,23 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	}
 	sum, err := batch.Run(ctx, in, out, reject, cfg)
 	if err != nil {
+		if werr := cmp.Or(writeFailure(o.output, outFile), writeFailure(o.rejects, rejFile)); werr != nil {
+			return werr
+		}
 		return fmt.Errorf("batch: %v", err)
 	}
 	if rejW != nil {
 		rejW.Flush()
 		if err := rejW.Error(); err != nil {
-			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
+			return fmt.Errorf("cannot write %s: %v", o.rejects, withoutPath(err))
 		}
 		if err := rejFile.commit(); err != nil {
-			return fmt.Errorf("cannot write %s: %v", o.rejects, err)
+			return fmt.Errorf("cannot write %s: %v", o.rejects, withoutPath(err))
 		}
 	}
 	if outFile != nil {
 		if err := outFile.commit(); err != nil {
-			return fmt.Errorf("cannot write %s: %v", o.output, err)
+			return fmt.Errorf("cannot write %s: %v", o.output, withoutPath(err))
 		}
 	}
 	if !o.quiet {

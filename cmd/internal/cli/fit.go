@@ -333,10 +333,10 @@ func (o *fitOptions) saveMedium(rep media.FitReport, s Streams) error {
 	e := json.NewEncoder(af)
 	e.SetIndent("", "  ")
 	if err := e.Encode(mf); err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, err)
+		return fmt.Errorf("cannot write %s: %v", o.save, withoutPath(err))
 	}
 	if err := af.commit(); err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, err)
+		return fmt.Errorf("cannot write %s: %v", o.save, withoutPath(err))
 	}
 	return nil
 }

@@ -2,6 +2,7 @@ package cli
 
 import (
 	"errors"
+	"fmt"
 	"io"
 	"io/fs"
 	"os"
@@ -116,11 +117,24 @@ func (c *checkedWriter) Write(p []byte) (int, error) {
 	return n, err
 }
 
-// failed returns the first write error, unwrapped from the file's name.
-func (c *checkedWriter) failed() error {
+// failed returns the first write error, without the file's name.
+func (c *checkedWriter) failed() error { return withoutPath(c.err) }
+
+// withoutPath drops the file name from err, for messages that name the
+// file themselves (and would otherwise show a temporary file's name).
+func withoutPath(err error) error {
 	var pe *fs.PathError
-	if errors.As(c.err, &pe) {
+	if errors.As(err, &pe) {
 		return pe.Err
 	}
-	return c.err
+	return err
+}
+
+// writeFailure returns "cannot write NAME: …" when a write to f failed,
+// else nil.
+func writeFailure(name string, f *atomicFile) error {
+	if f != nil && f.writeErr != nil {
+		return fmt.Errorf("cannot write %s: %v", name, withoutPath(f.writeErr))
+	}
+	return nil
 }
