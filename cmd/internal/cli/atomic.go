@@ -190,25 +190,30 @@ func (set *outputSet) create(name string) (*atomicFile, error) {
 	return a, nil
 }
 
-// resolveOutput follows name's symbolic links and returns the file to
-// write and its information, nil when it does not exist yet.
+// resolveOutput follows name's symbolic links, also to a file not made
+// yet, and returns the file to write and its information, nil when it does
+// not exist yet.
 func resolveOutput(name string) (string, fs.FileInfo, error) {
-	info, err := os.Lstat(name)
-	if errors.Is(err, fs.ErrNotExist) {
-		return name, nil, nil
+	for range 40 { // the link limit of Linux path resolution, path_resolution(7)
+		info, err := os.Lstat(name)
+		switch {
+		case errors.Is(err, fs.ErrNotExist):
+			return name, nil, nil
+		case err != nil:
+			return "", nil, err
+		case info.Mode()&fs.ModeSymlink == 0:
+			return name, info, nil
+		}
+		link, err := os.Readlink(name)
+		if err != nil {
+			return "", nil, err
+		}
+		if !filepath.IsAbs(link) {
+			link = filepath.Join(filepath.Dir(name), link)
+		}
+		name = link
 	}
-	if err != nil {
-		return "", nil, err
-	}
-	if info.Mode()&fs.ModeSymlink == 0 {
-		return name, info, nil
-	}
-	real, err := filepath.EvalSymlinks(name)
-	if err != nil {
-		return "", nil, fmt.Errorf("%s is a symbolic link to a file that cannot be reached (%v)", name, err)
-	}
-	info, err = os.Stat(real)
-	return real, info, err
+	return "", nil, errors.New("too many levels of symbolic links")
 }
 
 // createTemp creates a new, empty temporary file beside target with

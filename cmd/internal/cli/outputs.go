@@ -31,10 +31,14 @@ func identify(f namedFile) (identity, bool) {
 	if f.path == "" || f.path == "-" {
 		return identity{}, false
 	}
-	if info, err := os.Stat(f.path); err == nil {
+	path, info, err := resolveOutput(f.path)
+	if err != nil {
+		return identity{}, false
+	}
+	if info != nil {
 		return identity{info: info}, true
 	}
-	abs, err := filepath.Abs(f.path)
+	abs, err := filepath.Abs(path)
 	if err != nil {
 		return identity{}, false
 	}

@@ -194,7 +194,7 @@ func TestOutputThatIsAnInputIsRefused(t *testing.T) {
 }
 
 // A replaced file keeps its mode, a link is followed (the link stays, its
-// target is replaced), a device is written in place and stays a device,
+// target is replaced or, if missing, made), a device is written in place and stays a device,
 // and an output name of 255 bytes, the Linux NAME_MAX, works although
 // the temporary name beside it would be longer.
 func TestOutputsKeepWhatTheyReplace(t *testing.T) {
@@ -226,6 +226,15 @@ func TestOutputsKeepWhatTheyReplace(t *testing.T) {
 		t.Errorf("the link's target was not written: %q", got)
 	}
 
+	dangling := filepath.Join(dir, "new-link.csv")
+	os.Symlink("new.csv", dangling)
+	if _, errs, code := run(t, "batch", in, "-q", "-o", dangling); code != ExitRejected {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if got, _ := os.ReadFile(filepath.Join(dir, "new.csv")); !strings.HasPrefix(string(got), "species,") {
+		t.Errorf("the dangling link's target was not made: %q", got)
+	}
+
 	if _, errs, code := run(t, "batch", in, "-q", "-o", os.DevNull, "--rejects", os.DevNull); code != ExitRejected {
 		t.Errorf("-o %s: exit %d: %s", os.DevNull, code, errs)
 	}
@@ -242,7 +251,7 @@ func TestOutputsKeepWhatTheyReplace(t *testing.T) {
 	for _, e := range entries {
 		names = append(names, e.Name())
 	}
-	if len(entries) != 5 || !strings.Contains(strings.Join(names, "/"), filepath.Base(long)) {
+	if len(entries) != 7 || !strings.Contains(strings.Join(names, "/"), filepath.Base(long)) {
 		t.Errorf("files after the runs: %q", names)
 	}
 }
