@@ -59,6 +59,14 @@ type Reject struct {
 	Record string // the record as read
 }
 
+// HeaderError is a problem with the table's header or with the column
+// options (--column, --unit, --names): no row can be read, so the whole run
+// is refused as a usage mistake.
+type HeaderError struct{ Err error }
+
+func (e HeaderError) Error() string { return e.Err.Error() }
+func (e HeaderError) Unwrap() error { return e.Err }
+
 // Summary counts what happened.
 type Summary struct {
 	Read, Written, Rejected, Blank, Filtered int
@@ -111,7 +119,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 		keys, _, _, err := parseObject(bytes.TrimSpace(first))
 		if err != nil && len(bytes.TrimSpace(first)) > 0 {
-			return sum, fmt.Errorf("line 1: %v", err)
+			return sum, HeaderError{fmt.Errorf("line 1: %v", err)}
 		}
 		header = keys
 		body = io.MultiReader(bytes.NewReader(first), br)
@@ -121,17 +129,17 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			return sum, err
 		}
 		if blank(string(rec)) {
-			return sum, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
+			return sum, HeaderError{fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")}
 		}
 		headerRaw = rec
 		if header, err = splitFields(nil, string(rec), delim); err != nil {
-			return sum, fmt.Errorf("line 1 (header): %v", err)
+			return sum, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
 		}
 		line += n
 	}
 	m, err := newMapping(header, cfg.Columns, cfg.Units)
 	if err != nil {
-		return sum, err
+		return sum, HeaderError{err}
 	}
 	if m.hasSD() {
 		cfg.Uncertainty = true
@@ -143,10 +151,10 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		cfg.Draws = 10000
 	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
-		return sum, fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")
+		return sum, HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}
 	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Speed); m.col[inputs.Speed] < 0 && !ok {
-		return sum, fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")
+		return sum, HeaderError{fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")}
 	}
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string

@@ -4,6 +4,7 @@ import (
 	"cmp"
 	"context"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -320,7 +321,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		if werr := cmp.Or(writeFailure(o.output, outFile), writeFailure(o.rejects, rejFile)); werr != nil {
 			return werr
 		}
-		return fmt.Errorf("batch: %v", err)
+		return batchFailure("batch", err)
 	}
 	if rejW != nil {
 		rejW.Flush()
@@ -343,6 +344,16 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		return exitError{code: ExitRejected}
 	}
 	return nil
+}
+
+// batchFailure reports a failed batch run; a problem with the table's
+// header is a usage mistake (exit 2).
+func batchFailure(command string, err error) error {
+	var he batch.HeaderError
+	if errors.As(err, &he) {
+		return usagef("%s: %v", command, err)
+	}
+	return fmt.Errorf("%s: %v", command, err)
 }
 
 func summaryLine(sum batch.Summary, rejects string) string {

@@ -212,10 +212,11 @@ func TestBatchFilesAndExitStatus(t *testing.T) {
 	if entries, _ := os.ReadDir(dir); len(entries) != 2 {
 		t.Errorf("temporary files left behind: %v", entries)
 	}
-	// A failing run leaves no output file behind.
+	// A failing run leaves no output file behind; a --column naming no
+	// header is a header problem, exit 2 by the agreed exit-code table.
 	bad := dir + "/never.csv"
 	_, _, code = run(t, "batch", "../../../testdata/batch/corrupt.csv", "-o", bad, "--column", "length=nope")
-	if _, err := os.Stat(bad); code != ExitFailure || err == nil {
+	if _, err := os.Stat(bad); code != ExitUsage || err == nil {
 		t.Errorf("failed run: exit %d, output exists: %v", code, err == nil)
 	}
 	if entries, _ := os.ReadDir(dir); len(entries) != 2 {

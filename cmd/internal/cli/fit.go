@@ -114,17 +114,17 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 	cr.FieldsPerRecord = -1
 	header, err := cr.Read()
 	if err == io.EOF {
-		return nil, fmt.Errorf("the input is empty: a header line with shear rate and stress or viscosity is needed")
+		return nil, usagef("the input is empty: a header line with shear rate and stress or viscosity is needed")
 	}
 	if err != nil {
-		return nil, fmt.Errorf("cannot read the header: %v", err)
+		return nil, usagef("cannot read the header: %v", err)
 	}
 	col := map[string]int{}
 	unit := map[string]string{}
 	for i, h := range header {
 		if role, u := fitColumn(h); role != "" {
 			if _, dup := col[role]; dup {
-				return nil, fmt.Errorf("two columns hold the %s; keep one", role)
+				return nil, usagef("two columns hold the %s; keep one", role)
 			}
 			col[role], unit[role] = i, u
 		}
@@ -136,12 +136,12 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 		unit[role] = u
 	}
 	if _, ok := col["rate"]; !ok {
-		return nil, fmt.Errorf("no shear-rate column; name one \"shear rate (1/s)\" (columns: %s)", strings.Join(header, ", "))
+		return nil, usagef("no shear-rate column; name one \"shear rate (1/s)\" (columns: %s)", strings.Join(header, ", "))
 	}
 	_, hasStress := col["stress"]
 	_, hasVisc := col["viscosity"]
 	if !hasStress && !hasVisc {
-		return nil, fmt.Errorf("no shear-stress or viscosity column; name one \"shear stress (Pa)\" or \"viscosity (Pa·s)\"")
+		return nil, usagef("no shear-stress or viscosity column; name one \"shear stress (Pa)\" or \"viscosity (Pa·s)\"")
 	}
 	kinds := map[string]quantity.Kind{"rate": quantity.ShearRate, "stress": quantity.Stress, "viscosity": quantity.Viscosity}
 	var pts []media.RheometerPoint

@@ -88,7 +88,8 @@ func TestWritingRunsSucceedOtherwise(t *testing.T) {
 	}
 }
 
-// One check per exit code of the agreed table (0, 1, 2, 3); the signal
+// One check per exit code of the agreed table (0, 1, 2, 3), with 2 for a
+// header problem in batch, tabulate and fit tables; the signal
 // codes are checked in process_unix_test.go with a real process.
 func TestExitCodes(t *testing.T) {
 	cases := []struct {
@@ -100,7 +101,11 @@ func TestExitCodes(t *testing.T) {
 		// Fresh water freezes at 0 °C at 101325 Pa (IAPWS-95 melting curve).
 		{[]string{"calc", "--length", "12mm", "--speed", "0.4m/s", "--temp", "-5C"}, ExitFailure, "an impossible condition"},
 		{[]string{"calc", "--length", "12mm", "--no-such-flag"}, ExitUsage, "a bad flag"},
+		{[]string{"batch", "../../../testdata/batch/corrupt.csv", "--column", "length=nope"}, ExitUsage, "a header problem"},
+		{[]string{"tabulate", "../../../testdata/batch/corrupt.csv", "--column", "speed=nope"}, ExitUsage, "a header problem"},
+		{[]string{"fit", "../../../testdata/rheology/bad_nostress.csv"}, ExitUsage, "a header problem"},
 		{[]string{"batch", "../../../testdata/batch/corrupt.csv", "-q"}, ExitRejected, "rows rejected"},
+		{[]string{"tabulate", "../../../testdata/batch/corrupt.csv"}, ExitRejected, "rows rejected"},
 	}
 	for _, c := range cases {
 		_, errs, code := run(t, c.args...)

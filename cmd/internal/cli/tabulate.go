@@ -152,7 +152,7 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 	header, err := cr.Read()
 	if err != nil {
 		if e := <-errc; e != nil {
-			return nil, 0, fmt.Errorf("tabulate: %v", e)
+			return nil, 0, batchFailure("tabulate", e)
 		}
 		return nil, 0, fmt.Errorf("tabulate: cannot read the header: %v", err)
 	}
@@ -165,7 +165,7 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		return nil, 0, usageError{fmt.Errorf("tabulate: %v", err)}
 	}
 	if e := <-errc; e != nil {
-		return nil, 0, fmt.Errorf("tabulate: %v", e)
+		return nil, 0, batchFailure("tabulate", e)
 	}
 	return groups, rejected, nil
 }
