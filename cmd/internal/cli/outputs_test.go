@@ -289,3 +289,31 @@ func TestBatchFileWriteErrorNamesTheFile(t *testing.T) {
 		t.Errorf("withoutPath lost the cause")
 	}
 }
+
+// Stopping a run (a signal, a panic) removes its temporary files, and a
+// commit after that renames nothing, so the previous output stays.
+func TestStoppedRunRenamesNothing(t *testing.T) {
+	dir := t.TempDir()
+	target := filepath.Join(dir, "out.csv")
+	os.WriteFile(target, []byte("previous\n"), 0o644)
+	set := newOutputSet()
+	a, err := set.create(target)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a.Write([]byte("new\n"))
+	if renamed := set.stop(); len(renamed) != 0 {
+		t.Errorf("renamed before the stop: %v", renamed)
+	}
+	if err := a.commit(); !errors.Is(err, errStopped) {
+		t.Errorf("commit after stop: %v", err)
+	}
+	a.abort()
+	if _, err := set.create(filepath.Join(dir, "later.csv")); !errors.Is(err, errStopped) {
+		t.Errorf("create after stop: %v", err)
+	}
+	entries, _ := os.ReadDir(dir)
+	if got, _ := os.ReadFile(target); string(got) != "previous\n" || len(entries) != 1 {
+		t.Errorf("after the stop: %q, files %v", got, entries)
+	}
+}

@@ -19,6 +19,13 @@ import (
 // binary, started again with FLOWREGIME_AS_MAIN=1, is flowregime.
 func TestMain(m *testing.M) {
 	if os.Getenv("FLOWREGIME_AS_MAIN") == "1" {
+		if os.Getenv("FLOWREGIME_READY_FD") == "3" {
+			signalsReady = func() {
+				ready := os.NewFile(3, "ready")
+				ready.Write([]byte{1})
+				ready.Close()
+			}
+		}
 		os.Exit(Main(os.Args[1:], Streams{In: os.Stdin, Out: os.Stdout, Err: os.Stderr}))
 	}
 	os.Exit(m.Run())
@@ -29,6 +36,28 @@ func command(args ...string) *exec.Cmd {
 	c := exec.Command(os.Args[0], args...)
 	c.Env = append(os.Environ(), "FLOWREGIME_AS_MAIN=1")
 	return c
+}
+
+// startReady starts c and returns once it handles the stop signals.
+func startReady(t *testing.T, c *exec.Cmd) {
+	t.Helper()
+	r, w, err := os.Pipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer r.Close()
+	c.ExtraFiles = []*os.File{w}
+	c.Env = append(c.Env, "FLOWREGIME_READY_FD=3")
+	err = c.Start()
+	w.Close()
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.SetReadDeadline(time.Now().Add(10 * time.Second))
+	if _, err := r.Read(make([]byte, 1)); err != nil {
+		c.Process.Kill()
+		t.Fatalf("the process did not get ready: %v", err)
+	}
 }
 
 // exitCode waits for c and returns its exit code, failing if it was killed
@@ -85,9 +114,7 @@ func TestSignalsStopAnIdleBatch(t *testing.T) {
 			var errb bytes.Buffer
 			p := command("batch", "-", "-o", out, "--rejects", rej, "--quiet")
 			p.Stdin, p.Stderr = pr, &errb
-			if err := p.Start(); err != nil {
-				t.Fatal(err)
-			}
+			startReady(t, p)
 			pr.Close()
 			pw.Write([]byte("length (mm),speed (cm/s)\n12,")) // a header and half a row, then nothing
 			waitFor(t, "the temporary files", func() bool { return len(temps(dir)) == 2 })
@@ -116,10 +143,15 @@ func TestSignalsStopAnIdleBatch(t *testing.T) {
 	}
 }
 
-// SIGINT stops tabulate and fit on an idle pipe as well: every command
-// reads through the same Main.
+// SIGINT stops tabulate and fit on an idle pipe, and batch while it waits
+// for a named pipe to open: every command runs under the same Main.
 func TestSignalStopsOtherReaders(t *testing.T) {
-	for _, args := range [][]string{{"tabulate", "-"}, {"fit", "-"}} {
+	dir := t.TempDir()
+	fifo := filepath.Join(dir, "in.csv")
+	if err := syscall.Mkfifo(fifo, 0o600); err != nil {
+		t.Skip(err)
+	}
+	for _, args := range [][]string{{"tabulate", "-"}, {"fit", "-"}, {"batch", fifo, "-o", filepath.Join(dir, "out.csv")}} {
 		pr, pw, err := os.Pipe()
 		if err != nil {
 			t.Fatal(err)
@@ -127,13 +159,11 @@ func TestSignalStopsOtherReaders(t *testing.T) {
 		var errb bytes.Buffer
 		p := command(args...)
 		p.Stdin, p.Stderr = pr, &errb
-		if err := p.Start(); err != nil {
-			t.Fatal(err)
-		}
+		startReady(t, p)
 		pr.Close()
-		// No file shows when the reader is waiting; give the process time
-		// to start and reach its read.
-		time.Sleep(500 * time.Millisecond)
+		// Nothing shows that the command waits in its read or open; a
+		// signal sent before that is handled all the same.
+		time.Sleep(200 * time.Millisecond)
 		sent := time.Now()
 		p.Process.Signal(syscall.SIGINT)
 		code := exitCode(t, p)
@@ -141,6 +171,9 @@ func TestSignalStopsOtherReaders(t *testing.T) {
 		if code != ExitInterrupt || time.Since(sent) > 2*time.Second {
 			t.Errorf("%v: exit %d after %v; stderr %q", args, code, time.Since(sent), errb.String())
 		}
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 1 {
+		t.Errorf("files left: %v", entries)
 	}
 }
 

@@ -41,6 +41,10 @@ const (
 // signalNames name the stop signals in messages.
 var signalNames = map[int]string{ExitHangup - 128: "SIGHUP", ExitInterrupt - 128: "SIGINT", ExitTerminate - 128: "SIGTERM"}
 
+// signalsReady is called once Main handles the stop signals; the tests
+// that send signals to a real process wait for it.
+var signalsReady = func() {}
+
 // stopSignals stop every command.
 var stopSignals = []os.Signal{syscall.SIGINT, syscall.SIGTERM, syscall.SIGHUP}
 
@@ -97,6 +101,7 @@ func Main(args []string, s Streams) int {
 	stop := make(chan os.Signal, 1)
 	signal.Notify(stop, stopSignals...)
 	defer signal.Stop(stop)
+	signalsReady()
 	// With SIGPIPE notified, a write to a closed pipe fails with EPIPE, which
 	// is reported like any write error, instead of killing the process
 	// before the temporary files are removed.
