@@ -17,7 +17,8 @@ import (
 // written in place instead (direct): replacing it would destroy it.
 //
 // The temporary file is created by this program with permission 0666, so
-// the umask applies to a new output; a file being replaced keeps its mode.
+// the umask applies to a new output; a file being replaced keeps its mode
+// and, where the user may set them, its owner and group.
 //
 // Large outputs are synced to disk in the background as they grow, so that
 // the sync before the rename, which makes the new file durable, has little
@@ -177,6 +178,7 @@ func (set *outputSet) create(name string) (*atomicFile, error) {
 		return nil, err
 	}
 	if info != nil {
+		keepOwner(f, info) // before the mode: chown clears set-id bits
 		if err := f.Chmod(info.Mode().Perm()); err != nil {
 			f.Close()
 			os.Remove(f.Name())

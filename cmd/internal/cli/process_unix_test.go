@@ -292,3 +292,27 @@ func TestNewOutputHonoursUmask(t *testing.T) {
 		t.Errorf("mode %v under umask 027, want 0640 (%v)", st.Mode().Perm(), err)
 	}
 }
+
+// Run as root, replacing another user's file keeps its owner and group
+// (before, the file became root's).
+func TestReplacedFileKeepsOwner(t *testing.T) {
+	if os.Getuid() != 0 {
+		t.Skip("needs root to give a file to another user")
+	}
+	dir := t.TempDir()
+	out := filepath.Join(dir, "out.csv")
+	os.WriteFile(out, []byte("previous\n"), 0o640)
+	if err := os.Chown(out, 4321, 8765); err != nil {
+		t.Skip(err)
+	}
+	if _, errs, code := run(t, "batch", "../../../testdata/batch/corrupt.csv", "-q", "-o", out); code != ExitRejected {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	st, err := os.Stat(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s := st.Sys().(*syscall.Stat_t); s.Uid != 4321 || s.Gid != 8765 || st.Mode().Perm() != 0o640 {
+		t.Errorf("owner %d:%d mode %v, want 4321:8765 0640", s.Uid, s.Gid, st.Mode().Perm())
+	}
+}
