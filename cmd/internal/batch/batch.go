@@ -39,6 +39,9 @@ type Config struct {
 	Workers       int      // 0 means GOMAXPROCS
 	FlaggedOnly   bool
 	Progress      func(bytesRead int64)
+	// BeforeCrash, if set, runs when a goroutine of Run panics, before the
+	// panic goes on and ends the process: it removes temporary files.
+	BeforeCrash func()
 
 	// Uncertainty propagates each row's uncertainty (companion columns such
 	// as "length sd" or "length (mm) sd", or cells like "12±1") by Method
@@ -193,6 +196,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	var readErr error
 	go func() {
 		defer close(jobs)
+		defer crashGuard(cfg.BeforeCrash)
 		size := chunkSize
 		if cfg.Uncertainty {
 			size = uncertainChunk
@@ -221,6 +225,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			defer crashGuard(cfg.BeforeCrash)
 			local := newLocalMedia(cache, localSlots/workers)
 			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: local, growth: 8}
 			for c := range jobs {
@@ -288,6 +293,17 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	}
 	sum.Elapsed = time.Since(start)
 	return sum, runErr
+}
+
+// crashGuard, deferred in a goroutine, runs before (if set) when the
+// goroutine panics and lets the panic go on.
+func crashGuard(before func()) {
+	if r := recover(); r != nil {
+		if before != nil {
+			before()
+		}
+		panic(r)
+	}
 }
 
 // localSlots bounds the workers' medium tables together: 1<<18 slots of

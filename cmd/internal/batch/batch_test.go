@@ -357,3 +357,19 @@ func TestJSONLinesUnclosed(t *testing.T) {
 		t.Errorf("written %d, rejects %+v", sum.Written, rejects)
 	}
 }
+
+// A panic in one of Run's goroutines first runs BeforeCrash (which removes
+// the temporary files) and then goes on, so it is neither lost nor leaves
+// files behind.
+func TestCrashGuardCleansThenPanics(t *testing.T) {
+	cleaned := false
+	defer func() {
+		if r := recover(); r != "boom" || !cleaned {
+			t.Errorf("recovered %v, cleaned %v", r, cleaned)
+		}
+	}()
+	func() {
+		defer crashGuard(func() { cleaned = true })
+		panic("boom")
+	}()
+}
