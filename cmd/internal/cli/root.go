@@ -28,9 +28,9 @@ type Streams struct {
 // Exit codes.
 const (
 	ExitOK       = 0
-	ExitFailure  = 1 // the computation could not be done (impossible condition, …)
-	ExitUsage    = 2 // bad flags or arguments
-	ExitRejected = 3 // a batch finished but rejected some rows
+	ExitFailure  = 1 // the computation could not be done (impossible condition, …), or reading or writing failed
+	ExitUsage    = 2 // bad flags or arguments, a table's header, an output that is an input or a folder
+	ExitRejected = 3 // a batch or tabulate finished but rejected some rows
 
 	// A run stopped by a signal exits with 128 + the signal's number.
 	ExitHangup    = 128 + 1  // SIGHUP
