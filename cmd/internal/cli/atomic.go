@@ -192,10 +192,28 @@ func (set *outputSet) create(name string) (*atomicFile, error) {
 	return a, nil
 }
 
-// resolveOutput follows name's symbolic links, also to a file not made
-// yet, and returns the file to write and its information, nil when it does
-// not exist yet.
+// resolveOutput returns the file to write for the output name and its
+// information, nil when it does not exist yet. A regular file is reached
+// through its links, so that the link is kept and its target replaced; a
+// device, FIFO or folder keeps its name (the kernel follows links such as
+// /dev/stdout → /proc/self/fd/1 → pipe:[…] that name no real path).
 func resolveOutput(name string) (string, fs.FileInfo, error) {
+	info, err := os.Stat(name)
+	switch {
+	case err == nil && !info.Mode().IsRegular():
+		return name, info, nil
+	case err == nil:
+		real, err := filepath.EvalSymlinks(name)
+		return real, info, err
+	case !errors.Is(err, fs.ErrNotExist):
+		return "", nil, err
+	}
+	return missingTarget(name)
+}
+
+// missingTarget follows name's links to the file not made yet that they
+// lead to.
+func missingTarget(name string) (string, fs.FileInfo, error) {
 	for range 40 { // the link limit of Linux path resolution, path_resolution(7)
 		info, err := os.Lstat(name)
 		switch {

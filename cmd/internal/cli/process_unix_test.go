@@ -316,3 +316,24 @@ func TestReplacedFileKeepsOwner(t *testing.T) {
 		t.Errorf("owner %d:%d mode %v, want 4321:8765 0640", s.Uid, s.Gid, st.Mode().Perm())
 	}
 }
+
+// -o /dev/stdout writes to the standard output in place, through the links
+// /dev/stdout → /proc/self/fd/1 → pipe:[…] (Linux proc(5)); before, the
+// link itself was replaced by a file.
+func TestOutputToDevStdout(t *testing.T) {
+	if _, err := os.Stat("/dev/stdout"); err != nil {
+		t.Skip(err)
+	}
+	var out, errb bytes.Buffer
+	p := command("batch", "../../../testdata/batch/corrupt.csv", "-q", "-o", "/dev/stdout")
+	p.Stdout, p.Stderr = &out, &errb
+	if err := p.Start(); err != nil {
+		t.Fatal(err)
+	}
+	if code := exitCode(t, p); code != ExitRejected || !strings.HasPrefix(out.String(), "species,") {
+		t.Errorf("exit %d, stdout %q, stderr %q", code, out.String(), errb.String())
+	}
+	if st, err := os.Lstat("/dev/stdout"); err != nil || st.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("/dev/stdout is no longer a link: %v %v", st.Mode(), err)
+	}
+}
