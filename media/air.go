@@ -131,9 +131,8 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	p.GeopotentialM = GeopotentialHeight(c.AltitudeM)
 	p.HumidityPercent = c.HumidityPercent
 	stdT, stdP := StandardAtmosphere(p.GeopotentialM)
-	needStd := math.IsNaN(c.PressurePa) || math.IsNaN(c.TemperatureC)
-	if needStd && math.IsNaN(stdT) {
-		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give --pressure and --temp instead", c.AltitudeM, p.GeopotentialM)
+	if math.IsNaN(stdT) {
+		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range (with --pressure and --temp it is only reported)", c.AltitudeM, p.GeopotentialM)
 	}
 	p.PressurePa = c.PressurePa
 	if math.IsNaN(p.PressurePa) {
@@ -180,5 +179,5 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}
-	return p, nil
+	return p, checkPhysical(&p, fmt.Sprintf("air at %.4g °C and %.6g Pa", p.TemperatureC, p.PressurePa))
 }
