@@ -302,6 +302,9 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 				r.Warnings = append(r.Warnings, media.Warning{Code: regime.WarnModel})
 			}
 			o.unc = &u
+			if err := o.finiteBands(); err != nil {
+				return outcome{}, err
+			}
 		}
 	}
 	s.flags = flagCodes(s.flags[:0], r.Warnings)
@@ -348,6 +351,18 @@ func (o outcome) values(dst []string, withUnc bool) []string {
 		}
 	}
 	return dst
+}
+
+// finiteBands refuses a row whose uncertainty interval overflowed, which
+// would otherwise print as an empty cell; NaN stays (a quantity that does
+// not apply, such as a Strouhal number without a stroke).
+func (o outcome) finiteBands() error {
+	for i, v := range o.uncValues() {
+		if math.IsInf(v, 0) {
+			return fmt.Errorf("%s is not a finite number (%g); check the uncertainties' units", UncertaintyColumns[i], v)
+		}
+	}
+	return nil
 }
 
 // uncValues returns the uncertainty columns' numbers (NaN when absent).
