@@ -102,6 +102,16 @@ var names = map[Kind]string{
 	Angle: "angle", Diffusivity: "diffusivity", Stress: "shear stress", Viscosity: "viscosity",
 }
 
+var siUnits = map[Kind]string{
+	Length: "m", Height: "m", Speed: "m/s", Temperature: "°C", Pressure: "Pa", Salinity: "practical salinity",
+	Humidity: "%", Mass: "kg", Frequency: "Hz", Density: "kg/m³", Area: "m²", Time: "s", ShearRate: "1/s",
+	Angle: "rad", Diffusivity: "m²/s", Stress: "Pa", Viscosity: "Pa·s",
+}
+
+// SIUnit returns the unit of the library's values of kind k ("" for plain
+// numbers and fractions).
+func SIUnit(k Kind) string { return siUnits[k] }
+
 // Example returns an accepted way to write a value of kind k.
 func Example(k Kind) string { return examples[k] }
 
