@@ -114,7 +114,7 @@ func water(c Conditions, brief bool) (Properties, error) {
 		return Properties{}, fmt.Errorf("media: depth %.4g m is negative; give a depth of 0 m or more below the surface", depth)
 	}
 	if depth > MaxWaterDepthM {
-		return Properties{}, fmt.Errorf("media: depth %.6g m is below %g m, deeper than any ocean (the Challenger Deep is about 10.9 km); give a depth of 0–%g m", depth, MaxWaterDepthM, MaxWaterDepthM)
+		return Properties{}, fmt.Errorf("media: depth %.6g m is beyond the deepest accepted, %g m (the deepest ocean, the Challenger Deep, is about 10.9 km); give a depth of 0–%g m", depth, MaxWaterDepthM, MaxWaterDepthM)
 	}
 	surface := StandardPressurePa
 	var notes []string

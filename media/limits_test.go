@@ -49,7 +49,7 @@ func TestMediumBoundsBothSides(t *testing.T) {
 		{"sea 100 °C at 2 bar", "seawater", func(c *Conditions) { c.TemperatureC = 100; c.PressurePa = 2e5 }, "", "1.1 % at 100 °C"},
 		{"sea 101 °C at 2 bar", "seawater", func(c *Conditions) { c.TemperatureC = 101; c.PressurePa = 2e5 }, "101 °C is above 100 °C", ""},
 		{"sea 12 km deep", "seawater", func(c *Conditions) { c.DepthM = 12000 }, "", "above the EOS-80 limit of 10000 dbar"},
-		{"sea 12.001 km deep", "seawater", func(c *Conditions) { c.DepthM = 12001 }, "depth 12001 m is below 12000 m", ""},
+		{"sea 12.001 km deep", "seawater", func(c *Conditions) { c.DepthM = 12001 }, "depth 12001 m is beyond the deepest accepted, 12000 m", ""},
 		{"sea 50 km deep", "seawater", func(c *Conditions) { c.DepthM = 50000 }, "depth 50000 m", ""},
 		{"fresh 12 km deep", "freshwater", func(c *Conditions) { c.DepthM = 12000 }, "", "above the 100 MPa limit"},
 		{"fresh 1000 km deep", "freshwater", func(c *Conditions) { c.DepthM = 1e6 }, "depth 1e+06 m", ""},

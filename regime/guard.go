@@ -78,59 +78,64 @@ func checkReynolds(re float64, o *Organism, rho, nu float64) error {
 
 // checkResult refuses a result with a number that is not finite, or a
 // drag, area or power that underflowed to zero: none of them may reach an
-// output. Quantities that do not apply are NaN by convention and pass.
+// output. Quantities that do not apply are NaN by convention and pass. It
+// runs for every batch row, so the inputs to blame are gathered only when
+// a check fails.
 func checkResult(r *Result, o *Organism) error {
-	mv := mediumValues{r.Medium.Density, r.Viscosity / r.Medium.Density}
-	flow := flowInputs(o, mv)
-	stroke := []quantity{{"frequency", "Hz", o.Frequency}, {"amplitude", "m", o.Amplitude}, {"speed", "m/s", o.Speed}}
-	power := append(append([]quantity{}, flow...), quantity{"mass", "kg", o.Mass}, quantity{"span", "m", o.Span},
-		quantity{"wing length", "m", o.WingLength}, quantity{"chord", "m", o.Chord}, quantity{"wing area", "m²", o.WingArea})
 	d := &r.Drag.Chosen
-	for _, c := range [...]struct {
-		v        float64
-		optional bool // NaN means "does not apply"
-		name     string
-		inputs   []quantity
-	}{
-		{d.Force, false, "drag", flow},
-		{d.ReferenceArea, false, "reference area", flow},
-		{d.Coefficient, false, "drag coefficient", flow},
-		{r.Power.Total, false, "power", power},
-		{r.Strouhal, true, "Strouhal number", stroke},
-		{r.AdvanceRatio, true, "advance ratio", stroke},
-		{r.ReducedFrequency, true, "reduced frequency", stroke},
-		{r.Peclet, true, "Péclet number", append(flow, quantity{"diffusivity", "m²/s", o.Diffusivity})},
-		{r.CoastTime, true, "coasting time", power},
-		{r.CoastDistance, true, "coasting distance", power},
-		{r.GeneralizedRe, true, "generalised Reynolds number", flow},
-		{r.BinghamNumber, true, "Bingham number", flow},
-		{r.Deborah, true, "Deborah number", stroke},
-		{r.Weissenberg, true, "Weissenberg number", flow},
-	} {
-		switch {
-		case c.optional && math.IsNaN(c.v):
-		case math.IsInf(c.v, 0):
-			return rangeError("the "+c.name+" overflows", c.inputs...)
-		case math.IsNaN(c.v):
-			return rangeError("the "+c.name+" is not a number", c.inputs...)
-		case c.v == 0 && !c.optional:
-			return rangeError("the "+c.name+" underflows to zero", c.inputs...)
+	required := [...]float64{d.Force, d.ReferenceArea, d.Coefficient, r.Power.Total}
+	for i, v := range required {
+		if !usable(v) {
+			return resultError(r, o, i, v)
 		}
 	}
-	return checkEstimates(r.Drag.Estimates, flow)
-}
-
-// checkEstimates refuses another law's estimate that left the range of
-// numbers, since every estimate is printed beside the chosen one.
-func checkEstimates(es []Estimate, flow []quantity) error {
-	for _, e := range es {
-		for _, v := range [...]float64{e.Force, e.Coefficient, e.Reynolds, e.ReferenceArea} {
-			if !usable(v) {
-				return rangeError("the drag by "+e.Law+" is not a finite positive number", flow...)
-			}
+	optional := [...]float64{r.Strouhal, r.AdvanceRatio, r.ReducedFrequency, r.Peclet, r.CoastTime, r.CoastDistance,
+		r.GeneralizedRe, r.BinghamNumber, r.Deborah, r.Weissenberg}
+	for i, v := range optional {
+		if math.IsInf(v, 0) {
+			return resultError(r, o, len(required)+i, v)
+		}
+	}
+	for i := range r.Drag.Estimates {
+		e := &r.Drag.Estimates[i]
+		if !usable(e.Force) || !usable(e.Coefficient) || !usable(e.Reynolds) || !usable(e.ReferenceArea) {
+			mv := mediumValues{r.Medium.Density, r.Viscosity / r.Medium.Density}
+			return rangeError("the drag by "+e.Law+" is not a finite positive number", flowInputs(o, mv)...)
 		}
 	}
 	return nil
+}
+
+// resultNames name checkResult's values in its order: required, then
+// optional.
+var resultNames = [...]string{"drag", "reference area", "drag coefficient", "power",
+	"Strouhal number", "advance ratio", "reduced frequency", "Péclet number", "coasting time", "coasting distance",
+	"generalised Reynolds number", "Bingham number", "Deborah number", "Weissenberg number"}
+
+// resultError blames the inputs of checkResult's value i, which is v.
+func resultError(r *Result, o *Organism, i int, v float64) error {
+	flow := flowInputs(o, mediumValues{r.Medium.Density, r.Viscosity / r.Medium.Density})
+	stroke := []quantity{{"frequency", "Hz", o.Frequency}, {"amplitude", "m", o.Amplitude}, {"speed", "m/s", o.Speed}}
+	inputs := flow
+	switch resultNames[i] {
+	case "power", "coasting time", "coasting distance":
+		inputs = append(flow, quantity{"mass", "kg", o.Mass}, quantity{"span", "m", o.Span},
+			quantity{"wing length", "m", o.WingLength}, quantity{"chord", "m", o.Chord}, quantity{"wing area", "m²", o.WingArea})
+	case "Strouhal number", "advance ratio", "reduced frequency", "Deborah number":
+		inputs = stroke
+	case "Péclet number":
+		inputs = append(flow, quantity{"diffusivity", "m²/s", o.Diffusivity})
+	}
+	what := "the " + resultNames[i]
+	switch {
+	case math.IsInf(v, 0):
+		what += " overflows"
+	case v == 0:
+		what += " underflows to zero"
+	default:
+		what += " is not a finite positive number"
+	}
+	return rangeError(what, inputs...)
 }
 
 // checkCurve refuses a power curve with a number that is not finite.

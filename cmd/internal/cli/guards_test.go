@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -34,7 +35,7 @@ func TestExtremeInputsExitCodes(t *testing.T) {
 		{[]string{"settle", "--diameter", "0m", "--density", "2g/cm3"}, "--diameter: must be above 0 m", ExitUsage},
 		{[]string{"settle", "--diameter", "1mm", "--density", "-2g/cm3"}, "--density: must be above 0 kg/m³", ExitUsage},
 		{[]string{"settle", "--diameter", "1e308m", "--density", "2g/cm3"}, "outside 1e-14 < Re < 1e8", ExitFailure},
-		{[]string{"settle", "--diameter", "1mm", "--density", "2g/cm3", "--depth", "50km", "--medium", "seawater"}, "depth 50000 m is below 12000 m", ExitFailure},
+		{[]string{"settle", "--diameter", "1mm", "--density", "2g/cm3", "--depth", "50km", "--medium", "seawater"}, "depth 50000 m is beyond the deepest accepted, 12000 m", ExitFailure},
 		{[]string{"sweep", "--vary", "speed=0m/s:1m/s", "--length", "1cm"}, "--vary speed: speed must be above 0 m/s", ExitUsage},
 		{[]string{"sweep", "--vary", "length=1cm:2cm", "--speed", "0m/s"}, "--speed: speed must be above 0 m/s", ExitUsage},
 		{[]string{"sweep", "--vary", "mass=-1g:2g", "--length", "1cm", "--speed", "1m/s"}, "--vary mass: mass must be above 0 kg", ExitUsage},
@@ -42,15 +43,31 @@ func TestExtremeInputsExitCodes(t *testing.T) {
 		{[]string{"powercurve", "--length", "10cm", "--mass", "0g", "--span", "30cm"}, "--mass: mass must be above 0 kg", ExitUsage},
 		{[]string{"powercurve", "--length", "10cm", "--mass", "1e308kg", "--span", "30cm", "--from", "1m/s", "--to", "20m/s"}, "mass 1e+308 kg is too large", ExitFailure},
 		{[]string{"medium", "freshwater", "--pressure", "7e8Pa"}, "fresh-water pressure 700 MPa is above 200 MPa", ExitFailure},
-		{[]string{"medium", "freshwater", "--depth", "1000km", "--format", "json"}, "depth 1e+06 m is below 12000 m", ExitFailure},
-		{[]string{"medium", "seawater", "--depth", "50km", "--format", "csv"}, "depth 50000 m is below 12000 m", ExitFailure},
+		{[]string{"medium", "freshwater", "--depth", "1000km", "--format", "json"}, "depth 1e+06 m is beyond the deepest accepted, 12000 m", ExitFailure},
+		{[]string{"medium", "seawater", "--depth", "50km", "--format", "csv"}, "depth 50000 m is beyond the deepest accepted, 12000 m", ExitFailure},
 		{[]string{"medium", "air", "--temp", "1e5C"}, "not physical", ExitFailure},
+		{[]string{"calc", "--length", "2cm", "--speed", "400mm/s±1g"}, `--speed: speed "400mm/s±1g": the uncertainty's unit "g" is not a unit of speed`, ExitUsage},
+		{[]string{"calc", "--length", "2cm", "--speed", "0.4m/s", "--temp", "290±0.5K"}, "--temp: temperature \"290±0.5K\": the value has no unit but its uncertainty is in K", ExitUsage},
 	}
 	for _, c := range cases {
 		out, errs, code := run(t, c.args...)
 		if code != c.code || !strings.Contains(errs, c.want) || strings.Count(errs, "\n") != 1 || out != "" {
 			t.Errorf("%v: exit %d, stdout %q, stderr %q; want exit %d and one line containing %q", c.args, code, out, errs, c.code, c.want)
 		}
+	}
+}
+
+// An uncertainty flag in a unit of its own is converted, not used to reread
+// the value: --speed 400mm/s±1cm/s and --speed 0.4m/s±10mm/s give the same
+// linear propagation (1 cm = 10 mm, SI Brochure, 9th ed.).
+func TestUncertaintyFlagUnits(t *testing.T) {
+	a, errA, codeA := run(t, "calc", "--length", "2cm", "--speed", "400mm/s±1cm/s", "--uncertainty", "linear", "--format", "json")
+	b, errB, codeB := run(t, "calc", "--length", "2cm", "--speed", "0.4m/s±10mm/s", "--uncertainty", "linear", "--format", "json")
+	if codeA != 0 || codeB != 0 || a != b {
+		t.Fatalf("exit %d %q / %d %q; outputs differ:\n%s\n%s", codeA, errA, codeB, errB, a, b)
+	}
+	if re := num(t, decode(t, a), "reynolds"); math.Abs(re/(0.4*0.02/1.0034e-6)-1) > 1e-3 {
+		t.Errorf("Re %g, want about 7973 for 0.4 m/s on 2 cm in 20 °C water", re)
 	}
 }
 
