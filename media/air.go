@@ -144,6 +144,9 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	if p.PressurePa <= 0 {
 		return Properties{}, fmt.Errorf("media: air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
 	}
+	if p.PressurePa > AirMaxPressurePa {
+		return Properties{}, fmt.Errorf("media: air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
+	}
 	if math.IsNaN(c.TemperatureC) {
 		p.TemperatureC = stdT - ZeroCelsiusK + c.OffsetK
 		p.addMethod(brief, func() string {

@@ -43,6 +43,15 @@ const (
 	// and says so through the EOS-80 pressure warning.
 	MaxWaterDepthM = 12000.0
 
+	// AirMaxPressurePa is the highest air pressure accepted. The CIPM-2007
+	// density (published for 600–1100 hPa) stays within 0.03 % of the
+	// reference equation for air of Lemmon et al. (2000, J. Phys. Chem.
+	// Ref. Data 29, 331; as computed by the python3-iapws package) up to
+	// 5 MPa at −20–40 °C and within 0.5 % at 10 MPa, but is 1–4 % off at
+	// 20 MPa and worse beyond (at 1 GPa its compressibility factor is
+	// about 200). Measured for this project.
+	AirMaxPressurePa = 10e6
+
 	// MaxSalinityGkg bounds reference-composition salinity by its
 	// definition: grams of salt per kilogram of sea water cannot reach
 	// 1000 g/kg.
