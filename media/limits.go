@@ -86,7 +86,7 @@ func checkPhysical(p *Properties, at string) error {
 		v    float64
 	}{{"density", p.Density}, {"dynamic viscosity", p.DynamicViscosity}, {"kinematic viscosity", p.KinematicViscosity}} {
 		if !(q.v > 0) || math.IsInf(q.v, 0) {
-			return fmt.Errorf("media: %s: the %s comes out as %g, which is not physical; the conditions are beyond its methods' range", at, q.name, q.v)
+			return fmt.Errorf("media: %s: the %s comes out as %.4g, which is not physical; the conditions are beyond its methods' range", at, q.name, q.v)
 		}
 	}
 	return nil

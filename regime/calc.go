@@ -155,7 +155,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	}
 	nu := r.Viscosity / m.Density
 	r.Reynolds = Reynolds(o.Speed, l, nu)
-	if err := checkReynolds(r.Reynolds, o, m.Density, nu); err != nil {
+	if err := checkReynolds(r.Reynolds, o); err != nil {
 		return err
 	}
 	r.Regime = Classify(r.Reynolds)

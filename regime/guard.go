@@ -22,7 +22,11 @@ func (e *RangeError) Error() string {
 	if math.Abs(e.Value) < 1 {
 		size = "small"
 	}
-	return fmt.Sprintf("regime: %s %g %s is too %s: %s; check its unit", e.Input, e.Value, e.Unit, size, e.Result)
+	unit := ""
+	if e.Unit != "" {
+		unit = " " + e.Unit
+	}
+	return fmt.Sprintf("regime: %s %.4g%s is too %s: %s; check its unit", e.Input, e.Value, unit, size, e.Result)
 }
 
 // quantity is one input a result depends on.
@@ -49,21 +53,20 @@ func rangeError(result string, qs ...quantity) error {
 	return &RangeError{Input: worst.name, Value: worst.v, Unit: worst.unit, Result: result}
 }
 
-// flowInputs are the inputs of the Reynolds number and the drag.
-func flowInputs(o *Organism, m mediumValues) []quantity {
+// flowInputs are the organism's inputs of the Reynolds number and the
+// drag. The medium's properties are not among them: media refuses
+// conditions that would make them extreme.
+func flowInputs(o *Organism) []quantity {
 	return []quantity{{"length", "m", o.Body.Length}, {"diameter", "m", o.Body.Diameter}, {"speed", "m/s", o.Speed},
-		{"kinematic viscosity", "m²/s", m.nu}, {"density", "kg/m³", m.rho}}
+		{"drag coefficient", "", o.Body.DragCoefficient}, {"reference area", "m²", o.Body.ReferenceArea}}
 }
-
-// mediumValues are the medium's numbers the checks need.
-type mediumValues struct{ rho, nu float64 }
 
 // usable reports whether v is a finite number above zero.
 func usable(v float64) bool { return v > 0 && !math.IsInf(v, 0) }
 
 // checkReynolds refuses a Reynolds number that overflowed or underflowed,
 // before any drag law is asked about it.
-func checkReynolds(re float64, o *Organism, rho, nu float64) error {
+func checkReynolds(re float64, o *Organism) error {
 	if usable(re) {
 		return nil
 	}
@@ -73,7 +76,7 @@ func checkReynolds(re float64, o *Organism, rho, nu float64) error {
 	} else if math.IsNaN(re) {
 		what = "the Reynolds number is not a number"
 	}
-	return rangeError(what, flowInputs(o, mediumValues{rho, nu})...)
+	return rangeError(what, flowInputs(o)...)
 }
 
 // checkResult refuses a result with a number that is not finite, or a
@@ -99,8 +102,7 @@ func checkResult(r *Result, o *Organism) error {
 	for i := range r.Drag.Estimates {
 		e := &r.Drag.Estimates[i]
 		if !usable(e.Force) || !usable(e.Coefficient) || !usable(e.Reynolds) || !usable(e.ReferenceArea) {
-			mv := mediumValues{r.Medium.Density, r.Viscosity / r.Medium.Density}
-			return rangeError("the drag by "+e.Law+" is not a finite positive number", flowInputs(o, mv)...)
+			return rangeError("the drag by "+e.Law+" is not a finite positive number", flowInputs(o)...)
 		}
 	}
 	return nil
@@ -114,7 +116,7 @@ var resultNames = [...]string{"drag", "reference area", "drag coefficient", "pow
 
 // resultError blames the inputs of checkResult's value i, which is v.
 func resultError(r *Result, o *Organism, i int, v float64) error {
-	flow := flowInputs(o, mediumValues{r.Medium.Density, r.Viscosity / r.Medium.Density})
+	flow := flowInputs(o)
 	stroke := []quantity{{"frequency", "Hz", o.Frequency}, {"amplitude", "m", o.Amplitude}, {"speed", "m/s", o.Speed}}
 	inputs := flow
 	switch resultNames[i] {
