@@ -35,6 +35,8 @@ func TestOutOfRangeInputsNamed(t *testing.T) {
 			o.Frequency, o.Amplitude = 1e308, 1
 			return o
 		}(), w, "frequency 1e+308 Hz is too large: the Strouhal number overflows"},
+		{"huge measured drag coefficient", NewOrganism(Body{Shape: Measured, Length: 0.01, DragCoefficient: 1e308, ReferenceArea: 1e300}, 1),
+			w, "drag coefficient 1e+308 is too large: the drag overflows"},
 		{"huge mass in flight", func() Organism {
 			o := NewOrganism(Body{Shape: Spheroid, Length: 0.1, Diameter: 0.02}, 5)
 			o.Mass, o.Span = 1e300, 1e-300
