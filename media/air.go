@@ -182,5 +182,5 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}
-	return p, checkPhysical(&p, fmt.Sprintf("air at %.4g °C and %.6g Pa", p.TemperatureC, p.PressurePa))
+	return p, checkPhysical(&p)
 }

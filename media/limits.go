@@ -79,13 +79,18 @@ func warnHighPressure(ws *[]Warning, brief bool, what, method string, pPa float6
 
 // checkPhysical refuses properties that are not finite positive numbers,
 // the last guard behind the range checks: no NaN, infinity or negative
-// density or viscosity leaves this package.
-func checkPhysical(p *Properties, at string) error {
+// density or viscosity leaves this package. The message is formatted only
+// on failure (batch looks up many conditions).
+func checkPhysical(p *Properties) error {
 	for _, q := range [...]struct {
 		name string
 		v    float64
 	}{{"density", p.Density}, {"dynamic viscosity", p.DynamicViscosity}, {"kinematic viscosity", p.KinematicViscosity}} {
 		if !(q.v > 0) || math.IsInf(q.v, 0) {
+			at := fmt.Sprintf("%s at %.4g °C and %.6g Pa", p.Medium, p.TemperatureC, p.PressurePa)
+			if !math.IsNaN(p.SalinityPractical) {
+				at += fmt.Sprintf(", practical salinity %.4g", p.SalinityPractical)
+			}
 			return fmt.Errorf("media: %s: the %s comes out as %.4g, which is not physical; the conditions are beyond its methods' range", at, q.name, q.v)
 		}
 	}

@@ -182,5 +182,5 @@ func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 			return fmt.Sprintf("sea water: %.4g g/kg is above the 150 g/kg limit of the Sharqawy et al. viscosity correlation", p.SalinityAbsolute)
 		})
 	}
-	return p, checkPhysical(&p, fmt.Sprintf("sea water of salinity %.4g at %.4g °C and %.6g Pa", sp, tC, pPa))
+	return p, checkPhysical(&p)
 }

@@ -179,7 +179,7 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 		})
 	}
 	warnHighPressure(&p.Warnings, brief, "fresh water", "IAPWS-IF97 region 1", pPa)
-	return p, checkPhysical(&p, fmt.Sprintf("fresh water at %.4g °C and %.6g Pa", tC, pPa))
+	return p, checkPhysical(&p)
 }
 
 // waterBoilingC returns the saturation temperature of water (°C) at absolute
