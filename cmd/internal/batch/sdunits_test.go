@@ -91,3 +91,16 @@ func TestSDColumnWrongUnitRejected(t *testing.T) {
 		t.Errorf("reject 0: %q does not name the wrong unit", rejects[0].Reason)
 	}
 }
+
+// An uncertainty column whose header names a unit of another kind is a
+// header problem, refused before any row is read; "%" is relative and
+// accepted.
+func TestSDHeaderUnitChecked(t *testing.T) {
+	if _, err := newMapping([]string{"length (mm)", "speed (mm/s)", "speed sd (g)"}, nil, nil); err == nil ||
+		!strings.Contains(err.Error(), `column "speed sd (g)": "g" is not a unit of speed`) {
+		t.Errorf("error %v", err)
+	}
+	if _, err := newMapping([]string{"length (mm)", "speed (mm/s)", "speed sd (%)", "length sd (cm)"}, nil, nil); err != nil {
+		t.Errorf("relative and length sd columns refused: %v", err)
+	}
+}
