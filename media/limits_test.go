@@ -53,6 +53,13 @@ func TestMediumBoundsBothSides(t *testing.T) {
 		{"sea 50 km deep", "seawater", func(c *Conditions) { c.DepthM = 50000 }, "depth 50000 m", ""},
 		{"fresh 12 km deep", "freshwater", func(c *Conditions) { c.DepthM = 12000 }, "", "above the 100 MPa limit"},
 		{"fresh 1000 km deep", "freshwater", func(c *Conditions) { c.DepthM = 1e6 }, "depth 1e+06 m", ""},
+		// IAPWS-IF97 region 4 (R7-97(2012), eq. 31): water boils at
+		// 99.974 °C at 101325 Pa; IAPWS R14-08: ice melts at 0 °C at one
+		// atmosphere and about −0.74 °C at 10 MPa.
+		{"fresh 99.9 °C at 1 atm", "freshwater", func(c *Conditions) { c.TemperatureC = 99.9 }, "", ""},
+		{"fresh 100 °C at 1 atm", "freshwater", func(c *Conditions) { c.TemperatureC = 100 }, "above its boiling point (99.97 °C)", ""},
+		{"fresh −0.5 °C at 10 MPa", "freshwater", func(c *Conditions) { c.TemperatureC = -0.5; c.PressurePa = 10e6 }, "", "below 0 °C"},
+		{"fresh −0.5 °C at 1 atm", "freshwater", func(c *Conditions) { c.TemperatureC = -0.5 }, "below its freezing point", ""},
 		{"salinity 990 g/kg", "seawater", func(c *Conditions) { c.SalinityPractical = PracticalFromAbsolute(990) }, "", "150 g/kg"},
 		{"salinity 1000 g/kg", "seawater", func(c *Conditions) { c.SalinityPractical = PracticalFromAbsolute(1000) }, "impossible", ""},
 		{"air at 32 km", "air", func(c *Conditions) { c.AltitudeM = 32100 }, "", ""},
