@@ -112,7 +112,10 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if err := o.Body.Validate(); err != nil {
 		return err
 	}
-	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
+	if math.IsInf(o.Speed, 1) { // a speed in body lengths per second times a huge length
+		return rangeError("the speed overflows", flowInputs(o)...)
+	}
+	if !(o.Speed > 0) {
 		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
 	for i, v := range [...]float64{o.Frequency, o.Amplitude, o.Mass, o.Span, o.WingLength, o.Chord, o.WingArea,

@@ -24,6 +24,7 @@ func TestExtremeInputsExitCodes(t *testing.T) {
 		{[]string{"calc", "--length", "1e-300m", "--speed", "1m/s", "--format", "json"}, "length 1e-300 m is too small: the drag underflows to zero", ExitFailure},
 		{[]string{"calc", "--length", "1cm", "--speed", "1e300m/s", "--format", "csv"}, "speed 1e+300 m/s is too large", ExitFailure},
 		{[]string{"calc", "--length", "1cm", "--speed", "0.1m/s", "--freq", "1e308Hz", "--amplitude", "1m"}, "frequency 1e+308 Hz is too large: the Strouhal number overflows", ExitFailure},
+		{[]string{"calc", "--length", "1e308m", "--speed", "10BL/s"}, "length 1e+308 m is too large: the speed overflows", ExitFailure},
 		{[]string{"calc", "--length", "1cm", "--speed", "0m/s"}, "--speed: speed must be above 0 m/s, got 0 m/s", ExitUsage},
 		{[]string{"calc", "--length", "0m", "--speed", "1m/s"}, "--length: length must be above 0 m", ExitUsage},
 		{[]string{"calc", "--length", "1cm", "--diameter", "-1mm", "--speed", "1m/s"}, "--diameter: diameter must be above 0 m", ExitUsage},
