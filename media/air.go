@@ -131,9 +131,8 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	p.GeopotentialM = GeopotentialHeight(c.AltitudeM)
 	p.HumidityPercent = c.HumidityPercent
 	stdT, stdP := StandardAtmosphere(p.GeopotentialM)
-	needStd := math.IsNaN(c.PressurePa) || math.IsNaN(c.TemperatureC)
-	if needStd && math.IsNaN(stdT) {
-		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give --pressure and --temp instead", c.AltitudeM, p.GeopotentialM)
+	if math.IsNaN(stdT) {
+		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range (with --pressure and --temp it is only reported)", c.AltitudeM, p.GeopotentialM)
 	}
 	p.PressurePa = c.PressurePa
 	if math.IsNaN(p.PressurePa) {
@@ -144,6 +143,9 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	}
 	if p.PressurePa <= 0 {
 		return Properties{}, fmt.Errorf("media: air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
+	}
+	if p.PressurePa > AirMaxPressurePa {
+		return Properties{}, fmt.Errorf("media: air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
 	}
 	if math.IsNaN(c.TemperatureC) {
 		p.TemperatureC = stdT - ZeroCelsiusK + c.OffsetK
@@ -180,5 +182,5 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}
-	return p, nil
+	return p, checkPhysical(&p)
 }

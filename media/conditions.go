@@ -113,6 +113,9 @@ func water(c Conditions, brief bool) (Properties, error) {
 	if depth < 0 {
 		return Properties{}, fmt.Errorf("media: depth %.4g m is negative; give a depth of 0 m or more below the surface", depth)
 	}
+	if depth > MaxWaterDepthM {
+		return Properties{}, fmt.Errorf("media: depth %.6g m is beyond the deepest accepted, %g m (the deepest ocean, the Challenger Deep, is about 10.9 km); give a depth of 0–%g m", depth, MaxWaterDepthM, MaxWaterDepthM)
+	}
 	surface := StandardPressurePa
 	var notes []string
 	if alt := or(c.AltitudeM, 0); alt != 0 {

@@ -134,8 +134,9 @@ func waterFreezingK(pPa float64) float64 {
 // FreshWater returns the properties of pure liquid water at tC (°C) and
 // absolute pressure pPa (Pa). Viscosity is IAPWS R12-08 evaluated at the
 // IAPWS-IF97 density. It is an error for the water to be frozen or boiling at
-// those conditions; outside 0–100 °C and 0–100 MPa the result carries a
-// warning.
+// those conditions, above 350 °C (the end of IF97 region 1) or above
+// [WaterMaxPressurePa]; below 0 °C and between 100 and 200 MPa the result
+// carries a warning.
 func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false) }
 
 // freshWater is [FreshWater]; brief leaves out the method notes and the
@@ -154,6 +155,12 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 	if tb := waterBoilingC(pPa); tC > tb {
 		return Properties{}, fmt.Errorf("media: fresh water at %.4g °C and %.6g Pa is above its boiling point (%.4g °C); give a lower temperature or a higher pressure", tC, pPa, tb)
 	}
+	if tC > IF97MaxTemperatureC {
+		return Properties{}, fmt.Errorf("media: fresh water at %.4g °C is above %g °C, the end of IAPWS-IF97 region 1 (623.15 K); give a lower temperature", tC, IF97MaxTemperatureC)
+	}
+	if err := checkWaterPressure("fresh-water", pPa); err != nil {
+		return Properties{}, err
+	}
 	p := blank("freshwater")
 	p.TemperatureC, p.PressurePa = tC, pPa
 	p.SeaPressureDbar = (pPa - StandardPressurePa) / 1e4
@@ -171,12 +178,8 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 			return fmt.Sprintf("fresh water: %.4g °C is below 0 °C; IAPWS-IF97 region 1 starts at 273.15 K and is extrapolated here", tC)
 		})
 	}
-	if pPa > 100e6 {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
-			return fmt.Sprintf("fresh water: %.4g MPa is above the 100 MPa limit of IAPWS-IF97 region 1; density is extrapolated", pPa/1e6)
-		})
-	}
-	return p, nil
+	warnHighPressure(&p.Warnings, brief, "fresh water", "IAPWS-IF97 region 1", pPa)
+	return p, checkPhysical(&p)
 }
 
 // waterBoilingC returns the saturation temperature of water (°C) at absolute

@@ -112,7 +112,10 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if err := o.Body.Validate(); err != nil {
 		return err
 	}
-	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
+	if math.IsInf(o.Speed, 1) { // a speed in body lengths per second times a huge length
+		return rangeError("the speed overflows", flowInputs(o)...)
+	}
+	if !(o.Speed > 0) {
 		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
 	for i, v := range [...]float64{o.Frequency, o.Amplitude, o.Mass, o.Span, o.WingLength, o.Chord, o.WingArea,
@@ -155,6 +158,9 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	}
 	nu := r.Viscosity / m.Density
 	r.Reynolds = Reynolds(o.Speed, l, nu)
+	if err := checkReynolds(r.Reynolds, o); err != nil {
+		return err
+	}
 	r.Regime = Classify(r.Reynolds)
 	if o.Body.Shape == Spheroid {
 		r.BoundaryLayer = BoundaryLayer(r.Reynolds)
@@ -259,14 +265,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)
 	}
-	if math.IsInf(r.Reynolds, 0) || math.IsInf(r.Drag.Chosen.Force, 0) || math.IsInf(r.Drag.Chosen.Coefficient, 0) ||
-		math.IsInf(r.Power.Total, 0) || math.IsInf(r.Strouhal, 0) || math.IsInf(r.Peclet, 0) || math.IsInf(r.CoastDistance, 0) {
-		return fmt.Errorf("regime: a result overflows (Re = %.3g, drag = %.3g N): the inputs are beyond any organism; check their units", r.Reynolds, r.Drag.Chosen.Force)
-	}
-	if math.IsNaN(r.Reynolds) || math.IsNaN(r.Drag.Chosen.Force) || math.IsNaN(r.Power.Total) {
-		return fmt.Errorf("regime: the result is not a number; check the inputs")
-	}
-	return nil
+	return checkResult(r, o)
 }
 
 // optionalNames name the optional values in the order calc checks them.
@@ -347,6 +346,9 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	pc, err := FlightPowerCurve(in, lo, hi, steps)
 	if err != nil {
 		return pc, err
+	}
+	if err := checkCurve(&pc, &o, lo, hi); err != nil {
+		return PowerCurve{}, err
 	}
 	pc.Warnings = append(m.Warnings, pc.Warnings...)
 	return pc, nil

@@ -166,6 +166,17 @@ func newMapping(header []string, columns, units map[string]string) (*mapping, er
 		}
 		m.unit[f] = u
 	}
+	for f, c := range m.sdCol {
+		if c < 0 {
+			continue
+		}
+		if inputs.Fields[f].Text {
+			return nil, fmt.Errorf("column %q: %s is a word and has no uncertainty", header[c], inputs.Fields[f].Name)
+		}
+		if u := m.sdUnit[f]; u != "" && u != "%" && !quantity.KnownUnit(inputs.Fields[f].Kind, u) {
+			return nil, fmt.Errorf("column %q: %q is not a unit of %s; accepted: %s, or %%", header[c], u, inputs.Fields[f].Name, strings.Join(quantity.Units(inputs.Fields[f].Kind), ", "))
+		}
+	}
 	for f := range m.col {
 		if m.col[f] >= 0 && !inputs.Fields[f].Text {
 			m.conv[f], m.convOK[f] = quantity.Resolve(inputs.Fields[f].Kind, m.unit[f])

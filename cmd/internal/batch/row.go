@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"fmt"
 	"math"
 	"slices"
 	"sort"
@@ -121,22 +122,37 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 			}
 		}
 		p.full = false
-		if p.sdCol >= 0 && p.sdCol < len(fields) {
+		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, rc.m.unit[f])
+		if c.Err[f] == nil && p.sdCol >= 0 && p.sdCol < len(fields) {
 			if sd := strings.TrimSpace(fields[p.sdCol]); sd != "" {
-				// "12" and "1" in a column in mm, or "12mm" and "0.1cm".
-				if u := rc.m.sdUnit[f]; u != "" {
-					t = t + rc.m.unit[f] + "±" + sd + u
-				} else {
-					t = t + "±" + sd
-				}
+				c.Value[f], c.Err[f] = rc.withSD(f, p.sdCol, c.Value[f], sd)
 			}
 		}
-		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, rc.m.unit[f])
 		if c.Err[f] == nil && c.Value[f].SD > 0 {
 			rc.uncertain = true
 		}
 	}
 	return c
+}
+
+// withSD adds to v the uncertainty sd from column sdCol: converted from
+// its own unit, or from the sd column's header unit, else the value
+// column's, never used to reread the value. A value that already carries
+// a "±" is refused rather than given two uncertainties.
+func (rc *rowCells) withSD(f, sdCol int, v quantity.Value, sd string) (quantity.Value, error) {
+	name := rc.m.header[sdCol]
+	if v.SD > 0 {
+		return v, fmt.Errorf("the value has an uncertainty (±) and column %q gives another; keep one", name)
+	}
+	unit := rc.m.sdUnit[f]
+	if unit == "" {
+		unit = rc.m.unit[f]
+	}
+	out, err := quantity.WithUncertainty(inputs.Fields[f].Kind, v, sd, unit)
+	if err != nil {
+		return v, fmt.Errorf("uncertainty in column %q: %v", name, err)
+	}
+	return out, nil
 }
 
 // mediumCache holds medium properties by condition, shared by the workers
@@ -286,6 +302,9 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 				r.Warnings = append(r.Warnings, media.Warning{Code: regime.WarnModel})
 			}
 			o.unc = &u
+			if err := o.finiteBands(); err != nil {
+				return outcome{}, err
+			}
 		}
 	}
 	s.flags = flagCodes(s.flags[:0], r.Warnings)
@@ -332,6 +351,18 @@ func (o outcome) values(dst []string, withUnc bool) []string {
 		}
 	}
 	return dst
+}
+
+// finiteBands refuses a row whose uncertainty interval overflowed, which
+// would otherwise print as an empty cell; NaN stays (a quantity that does
+// not apply, such as a Strouhal number without a stroke).
+func (o outcome) finiteBands() error {
+	for i, v := range o.uncValues() {
+		if math.IsInf(v, 0) {
+			return fmt.Errorf("%s is not a finite number (%g); check the uncertainties' units", UncertaintyColumns[i], v)
+		}
+	}
+	return nil
 }
 
 // uncValues returns the uncertainty columns' numbers (NaN when absent).

@@ -66,7 +66,9 @@ geometry). --flagged-only keeps only flagged rows.
 Uncertainty: a column named after another with "sd" — "length sd",
 "length_sd", "length (mm) sd" — holds that quantity's standard
 uncertainty, in its unit unless its own header gives one ("length sd (cm)")
-or the cell says "%". Cells may also read "12±1". With any such column, or
+or the cell does ("1cm", converted, never rescaling the value; "5%" is
+relative). Cells may also read "12±1" or "12±1cm", where a bare value is
+in its column's unit. With any such column, or
 with --uncertainty, each row's uncertainty is propagated (Monte Carlo with
 --draws and --seed, or --uncertainty linear) and these columns follow:
   reynolds_low95 reynolds_high95 strouhal_low95 strouhal_high95 drag_N_low95

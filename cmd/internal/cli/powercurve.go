@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"errors"
 	"fmt"
 
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
@@ -53,6 +54,9 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 	if err != nil {
 		return usagef("--to: %v", err)
 	}
+	if !(lo.SI > 0) || !(hi.SI > lo.SI) {
+		return usagef("--from %s --to %s: give speeds with 0 m/s < from < to", o.from, o.to)
+	}
 	if o.steps < 3 || o.steps > 10000 {
 		return usagef("--steps %d: give 3 to 10000", o.steps)
 	}
@@ -61,7 +65,11 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 		return err
 	}
 	pc, err := regime.OrganismPowerCurve(in.Organism, m, lo.SI, hi.SI, o.steps)
-	if err != nil {
+	var re *regime.RangeError
+	switch {
+	case errors.As(err, &re):
+		return fmt.Errorf("%s", trimPkg(err)) // inputs beyond any organism: cannot be computed
+	case err != nil:
 		return usageError{fmt.Errorf("%s", trimPkg(err))}
 	}
 	switch o.format {

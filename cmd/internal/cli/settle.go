@@ -81,6 +81,10 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 		if err != nil {
 			return p, usagef("--%s: %v", f.flag, err)
 		}
+		if !(v.SI > 0) {
+			u := quantity.SIUnit(f.kind)
+			return p, usagef("--%s: must be above 0 %s, got %g %s", f.flag, u, v.SI, u)
+		}
 		*f.dst = v.SI
 	}
 	if o.length != "" {

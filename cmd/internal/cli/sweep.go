@@ -20,14 +20,6 @@ type sweepOptions struct {
 	log   bool
 }
 
-// siUnit is the unit sweep prints a varied quantity in.
-var siUnit = map[quantity.Kind]string{
-	quantity.Length: "m", quantity.Height: "m", quantity.Speed: "m/s", quantity.Temperature: "°C",
-	quantity.Pressure: "Pa", quantity.Salinity: "practical salinity", quantity.Humidity: "%", quantity.Mass: "kg",
-	quantity.Frequency: "Hz", quantity.Area: "m²", quantity.Time: "s", quantity.ShearRate: "1/s",
-	quantity.Angle: "rad", quantity.Diffusivity: "m²/s",
-}
-
 func newSweepCmd(s Streams) *cobra.Command {
 	o := &sweepOptions{}
 	cmd := &cobra.Command{
@@ -120,6 +112,11 @@ func runSweep(o *sweepOptions, s Streams) error {
 	if o.steps < 2 || o.steps > 100000 {
 		return usagef("--steps %d: give 2 to 100000", o.steps)
 	}
+	for _, v := range []float64{from, to} {
+		if err := inputs.CheckPositive(f, v, "--vary "+inputs.Fields[f].Name); err != nil {
+			return usageError{err}
+		}
+	}
 	if o.log && !(from > 0 && to > 0) {
 		return usagef("--log needs a positive range")
 	}
@@ -168,7 +165,7 @@ func runSweep(o *sweepOptions, s Streams) error {
 		prev = &pts[len(pts)-1]
 	}
 	name := inputs.Fields[f].Name
-	unit := siUnit[inputs.Fields[f].Kind]
+	unit := quantity.SIUnit(inputs.Fields[f].Kind)
 	switch o.format {
 	case report.FormatJSON:
 		return report.JSON(s.Out, struct {

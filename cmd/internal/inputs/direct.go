@@ -30,6 +30,7 @@ type Direct struct {
 	texts         []directText
 	speedPerBL    bool // the speed column is in body lengths per second
 	shapeLabel    string
+	labels        [NumFields]string // where each field comes from, for errors
 	defaultMedium string
 }
 
@@ -81,10 +82,13 @@ func NewDirect(constants *Cells, cols []Column, labels [NumFields]string, defaul
 			*d.base.field(f) = v.SI
 		}
 	}
-	d.shapeLabel = labels[Shape]
-	if !hasCol[Shape] {
-		d.shapeLabel = constants.Label[Shape]
+	for f := range d.labels {
+		d.labels[f] = labels[f]
+		if !hasCol[f] {
+			d.labels[f] = constants.Label[f]
+		}
 	}
+	d.shapeLabel = d.labels[Shape]
 	d.base.Organism.Disc = constants.Text[Disc]
 	d.base.Conditions.Medium = constants.Text[Medium]
 	d.baseShape = constants.Text[Shape]
@@ -139,6 +143,9 @@ func (d *Direct) Row(fields []string) (in *Input, ok bool, err error) {
 	b.Shape = shape
 	if shape != regime.Measured { // BuildCells leaves them zero
 		b.DragCoefficient, b.ReferenceArea = 0, 0
+	}
+	if err := checkOrganism(o, &d.labels); err != nil {
+		return nil, true, err
 	}
 	if err := validBody(*b); err != nil {
 		return nil, true, err

@@ -279,6 +279,9 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	if rd.err != nil {
 		return in, rd.err
 	}
+	if err := checkOrganism(&o, &rd.c.Label); err != nil {
+		return in, err
+	}
 	if err := validBody(b); err != nil {
 		return in, err
 	}

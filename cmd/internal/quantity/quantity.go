@@ -102,6 +102,16 @@ var names = map[Kind]string{
 	Angle: "angle", Diffusivity: "diffusivity", Stress: "shear stress", Viscosity: "viscosity",
 }
 
+var siUnits = map[Kind]string{
+	Length: "m", Height: "m", Speed: "m/s", Temperature: "°C", Pressure: "Pa", Salinity: "practical salinity",
+	Humidity: "%", Mass: "kg", Frequency: "Hz", Density: "kg/m³", Area: "m²", Time: "s", ShearRate: "1/s",
+	Angle: "rad", Diffusivity: "m²/s", Stress: "Pa", Viscosity: "Pa·s",
+}
+
+// SIUnit returns the unit of the library's values of kind k ("" for plain
+// numbers and fractions).
+func SIUnit(k Kind) string { return siUnits[k] }
+
 // Example returns an accepted way to write a value of kind k.
 func Example(k Kind) string { return examples[k] }
 
@@ -128,7 +138,11 @@ func Parse(k Kind, text string) (Value, error) { return ParseDefault(k, text, ""
 
 // ParseDefault is [Parse] with a default unit for text that carries none,
 // as when a data sheet's header says "length (mm)" and its cells hold
-// bare numbers. A unit in the text wins over the default.
+// bare numbers. A unit in the text wins over the default. A bare value
+// takes the default unit even when its uncertainty has a unit of its own:
+// under "speed (mm/s)", "400±1cm/s" is 400 mm/s with 10 mm/s. Only without
+// a default does a bare value borrow its uncertainty's unit ("12±1mm"), and
+// only for a kind whose bare numbers have no meaning of their own.
 func ParseDefault(k Kind, text, defUnit string) (Value, error) {
 	table, ok := units[k]
 	if !ok {
@@ -155,53 +169,118 @@ func ParseDefault(k Kind, text, defUnit string) (Value, error) {
 	var sdNum float64
 	var sdUnit string
 	if hasUnc {
-		sdNum, sdUnit, err = splitNumber(unc)
-		if err != nil {
-			return Value{}, fmt.Errorf("%s %q: uncertainty: %v; write it as 12±1mm or 12mm±8%%", names[k], text, err)
-		}
-		if sdNum < 0 {
-			return Value{}, fmt.Errorf("%s %q: uncertainty must not be negative", names[k], text)
-		}
-		if unit == "" && sdUnit != "" && sdUnit != "%" {
-			unit = sdUnit // "12±1mm": both numbers in mm
+		if sdNum, sdUnit, err = splitUncertaintyNumber(k, unc, text); err != nil {
+			return Value{}, err
 		}
 	}
-	if unit == "" && defUnit != "" {
+	switch {
+	case unit != "":
+	case defUnit != "":
 		unit = defUnit
-		if hasUnc && sdUnit == "" {
-			sdUnit = defUnit
+	case hasUnc && sdUnit != "" && sdUnit != "%":
+		if bareOK[k] && !sameAsBare(k, sdUnit) {
+			return Value{}, fmt.Errorf("%s %q: the value has no unit but its uncertainty is in %s; write the unit on both, for example %s%s±%s", names[k], strings.TrimSpace(text), sdUnit, main, sdUnit, unc)
 		}
+		unit = sdUnit // "12±1mm": both numbers in mm
 	}
-	v := Value{}
 	c, err := lookupUnit(k, unit, text)
 	if err != nil {
 		return Value{}, err
 	}
-	v.Unit = unit
-	v.SI = num*c.factor + c.offset
-	v.PerBodyLength = c.note == "bl"
-	v.Absolute = c.note == "abs"
+	v := Value{Unit: unit, SI: num*c.factor + c.offset, PerBodyLength: c.note == "bl", Absolute: c.note == "abs"}
 	if hasUnc {
-		switch {
-		case sdUnit == "%" && k != Humidity && !(k == Fraction && unit == "%"):
-			v.SD = math.Abs(num*c.factor) * sdNum / 100
-		case sdUnit == "" || sdUnit == unit:
-			v.SD = sdNum * c.factor
-		default:
-			sc, err := lookupUnit(k, sdUnit, text)
-			if err != nil {
-				return Value{}, err
-			}
-			if sc.note != c.note {
-				return Value{}, fmt.Errorf("%s %q: value and uncertainty must be of the same kind of unit", names[k], text)
-			}
-			v.SD = sdNum * sc.factor // a difference: no offset
+		if v.SD, err = uncertaintySI(k, c, unit, num, sdNum, sdUnit, text); err != nil {
+			return Value{}, err
 		}
 	}
 	if math.IsNaN(v.SI) || math.IsInf(v.SI, 0) || math.IsNaN(v.SD) || math.IsInf(v.SD, 0) {
 		return Value{}, fmt.Errorf("%s %q is not a finite number", names[k], text)
 	}
 	return v, nil
+}
+
+// WithUncertainty returns v with the standard uncertainty read from text,
+// as a data sheet gives it in a column of its own: a bare number in
+// defUnit (the uncertainty column's unit, else the value's column's), or
+// else in v's unit; a number with a unit converted from that unit; a
+// percentage relative to v. A unit of another kind of quantity is an
+// error.
+func WithUncertainty(k Kind, v Value, text, defUnit string) (Value, error) {
+	s := strings.TrimSpace(strings.ReplaceAll(text, "−", "-"))
+	if !utf8.ValidString(s) {
+		return Value{}, fmt.Errorf("%q is not valid UTF-8 text", text)
+	}
+	sdNum, sdUnit, err := splitUncertaintyNumber(k, s, text)
+	if err != nil {
+		return Value{}, err
+	}
+	if sdUnit == "" {
+		sdUnit = defUnit
+	}
+	c, err := lookupUnit(k, v.Unit, v.Unit)
+	if err != nil {
+		return Value{}, err
+	}
+	num := (v.SI - c.offset) / c.factor
+	if v.SD, err = uncertaintySI(k, c, v.Unit, num, sdNum, sdUnit, text); err != nil {
+		return Value{}, err
+	}
+	if math.IsNaN(v.SD) || math.IsInf(v.SD, 0) {
+		return Value{}, fmt.Errorf("%s uncertainty %q is not a finite number", names[k], text)
+	}
+	return v, nil
+}
+
+// sameAsBare reports whether unit means what a bare number of kind k means
+// ("°C" for a temperature), so that "18±0.5°C" is not ambiguous.
+func sameAsBare(k Kind, unit string) bool {
+	bare, err := lookupUnit(k, "", "")
+	if err != nil {
+		return false
+	}
+	c, ok := units[k][unit]
+	if !ok {
+		c, ok = units[k][normalise(unit)]
+	}
+	return ok && c == bare
+}
+
+// splitUncertaintyNumber reads the number and unit of an uncertainty.
+func splitUncertaintyNumber(k Kind, unc, text string) (float64, string, error) {
+	sdNum, sdUnit, err := splitNumber(unc)
+	if err != nil {
+		return 0, "", fmt.Errorf("%s %q: uncertainty: %v; write it as 12±1mm or 12mm±8%%", names[k], text, err)
+	}
+	if sdNum < 0 {
+		return 0, "", fmt.Errorf("%s %q: uncertainty must not be negative", names[k], text)
+	}
+	return sdNum, sdUnit, nil
+}
+
+// uncertaintySI converts an uncertainty sdNum in sdUnit to the library's
+// unit, for a value num in unit with conversion c: a percentage is relative
+// to the value (but for relative humidity and a fraction in %, where % is
+// the value's own unit), a bare number is in the value's unit, and another
+// unit converts as a difference (no offset). A unit of another kind of
+// quantity, or body lengths against an absolute speed, is an error.
+func uncertaintySI(k Kind, c conv, unit string, num, sdNum float64, sdUnit, text string) (float64, error) {
+	switch {
+	case sdUnit == "%" && k != Humidity && !(k == Fraction && unit == "%"):
+		return math.Abs(num*c.factor) * sdNum / 100, nil
+	case sdUnit == "" || sdUnit == unit:
+		return sdNum * c.factor, nil
+	}
+	sc, ok := units[k][sdUnit]
+	if !ok {
+		sc, ok = units[k][normalise(sdUnit)]
+	}
+	if !ok {
+		return 0, fmt.Errorf("%s %q: the uncertainty's unit %q is not a unit of %s; accepted: %s, or %%", names[k], strings.TrimSpace(text), sdUnit, names[k], strings.Join(Units(k), ", "))
+	}
+	if sc.note != c.note {
+		return 0, fmt.Errorf("%s %q: value and uncertainty must be of the same kind of unit", names[k], text)
+	}
+	return sdNum * sc.factor, nil // a difference: no offset
 }
 
 func lookupUnit(k Kind, unit, text string) (conv, error) {

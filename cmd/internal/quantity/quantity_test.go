@@ -147,3 +147,89 @@ func TestParseDefault(t *testing.T) {
 		t.Errorf("header unit K not applied: %g", v.SI)
 	}
 }
+
+// An uncertainty with its own unit is converted from that unit, never used
+// to reinterpret the value. Expected values are the SI definitions of the
+// units (BIPM SI Brochure, 9th ed.: 1 cm = 1e-2 m, 1 mm = 1e-3 m; the
+// kelvin and degree Celsius have equal intervals).
+func TestUncertaintyKeepsItsOwnUnit(t *testing.T) {
+	cases := []struct {
+		k        Kind
+		in, def  string
+		si, sd   float64
+		relative bool
+	}{
+		{Speed, "400±1cm/s", "mm/s", 0.400, 0.010, false},     // value in the column's unit, uncertainty in its own
+		{Speed, "400mm/s±1cm/s", "", 0.400, 0.010, false},     // both written
+		{Speed, "400±1cm/s", "", 4.00, 0.010, false},          // no column unit: "12±1mm" reads both in cm/s
+		{Length, "12mm±8%", "cm", 0.012, 0.00096, true},       // a percentage stays relative
+		{Length, "12±8%", "cm", 0.12, 0.0096, true},           // of the value in the column's unit
+		{Temperature, "291.15K±0.5C", "", 18, 0.5, false},     // an interval in °C on a value in K
+		{Temperature, "18±0.5", "K", 18 - 273.15, 0.5, false}, // the column's unit for both
+	}
+	for _, c := range cases {
+		v, err := ParseDefault(c.k, c.in, c.def)
+		if err != nil {
+			t.Errorf("ParseDefault(%q, %q): %v", c.in, c.def, err)
+			continue
+		}
+		if math.Abs(v.SI-c.si) > 1e-12*math.Max(1, math.Abs(c.si)) || math.Abs(v.SD-c.sd) > 1e-15 {
+			t.Errorf("ParseDefault(%q, %q) = %g ± %g, want %g ± %g", c.in, c.def, v.SI, v.SD, c.si, c.sd)
+		}
+	}
+}
+
+// Uncertainties whose unit is of another kind, or ambiguous beside a bare
+// value that has a meaning of its own, are refused with the quantity named.
+func TestUncertaintyWrongUnitRefused(t *testing.T) {
+	cases := []struct {
+		k       Kind
+		in, def string
+		want    string
+	}{
+		{Speed, "400±1g", "mm/s", `the uncertainty's unit "g" is not a unit of speed`},
+		{Length, "12mm±1s", "", `the uncertainty's unit "s" is not a unit of length`},
+		{Temperature, "290±0.5K", "", "the value has no unit but its uncertainty is in K; write the unit on both, for example 290K±0.5K"},
+		{Salinity, "35±1g/kg", "", "the value has no unit but its uncertainty is in g/kg"},
+		{Speed, "3BL/s±0.1m/s", "", "same kind of unit"},
+	}
+	for _, c := range cases {
+		_, err := ParseDefault(c.k, c.in, c.def)
+		if err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("ParseDefault(%q, %q) error = %v, want it to contain %q", c.in, c.def, err, c.want)
+		}
+	}
+}
+
+// A separate uncertainty, as an sd column holds it, is converted from its
+// own unit, from the sd column's unit, or else taken in the value's unit;
+// a percentage is relative. SI unit definitions as above.
+func TestWithUncertainty(t *testing.T) {
+	mmps, _ := ParseDefault(Speed, "400", "mm/s")
+	cases := []struct {
+		sd, def string
+		want    float64
+		err     string
+	}{
+		{"1cm/s", "", 0.010, ""},
+		{"1", "cm/s", 0.010, ""},
+		{"1", "", 0.001, ""},
+		{"5%", "", 0.020, ""},
+		{"1g", "", 0, `the uncertainty's unit "g" is not a unit of speed`},
+		{"1", "g", 0, `the uncertainty's unit "g" is not a unit of speed`},
+		{"-1", "", 0, "must not be negative"},
+		{"0.1BL/s", "", 0, "same kind of unit"},
+	}
+	for _, c := range cases {
+		v, err := WithUncertainty(Speed, mmps, c.sd, c.def)
+		if c.err != "" {
+			if err == nil || !strings.Contains(err.Error(), c.err) {
+				t.Errorf("WithUncertainty(%q, %q) error = %v, want %q", c.sd, c.def, err, c.err)
+			}
+			continue
+		}
+		if err != nil || math.Abs(v.SD-c.want) > 1e-15 || v.SI != mmps.SI {
+			t.Errorf("WithUncertainty(%q, %q) = %+v, %v; want SD %g", c.sd, c.def, v, err, c.want)
+		}
+	}
+}

@@ -6,10 +6,12 @@ package report
 import (
 	"encoding/csv"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"strconv"
+	"strings"
 
 	"github.com/olekukonko/tablewriter"
 	"github.com/olekukonko/tablewriter/tw"
@@ -31,9 +33,35 @@ func CheckFormat(f string) error {
 	return fmt.Errorf("--format %q is not known; accepted: table, json, csv", f)
 }
 
+// nonFinite is what Num gives for an infinite number and F for a number
+// that is not finite. No writer prints it: Table, CSV and Fields refuse the
+// whole output instead, the last guard against an overflow that slipped
+// past the library's checks reaching a reader as a blank or "+Inf".
+const nonFinite = "\x00non-finite"
+
+// checkFinite returns an error naming the first column that holds a
+// non-finite number.
+func checkFinite(headers []string, rows [][]string) error {
+	for _, r := range rows {
+		for i, c := range r {
+			if strings.Contains(c, nonFinite) {
+				name := "a value"
+				if i < len(headers) {
+					name = headers[i]
+				}
+				return fmt.Errorf("%s is not a finite number; nothing was printed (check the inputs' units)", name)
+			}
+		}
+	}
+	return nil
+}
+
 // Table writes an aligned table with the given headers, which should carry
 // units, e.g. "density (kg/m³)". Headers are printed as given.
 func Table(w io.Writer, headers []string, rows [][]string) error {
+	if err := checkFinite(headers, rows); err != nil {
+		return err
+	}
 	t := tablewriter.NewTable(w,
 		tablewriter.WithHeaderAutoFormat(tw.Off),
 		tablewriter.WithHeaderAlignment(tw.AlignLeft),
@@ -54,6 +82,9 @@ func Table(w io.Writer, headers []string, rows [][]string) error {
 
 // CSV writes headers and rows as RFC 4180 CSV.
 func CSV(w io.Writer, headers []string, rows [][]string) error {
+	if err := checkFinite(headers, rows); err != nil {
+		return err
+	}
 	c := csv.NewWriter(w)
 	if err := c.Write(headers); err != nil {
 		return err
@@ -65,18 +96,29 @@ func CSV(w io.Writer, headers []string, rows [][]string) error {
 	return c.Error()
 }
 
-// JSON writes v as indented JSON followed by a newline.
+// JSON writes v as indented JSON followed by a newline. A NaN or infinite
+// number in v (one not left out through Opt) is an error and nothing is
+// written: the encoder refuses it before writing.
 func JSON(w io.Writer, v any) error {
 	e := json.NewEncoder(w)
 	e.SetIndent("", "  ")
 	e.SetEscapeHTML(false)
-	return e.Encode(v)
+	err := e.Encode(v)
+	var uv *json.UnsupportedValueError
+	if errors.As(err, &uv) {
+		return fmt.Errorf("a result is %s, not a finite number; nothing was printed (check the inputs' units)", uv.Str)
+	}
+	return err
 }
 
 // Num formats v with sig significant digits, switching to exponent notation
-// for very large or small magnitudes. NaN and ±Inf print as "".
+// for very large or small magnitudes. NaN, a quantity that does not apply,
+// prints as ""; ±Inf gives a text every writer refuses.
 func Num(v float64, sig int) string {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
+	if math.IsInf(v, 0) {
+		return nonFinite
+	}
+	if math.IsNaN(v) {
 		return ""
 	}
 	if v == 0 {
@@ -89,10 +131,11 @@ func Num(v float64, sig int) string {
 	return strconv.FormatFloat(v, 'e', sig-1, 64)
 }
 
-// Opt returns a pointer to v, or nil when v is NaN or infinite, so that JSON
-// omits or nulls quantities that do not apply.
+// Opt returns a pointer to v, or nil when v is NaN, so that JSON omits or
+// nulls quantities that do not apply. An infinite v stays, for JSON to
+// refuse.
 func Opt(v float64) *float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
+	if math.IsNaN(v) {
 		return nil
 	}
 	return &v
@@ -118,17 +161,20 @@ type Field struct {
 }
 
 // F builds a Field from a number, formatted with sig significant digits in
-// tables; CSV gets the same text.
+// tables; CSV gets the same text. The number must be finite: NaN or ±Inf
+// makes Fields refuse the output (Maybe is for quantities that may not
+// apply).
 func F(key, label string, v float64, sig int) Field {
+	if math.IsNaN(v) {
+		return Field{Key: key, Label: label, Value: nonFinite}
+	}
 	return Field{Key: key, Label: label, Value: Num(v, sig)}
 }
 
 // Maybe builds a Field that is left out of the output when v is NaN: a
 // quantity that does not apply to this result.
 func Maybe(key, label string, v float64, sig int) Field {
-	f := F(key, label, v, sig)
-	f.optional = true
-	return f
+	return Field{Key: key, Label: label, Value: Num(v, sig), optional: true}
 }
 
 // present drops optional fields without a value.
@@ -146,6 +192,11 @@ func present(fs []Field) []Field {
 // value) or as a one-row CSV with keys as headers.
 func Fields(w io.Writer, format string, fs []Field) error {
 	fs = present(fs)
+	for _, f := range fs {
+		if strings.Contains(f.Value, nonFinite) {
+			return fmt.Errorf("%s is not a finite number; nothing was printed (check the inputs' units)", f.Label)
+		}
+	}
 	if format == FormatCSV {
 		h := make([]string, len(fs))
 		r := make([]string, len(fs))
