@@ -9,6 +9,7 @@ import (
 	"io"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/spf13/cobra"
 )
 
@@ -71,7 +72,8 @@ really lives in, and what drag and power follow from the law that fits.
 }
 
 // Main runs the command line and returns the process exit code. Errors are
-// one line on stderr, prefixed with "flowregime: ".
+// one line on stderr, prefixed with "flowregime: ", control characters
+// escaped.
 func Main(args []string, s Streams) int {
 	root := NewRoot(s)
 	root.SetArgs(args)
@@ -82,12 +84,12 @@ func Main(args []string, s Streams) int {
 	var ee exitError
 	if errors.As(err, &ee) {
 		if ee.msg != "" {
-			fmt.Fprintf(s.Err, "flowregime: %s\n", ee.msg)
+			fmt.Fprintf(s.Err, "flowregime: %s\n", report.Printable(ee.msg))
 		}
 		return ee.code
 	}
 	msg := strings.ReplaceAll(err.Error(), "\n", " ")
-	fmt.Fprintf(s.Err, "flowregime: %s\n", msg)
+	fmt.Fprintf(s.Err, "flowregime: %s\n", report.Printable(msg))
 	var ue usageError
 	if errors.As(err, &ue) || strings.HasPrefix(msg, "unknown command") || strings.HasPrefix(msg, "unknown flag") {
 		return ExitUsage

@@ -32,7 +32,9 @@ func CheckFormat(f string) error {
 }
 
 // Table writes an aligned table with the given headers, which should carry
-// units, e.g. "density (kg/m³)". Headers are printed as given.
+// units, e.g. "density (kg/m³)". Headers and cells are printed as given,
+// but for control characters other than line breaks, which are escaped
+// (see [Printable]).
 func Table(w io.Writer, headers []string, rows [][]string) error {
 	t := tablewriter.NewTable(w,
 		tablewriter.WithHeaderAutoFormat(tw.Off),
@@ -41,11 +43,15 @@ func Table(w io.Writer, headers []string, rows [][]string) error {
 	)
 	h := make([]any, len(headers))
 	for i, s := range headers {
-		h[i] = s
+		h[i] = printableCell(s)
 	}
 	t.Header(h...)
 	for _, r := range rows {
-		if err := t.Append(r); err != nil {
+		clean := make([]string, len(r)) // the table keeps the rows until Render
+		for i, c := range r {
+			clean[i] = printableCell(c)
+		}
+		if err := t.Append(clean); err != nil {
 			return err
 		}
 	}
@@ -105,7 +111,7 @@ func List(w io.Writer, title string, items []string) {
 	}
 	fmt.Fprintf(w, "%s:\n", title)
 	for _, s := range items {
-		fmt.Fprintf(w, "  - %s\n", s)
+		fmt.Fprintf(w, "  - %s\n", Printable(s))
 	}
 }
 
