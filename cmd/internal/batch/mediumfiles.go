@@ -73,22 +73,31 @@ func (mf *mediumFiles) read(name string) (media.MediumFile, error) {
 		return media.MediumFile{}, err
 	}
 	defer fh.Close()
-	if st, err := fh.Stat(); err == nil && st.IsDir() {
-		return media.MediumFile{}, errors.New("it is a folder")
-	}
 	return checkMediumFile(fh)
 }
+
+// opener is what mediumFiles opens through: the table's folder as an
+// os.Root, or the file system as a whole.
+type opener interface {
+	Stat(name string) (fs.FileInfo, error)
+	Open(name string) (*os.File, error)
+}
+
+type anyFile struct{}
+
+func (anyFile) Stat(name string) (fs.FileInfo, error) { return os.Stat(name) }
+func (anyFile) Open(name string) (*os.File, error)    { return os.Open(name) }
 
 // open opens the file by the rules of mediumFiles.
 func (mf *mediumFiles) open(name string) (*os.File, error) {
 	switch {
 	case name == mf.trusted:
-		return openCategory(os.Open(name))
+		return openRegular(anyFile{}, name)
 	case mf.anywhere:
 		if !filepath.IsAbs(name) {
 			name = filepath.Join(mf.dir, name)
 		}
-		return openCategory(os.Open(name))
+		return openRegular(anyFile{}, name)
 	case filepath.IsAbs(name):
 		return nil, errors.New("an absolute path; a table may name only files in its own folder (--media-anywhere allows more)")
 	case !filepath.IsLocal(name):
@@ -99,24 +108,49 @@ func (mf *mediumFiles) open(name string) (*os.File, error) {
 		return nil, errors.New("the table's folder cannot be opened")
 	}
 	defer root.Close()
-	fh, err := root.Open(name)
-	if err != nil && !errors.Is(err, fs.ErrNotExist) && !errors.Is(err, fs.ErrPermission) {
+	fh, err := openRegular(root, name)
+	if err != nil && linksOut(mf.dir, name) {
 		return nil, errors.New("a link in the path leads outside the table's folder (--media-anywhere allows it)")
 	}
-	return openCategory(fh, err)
+	return fh, err
 }
 
-// openCategory turns an open error into its category.
-func openCategory(fh *os.File, err error) (*os.File, error) {
+// openRegular opens a regular file (not a folder, device or pipe, which
+// could block or never end), giving a failure's category only.
+func openRegular(o opener, name string) (*os.File, error) {
+	st, err := o.Stat(name)
 	switch {
-	case err == nil:
-		return fh, nil
 	case errors.Is(err, fs.ErrNotExist):
 		return nil, errors.New("no such file")
 	case errors.Is(err, fs.ErrPermission):
 		return nil, errors.New("permission denied")
+	case err != nil:
+		return nil, errors.New("it cannot be opened")
+	case st.IsDir():
+		return nil, errors.New("it is a folder")
+	case !st.Mode().IsRegular():
+		return nil, errors.New("it is not a regular file")
 	}
-	return nil, errors.New("it cannot be opened")
+	fh, err := o.Open(name)
+	if err != nil {
+		return nil, errors.New("it cannot be opened")
+	}
+	return fh, nil
+}
+
+// linksOut reports whether name, in dir, resolves through links to a
+// place outside dir.
+func linksOut(dir, name string) bool {
+	real, err := filepath.EvalSymlinks(filepath.Join(dir, name))
+	if err != nil {
+		return false
+	}
+	realDir, err := filepath.EvalSymlinks(dir)
+	if err != nil {
+		return false
+	}
+	rel, err := filepath.Rel(realDir, real)
+	return err != nil || !filepath.IsLocal(rel)
 }
 
 // maxMediumFile is the size a medium file may have; media.ReadMediumFile

@@ -5,6 +5,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"syscall"
 	"testing"
 )
 
@@ -61,9 +62,19 @@ func TestMediumFilesStayInTableFolder(t *testing.T) {
 		"other.json":                        "JSON but not a flowregime-medium file",
 		"text.json":                         "not JSON",
 		"missing.json":                      "no such file",
+		"folder.json":                       "it is a folder",
+		"fifo.json":                         "not a regular file", // opening it would wait for a writer
+		"mucus.json/x.json":                 "cannot be opened",
+		"nul\x00.json":                      "cannot be opened",
 		".":                                 "unknown medium", // not a .json name: a medium kind
 	}
 	if err := os.Mkdir(filepath.Join(table, "sub"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Mkdir(filepath.Join(table, "folder.json"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := syscall.Mkfifo(filepath.Join(table, "fifo.json"), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	var in strings.Builder
