@@ -2,6 +2,7 @@ package cli
 
 import (
 	"context"
+	"errors"
 	"encoding/csv"
 	"fmt"
 	"io"
@@ -286,12 +287,17 @@ func checkConstant(f inputs.Field, v string) error {
 }
 
 // checkMediumFlag checks --medium of batch and tabulate before any row is
-// read: a built-in medium, or a medium file that reads and checks. A file
+// read: a built-in medium, or a medium file that reads and checks (a file
+// that cannot be read is an I/O failure; one that reads but is not a
+// medium file, a usage error). A file
 // named on the command line is taken relative to the working directory
 // and returned as an absolute path, so that the table's rows cannot mean
 // another file by the same name.
 func checkMediumFlag(medium string) (string, error) {
 	if media.IsMediumFile(medium) {
+		if _, err := os.Stat(medium); err != nil { // an I/O failure, exit 1
+			return "", fmt.Errorf("--medium: cannot read %s: %v", medium, errors.Unwrap(err))
+		}
 		if _, err := media.LoadMediumFile(medium); err != nil {
 			return "", usagef("--medium: %s", strings.ReplaceAll(err.Error(), "media: ", ""))
 		}

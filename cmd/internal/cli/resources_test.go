@@ -20,7 +20,7 @@ func TestBatchBadConstantsAreUsageErrors(t *testing.T) {
 	}{
 		{[]string{"batch", table, "--medium", "lava"}, `--medium "lava" is not known`},
 		{[]string{"tabulate", table, "--medium", "lava"}, `--medium "lava" is not known`},
-		{[]string{"batch", table, "--medium", "no-such.json"}, "--medium: cannot read medium file"},
+		{[]string{"batch", table, "--medium", "../../../testdata/rheology/scipy_reference.json"}, "--medium: ../../../testdata/rheology/scipy_reference.json: medium file: json: unknown field"},
 		{[]string{"batch", table, "--shape", "blob"}, `--shape: unknown shape "blob"`},
 		{[]string{"tabulate", table, "--disc", "wing"}, `--disc "wing" is not known`},
 		{[]string{"batch", table, "--workers", "1000000000"}, "--workers 1000000000: give 1 to 256"},
@@ -32,6 +32,11 @@ func TestBatchBadConstantsAreUsageErrors(t *testing.T) {
 		if code != ExitUsage || out != "" || strings.Count(errs, "\n") != 1 || !strings.Contains(errs, c.want) {
 			t.Errorf("%v: exit %d, stdout %q, stderr %q; want exit 2, no output, one line naming %q", c.args, code, out, errs, c.want)
 		}
+	}
+	// A medium file that cannot be read is an I/O failure (exit 1), still
+	// before any row.
+	if out, errs, code := run(t, "batch", table, "--medium", "no-such.json"); code != ExitFailure || out != "" || !strings.Contains(errs, "--medium: cannot read no-such.json: no such file or directory") {
+		t.Errorf("--medium no-such.json: exit %d, stdout %q, stderr %q", code, out, errs)
 	}
 	// Within the limit and in any case, the built-in names are accepted.
 	if _, errs, code := run(t, "batch", table, "--medium", "SeaWater", "--workers", "256", "-q"); code == ExitUsage {
