@@ -2,8 +2,8 @@ package cli
 
 import (
 	"context"
-	"errors"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"os"
