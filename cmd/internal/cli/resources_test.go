@@ -133,3 +133,23 @@ func TestBatchTablePages(t *testing.T) {
 		t.Errorf("last row r%d, want r%d", last, rows-1)
 	}
 }
+
+// tabulate --by on a row id of a survey table with more than 100,000 rows
+// is one usage error (exit 2) with nothing on stdout, and the batch run
+// feeding it is stopped rather than left writing to a closed pipe.
+func TestTabulateTooManyGroups(t *testing.T) {
+	if testing.Short() {
+		t.Skip("100,001 rows")
+	}
+	var b bytes.Buffer
+	b.WriteString("id,length (mm),speed (mm/s)\n")
+	for i := range 100001 {
+		b.WriteString(strconv.Itoa(i) + ",2,5\n")
+	}
+	in := filepath.Join(t.TempDir(), "t.csv")
+	os.WriteFile(in, b.Bytes(), 0o644)
+	out, errs, code := run(t, "tabulate", in, "--by", "id")
+	if code != ExitUsage || out != "" || !strings.Contains(errs, "--by id makes more than 100000 groups") || strings.Count(errs, "\n") != 1 {
+		t.Errorf("exit %d, stdout %d bytes, stderr %q", code, len(out), errs)
+	}
+}

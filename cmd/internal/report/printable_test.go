@@ -65,3 +65,32 @@ func TestTableEscapes(t *testing.T) {
 		t.Errorf("escapes missing:\n%s", out)
 	}
 }
+
+// go test -fuzz FuzzPrintable ./cmd/internal/report: whatever the bytes,
+// the result is valid UTF-8 without a control or bidirectional control
+// character (Go's unicode tables), and text without any comes back as is.
+func FuzzPrintable(f *testing.F) {
+	for _, s := range []string{"", "plain", "\x1b[2J", "a\u202eb", "\xc2\x9b", "\xff\xfe", "µm ±"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		got := Printable(s)
+		if !utf8.ValidString(got) {
+			t.Fatalf("%q → %q: invalid UTF-8", s, got)
+		}
+		clean := utf8.ValidString(s)
+		for _, r := range s {
+			if unicode.IsControl(r) || unicode.Is(unicode.Bidi_Control, r) {
+				clean = false
+			}
+		}
+		for _, r := range got {
+			if unicode.IsControl(r) || unicode.Is(unicode.Bidi_Control, r) {
+				t.Fatalf("%q → %q holds U+%04X", s, got, r)
+			}
+		}
+		if clean && got != s {
+			t.Fatalf("%q changed to %q", s, got)
+		}
+	})
+}
