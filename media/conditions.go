@@ -70,17 +70,7 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 		if err != nil {
 			return Properties{}, err
 		}
-		p, err := f.Properties()
-		if err != nil {
-			return p, err
-		}
-		for _, v := range []float64{c.TemperatureC, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
-			if !math.IsNaN(v) {
-				p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: temperature, salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
-				break
-			}
-		}
-		return p, nil
+		return f.At(c)
 	}
 	switch strings.ToLower(c.Medium) {
 	case KindAir:

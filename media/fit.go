@@ -5,6 +5,7 @@ import (
 	"math"
 	"sort"
 
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/stat"
@@ -91,7 +92,7 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 		}
 	}
 	for _, name := range ModelNames {
-		rep.Fits = append(rep.Fits, fitOne(name, pts, decades))
+		rep.Fits = append(rep.Fits, fitOne(name, pts, decades, searchPoints))
 	}
 	best := -1
 	for i, f := range rep.Fits {
@@ -336,8 +337,8 @@ func cassonStarts(pts []RheometerPoint) [][]float64 {
 	return [][]float64{{math.Max(a*a, pts[0].Stress*0.01), math.Max(b*b, 1e-9)}, {pts[0].Stress * 0.5, math.Max(b*b, 1e-9)}}
 }
 
-// fitOne fits one model.
-func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
+// fitOne fits one model, searching on at most searchN of the points.
+func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) ModelFit {
 	sp := specs(pts)[name]
 	k := len(sp.params)
 	n := len(pts)
@@ -355,10 +356,13 @@ func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
 		}
 		return p
 	}
+	// The search works on at most searchPoints of the points; a thinned
+	// fit is then refined on all of them.
+	search := thin(pts, searchN)
 	ssr := func(p []float64) float64 {
 		m := sp.build(p)
 		s := 0.0
-		for _, q := range pts {
+		for _, q := range search {
 			r := math.Log(m.Stress(q.ShearRate)) - math.Log(q.Stress)
 			s += r * r
 		}
@@ -369,7 +373,8 @@ func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
 	}
 	obj := func(theta []float64) float64 { return ssr(natural(theta)) }
 	bestF, bestTheta := math.Inf(1), []float64(nil)
-	for _, st := range sp.starts(pts) {
+	var found [][]float64 // each start's optimum on the search points
+	for _, st := range sp.starts(search) {
 		theta := make([]float64, k)
 		for i, s := range sp.params {
 			v := st[i]
@@ -379,9 +384,13 @@ func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
 			theta[i] = s.theta(v)
 		}
 		th, f := minimise(obj, theta)
+		found = append(found, th)
 		if f < bestF {
 			bestF, bestTheta = f, th
 		}
+	}
+	if bestTheta != nil && len(search) < n {
+		bestTheta, bestF = refine(sp, natural, pts, found)
 	}
 	if bestTheta == nil || math.IsInf(bestF, 0) || bestF >= math.MaxFloat64 {
 		mf.Err = fmt.Errorf("the optimiser found no finite fit")
@@ -437,6 +446,158 @@ func fitOne(name string, pts []RheometerPoint, decades float64) ModelFit {
 		mf.Warnings = append(mf.Warnings, fmt.Sprintf("%.2g decades of shear rate are too few to identify a plateau model's four or five parameters", decades))
 	}
 	return mf
+}
+
+// refine takes the search's optima to all the points: each is refined on
+// an even selection of refinePoints of them, and the best of those on
+// every point, all by Levenberg–Marquardt (at most 100 and 20 iterations:
+// a parameter the data do not identify creeps along a flat valley towards
+// the edge of its range, where it is reported as such, at any number).
+func refine(sp modelSpec, natural func([]float64) []float64, pts []RheometerPoint, found [][]float64) ([]float64, float64) {
+	mid := thin(pts, refinePoints)
+	bestF, bestTheta := math.Inf(1), []float64(nil)
+	for _, th := range found {
+		if t, f := levenbergMarquardt(logResiduals(sp, natural, mid), th, len(mid), 100); f < bestF {
+			bestF, bestTheta = f, t
+		}
+	}
+	if len(mid) < len(pts) {
+		bestTheta, bestF = levenbergMarquardt(logResiduals(sp, natural, pts), bestTheta, len(pts), 20)
+	}
+	return bestTheta, bestF
+}
+
+// logResiduals returns the function that writes ln τ_model − ln τ at
+// every point for θ.
+func logResiduals(sp modelSpec, natural func([]float64) []float64, pts []RheometerPoint) func(theta, r []float64) {
+	logStress := make([]float64, len(pts))
+	for i, q := range pts {
+		logStress[i] = math.Log(q.Stress)
+	}
+	return func(theta, r []float64) {
+		m := sp.build(natural(theta))
+		for i, q := range pts {
+			r[i] = math.Log(m.Stress(q.ShearRate)) - logStress[i]
+		}
+	}
+}
+
+// refinePoints is the size of the selection each search optimum is
+// refined on before the best goes to every point.
+const refinePoints = 2000
+
+// searchPoints bounds the points the multi-start search evaluates: it
+// takes thousands of evaluations per start, so larger data sets are
+// searched on an even selection of searchPoints of them (by rank of shear
+// rate, the first and last included) and the best fit is refined on every
+// point by Levenberg–Marquardt, which takes a few dozen evaluations. The
+// time then grows linearly with the number of points. Data sets of up to
+// searchPoints points are fitted as before, on every point throughout.
+const searchPoints = 64
+
+// thin returns at most m of the sorted points, evenly by rank, the first
+// and last included; pts itself when it has no more than m.
+func thin(pts []RheometerPoint, m int) []RheometerPoint {
+	n := len(pts)
+	if n <= m {
+		return pts
+	}
+	out := make([]RheometerPoint, m)
+	for i := range out {
+		out[i] = pts[int(math.Round(float64(i)*float64(n-1)/float64(m-1)))]
+	}
+	return out
+}
+
+// levenbergMarquardt minimises the sum of squares of the n residuals that
+// res writes for θ, starting at theta (Levenberg 1944, A method for the
+// solution of certain non-linear problems in least squares, Q. Appl. Math.
+// 2, 164; Marquardt 1963, An algorithm for least-squares estimation of
+// nonlinear parameters, J. SIAM 11, 431, with the damping scaled by
+// diag(JᵀJ)). The Jacobian is taken by forward differences. It stops after
+// maxIter iterations or when an iteration lowers the sum of squares by less
+// than 1e-10 of it, and returns the best θ found and its sum of squares,
+// which is never worse than theta's.
+func levenbergMarquardt(res func(theta, r []float64), theta []float64, n, maxIter int) ([]float64, float64) {
+	k := len(theta)
+	r, trial := make([]float64, n), make([]float64, n)
+	sumSq := func(r []float64) float64 {
+		s := 0.0
+		for _, v := range r {
+			s += v * v
+		}
+		if math.IsNaN(s) || math.IsInf(s, 0) {
+			return math.MaxFloat64
+		}
+		return s
+	}
+	x := append([]float64{}, theta...)
+	res(x, r)
+	f := sumSq(r)
+	cols := make([][]float64, k)
+	for c := range cols {
+		cols[c] = make([]float64, n)
+	}
+	lambda := 1e-3
+	for iter := 0; iter < maxIter && f < math.MaxFloat64; iter++ {
+		// Jacobian columns by forward differences.
+		xx := append([]float64{}, x...)
+		for c := range k {
+			h := 1e-7 * math.Max(math.Abs(x[c]), 1)
+			xx[c] = x[c] + h
+			res(xx, cols[c])
+			xx[c] = x[c]
+			for i := range cols[c] {
+				cols[c][i] = (cols[c][i] - r[i]) / h
+			}
+		}
+		jtj := mat.NewSymDense(k, nil)
+		jtr := make([]float64, k)
+		for a := range k {
+			for b := a; b < k; b++ {
+				jtj.SetSym(a, b, floats.Dot(cols[a], cols[b]))
+			}
+			jtr[a] = floats.Dot(cols[a], r)
+		}
+		maxDiag := 0.0
+		for a := range k {
+			maxDiag = math.Max(maxDiag, jtj.At(a, a))
+		}
+		improved := false
+		for range 12 {
+			damped := mat.NewSymDense(k, nil)
+			damped.CopySym(jtj)
+			for a := range k {
+				// Marquardt's scaling, floored so that a parameter the data
+				// hardly move (at the edge of its range) is still damped.
+				damped.SetSym(a, a, jtj.At(a, a)+lambda*math.Max(jtj.At(a, a), 1e-9*maxDiag))
+			}
+			var chol mat.Cholesky
+			var step mat.VecDense
+			if !chol.Factorize(damped) || chol.SolveVecTo(&step, mat.NewVecDense(k, jtr)) != nil {
+				lambda *= 10
+				continue
+			}
+			next := make([]float64, k)
+			for a := range k {
+				next[a] = x[a] - step.AtVec(a)
+			}
+			res(next, trial)
+			if ft := sumSq(trial); ft < f {
+				converged := f-ft <= 1e-10*f
+				x, f = next, ft
+				r, trial = trial, r
+				lambda = math.Max(lambda/10, 1e-12)
+				improved = !converged
+				break
+			}
+			lambda *= 10
+		}
+		if !improved {
+			break
+		}
+	}
+	return x, f
 }
 
 func timeConstant(m Model) float64 {

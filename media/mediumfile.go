@@ -206,6 +206,22 @@ func (f MediumFile) Properties() (Properties, error) {
 	return p, nil
 }
 
+// At returns the measured fluid as a medium under conditions c, which
+// cannot change it: a warning says so when c sets any condition.
+func (f MediumFile) At(c Conditions) (Properties, error) {
+	p, err := f.Properties()
+	if err != nil {
+		return p, err
+	}
+	for _, v := range []float64{c.TemperatureC, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
+		if !math.IsNaN(v) {
+			p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: temperature, salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
+			break
+		}
+	}
+	return p, nil
+}
+
 // ExtrapolationWarning returns a warning when shear rate γ̇ lies outside the
 // measured range of a measured fluid, else nil.
 func (p Properties) ExtrapolationWarning(shearRate float64) *Warning {

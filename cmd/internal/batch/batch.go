@@ -43,6 +43,13 @@ type Config struct {
 	// panic goes on and ends the process: it removes temporary files.
 	BeforeCrash func()
 
+	// MediaDir is the folder that medium files named in cells are taken
+	// relative to (the table's folder; "" or "." for the working
+	// directory). They must lie inside it unless MediaAnywhere is set.
+	// DefaultMedium, named on the command line, is not held to it.
+	MediaDir      string
+	MediaAnywhere bool
+
 	// Uncertainty propagates each row's uncertainty (companion columns such
 	// as "length sd" or "length (mm) sd", or cells like "12±1") by Method
 	// with Draws draws. Each row's generator is seeded from Seed and the
@@ -220,7 +227,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 	}()
 	var wg sync.WaitGroup
-	cache := newMediumCache()
+	cache := newMediumCache(newMediumFiles(&cfg))
 	for range workers {
 		wg.Add(1)
 		go func() {
@@ -241,7 +248,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	go func() { wg.Wait(); close(results) }()
 
 	pending := map[int]result{}
-	next, rowBase := 0, 0
+	next, rowBase, pages := 0, 0, 0
 	var runErr error
 	for r := range results {
 		pending[r.seq] = r
@@ -261,6 +268,12 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			}
 			putBuffer(pr.out)
 			table = append(table, pr.table...)
+			for runErr == nil && len(table) > TablePage {
+				if runErr = renderPage(w, &table, TablePage); runErr != nil {
+					cancel()
+				}
+				pages++
+			}
 			for _, rj := range pr.rejects {
 				rj.Row += rowBase
 				if err := reject(rj); err != nil && runErr == nil {
@@ -285,8 +298,8 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if runErr == nil && ctx.Err() != nil {
 		runErr = ctx.Err()
 	}
-	if runErr == nil && table != nil {
-		runErr = renderTable(w, table)
+	if runErr == nil && table != nil && (len(table) > 1 || pages == 0) {
+		runErr = renderPage(w, &table, len(table)-1)
 	}
 	if err := w.Flush(); err != nil && runErr == nil {
 		runErr = err
@@ -304,6 +317,24 @@ func crashGuard(before func()) {
 		}
 		panic(r)
 	}
+}
+
+// TablePage is the number of rows in each table of table output: rows are
+// written a page at a time, each page its own aligned table under the
+// header, so that memory does not grow with the input.
+const TablePage = 1000
+
+// renderPage writes the first n rows after the header as one table and
+// keeps the header and the rows after them.
+func renderPage(w io.Writer, table *[][]string, n int) error {
+	t := *table
+	if err := renderTable(w, t[:n+1]); err != nil {
+		return err
+	}
+	rest := copy(t[1:], t[n+1:])
+	clear(t[1+rest:])
+	*table = t[:1+rest]
+	return nil
 }
 
 // localSlots bounds the workers' medium tables together: 1<<18 slots of

@@ -206,9 +206,11 @@ func FuzzRecords(f *testing.F) {
 // the one regime.Calc gives with that medium (the file's power law at the
 // organism's shear rate U/L = 0.25 1/s, below the measured range), and the extrapolation is flagged.
 func TestMeasuredMediumColumn(t *testing.T) {
-	file, _ := filepath.Abs("../../../testdata/media/mucus.json")
-	in := "taxon,length (um),speed (um/s),medium\nciliate,200,50," + file + "\n"
-	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV})
+	// The cell names the file relative to the table's folder.
+	dir := "../../../testdata/media"
+	file := filepath.Join(dir, "mucus.json")
+	in := "taxon,length (um),speed (um/s),medium\nciliate,200,50,mucus.json\n"
+	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV, MediaDir: dir})
 	if len(rejects) > 0 {
 		t.Fatalf("rejects: %v", rejects)
 	}

@@ -10,7 +10,7 @@ import (
 
 // BenchmarkCacheHit measures a hit in a worker's table of built-in media.
 func BenchmarkCacheHit(b *testing.B) {
-	lm := newLocalMedia(newMediumCache(), localSlots)
+	lm := newLocalMedia(newMediumCache(newMediumFiles(&Config{})), localSlots)
 	c := media.Unset("seawater")
 	c.TemperatureC, c.SalinityPractical = 12.3, 33.1
 	lm.lookup(c)
@@ -27,7 +27,7 @@ func BenchmarkCacheHit(b *testing.B) {
 func TestLocalMediaMatchesLookup(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 8))
 	for _, size := range []int{localFirst, localSlots} {
-		lm := newLocalMedia(newMediumCache(), size)
+		lm := newLocalMedia(newMediumCache(newMediumFiles(&Config{})), size)
 		for range 60000 {
 			var c media.Conditions
 			switch rng.IntN(4) {

@@ -164,6 +164,7 @@ type mediumCache struct {
 	shards [16]cacheShard
 	mu     sync.Mutex
 	ids    map[string]uint64 // medium name → small id, for compact keys
+	files  *mediumFiles      // medium files named by cells
 }
 
 type cacheShard struct {
@@ -180,8 +181,8 @@ type cached struct {
 	err error
 }
 
-func newMediumCache() *mediumCache {
-	mc := &mediumCache{ids: map[string]uint64{}}
+func newMediumCache(files *mediumFiles) *mediumCache {
+	mc := &mediumCache{ids: map[string]uint64{}, files: files}
 	for i := range mc.shards {
 		mc.shards[i].m = map[cacheKey]*cached{}
 	}
@@ -232,7 +233,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	if ok {
 		return &e.p, e.err
 	}
-	p, err := media.LookupBrief(c)
+	p, err := mc.properties(c)
 	e = &cached{err: err}
 	nan := math.NaN()
 	e.p = media.Properties{Medium: p.Medium, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
@@ -248,6 +249,19 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	sh.m[k] = e
 	sh.mu.Unlock()
 	return &e.p, err
+}
+
+// properties looks a medium up: a medium file through mc.files, which
+// holds it to the table's folder, a built-in medium by media.LookupBrief.
+func (mc *mediumCache) properties(c media.Conditions) (media.Properties, error) {
+	if !media.IsMediumFile(c.Medium) {
+		return media.LookupBrief(c)
+	}
+	f, err := mc.files.load(c.Medium)
+	if err != nil {
+		return media.Properties{}, err
+	}
+	return f.At(c)
 }
 
 // outcome is one computed row; r and flags belong to the worker's scratch

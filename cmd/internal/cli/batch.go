@@ -15,6 +15,7 @@ import (
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
 	"github.com/schollz/progressbar/v3"
@@ -25,7 +26,7 @@ import (
 type batchOptions struct {
 	input, inFormat, outFormat, output, rejects, names string
 	columns, units                                     []string
-	flaggedOnly, quiet                                 bool
+	flaggedOnly, quiet, mediaAnywhere                  bool
 	workers                                            int
 	organism                                           organismFlags
 	medium                                             string
@@ -49,6 +50,18 @@ header as data sheets write them: "length (mm)", "speed [cm/s]", "temp_C",
   temp_offset salinity depth pressure altitude humidity latitude
 A flag of calc (--temp 12C, --medium seawater, --shape spheroid, …) gives a
 constant for a quantity that has no column.
+
+A medium column may name a medium file (.json, made by 'flowregime fit
+--save'). Such a path is taken relative to the table's folder (for
+standard input, the working directory) and must stay inside it: no
+absolute path, no "..", no link leading out; --media-anywhere lifts this.
+A file that cannot be used is rejected with a short reason that does not
+quote the file. --medium, given on the command line, is read as given.
+
+Table output (--format table, or -o FILE.txt) comes in pages of 1000 rows,
+each an aligned table under the repeated header, so that memory does not
+grow with the input; control characters in cells are shown escaped.
+--workers accepts 1 to 256.
 
 Rows that cannot be computed go to --rejects FILE (CSV: line, row, column,
 reason, record) or, without it, one line each to stderr; the exit status is
@@ -123,7 +136,8 @@ func (o *batchOptions) bindInputs(cmd *cobra.Command) {
 	fs.StringVar(&o.inFormat, "input-format", "", "csv, tsv or jsonl (default: from the file's extension, else csv)")
 	fs.StringArrayVar(&o.columns, "column", nil, "quantity=header: take a quantity from this column (repeatable)")
 	fs.StringArrayVar(&o.units, "unit", nil, "quantity=unit: unit of that quantity's column (repeatable)")
-	fs.IntVar(&o.workers, "workers", 0, "parallel workers (default: number of CPUs)")
+	fs.IntVar(&o.workers, "workers", 0, fmt.Sprintf("parallel workers, 1 to %d (default: number of CPUs)", maxWorkers))
+	fs.BoolVar(&o.mediaAnywhere, "media-anywhere", false, "let medium files named in the table lie outside the table's folder")
 	o.organism.bind(cmd)
 	fs.StringVar(&o.medium, "medium", media.KindFreshWater, "medium for rows without a medium column: air, freshwater or seawater")
 	o.flags.bind(fs)
@@ -204,8 +218,19 @@ func (o *batchOptions) config() (batch.Config, error) {
 	if err := o.unc.check(); err != nil {
 		return batch.Config{}, err
 	}
-	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: o.medium,
-		Uncertainty: o.uncOn, Method: o.unc.method, Draws: o.unc.draws, Seed: o.unc.seed}
+	if o.workers < 0 || o.workers > maxWorkers {
+		return batch.Config{}, usagef("--workers %d: give 1 to %d, or leave it out for one per CPU", o.workers, maxWorkers)
+	}
+	medium, err := checkMediumFlag(o.medium)
+	if err != nil {
+		return batch.Config{}, err
+	}
+	cfg := batch.Config{Workers: o.workers, FlaggedOnly: o.flaggedOnly, DefaultMedium: medium,
+		Uncertainty: o.uncOn, Method: o.unc.method, Draws: o.unc.draws, Seed: o.unc.seed,
+		MediaDir: ".", MediaAnywhere: o.mediaAnywhere}
+	if o.input != "-" {
+		cfg.MediaDir = filepath.Dir(o.input)
+	}
 	cfg.InFormat = o.inFormat
 	if cfg.InFormat == "" {
 		cfg.InFormat = batch.CSV
@@ -254,14 +279,67 @@ func (o *batchOptions) config() (batch.Config, error) {
 	// Check the constants once, so a bad flag is a usage error, not a reject per row.
 	for k, v := range cfg.Constants {
 		f := inputs.Fields[inputs.Index(k)]
-		if !f.Text {
-			if _, err := parseFlagValue(f, v); err != nil {
-				return cfg, err
-			}
+		if err := checkConstant(f, v); err != nil {
+			return cfg, err
 		}
 	}
 
 	return cfg, nil
+}
+
+// maxWorkers bounds --workers. Each worker holds chunks of input and output
+// in flight (a few MiB); beyond a few per core, more workers add memory and
+// no speed (a stated limit, common practice, no source).
+const maxWorkers = 256
+
+// checkConstant checks one flag constant of batch or tabulate: a number
+// with its unit, or a shape or disc name.
+func checkConstant(f inputs.Field, v string) error {
+	switch f.Name {
+	case "shape":
+		if _, err := regime.ParseShape(v); err != nil {
+			return usagef("--shape: %s", trimPkg(err))
+		}
+	case "disc":
+		if v != regime.DiscSpan && v != regime.DiscStroke {
+			return usagef("--disc %q is not known; accepted: %s, %s", v, regime.DiscSpan, regime.DiscStroke)
+		}
+	default:
+		if !f.Text {
+			_, err := parseFlagValue(f, v)
+			return err
+		}
+	}
+	return nil
+}
+
+// checkMediumFlag checks --medium of batch and tabulate before any row is
+// read: a built-in medium, or a medium file that reads and checks (a file
+// that cannot be read is an I/O failure; one that reads but is not a
+// medium file, a usage error). A file
+// named on the command line is taken relative to the working directory
+// and returned as an absolute path, so that the table's rows cannot mean
+// another file by the same name.
+func checkMediumFlag(medium string) (string, error) {
+	if media.IsMediumFile(medium) {
+		if _, err := os.Stat(medium); err != nil { // an I/O failure, exit 1
+			return "", fmt.Errorf("--medium: cannot read %s: %v", medium, errors.Unwrap(err))
+		}
+		if _, err := media.LoadMediumFile(medium); err != nil {
+			return "", usagef("--medium: %s", strings.ReplaceAll(err.Error(), "media: ", ""))
+		}
+		abs, err := filepath.Abs(medium)
+		if err != nil {
+			return "", usagef("--medium: %v", err)
+		}
+		return abs, nil
+	}
+	for _, k := range media.Kinds {
+		if strings.EqualFold(medium, k) {
+			return medium, nil
+		}
+	}
+	return "", usagef("--medium %q is not known; accepted: %s, or a medium file (.json)", medium, strings.Join(media.Kinds, ", "))
 }
 
 func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
@@ -310,7 +388,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		if r.Column != "" {
 			where += fmt.Sprintf(", column %q", r.Column)
 		}
-		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s: %s\n", where, r.Reason)
+		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s: %s\n", report.Printable(where), report.Printable(r.Reason))
 		return err
 	}
 	if f, ok := s.Err.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {
@@ -341,7 +419,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		}
 	}
 	if !o.quiet {
-		fmt.Fprintln(s.Err, summaryLine(sum, o.rejects))
+		fmt.Fprintln(s.Err, report.Printable(summaryLine(sum, o.rejects)))
 	}
 	if sum.Rejected > 0 {
 		return exitError{code: ExitRejected}

@@ -13,6 +13,7 @@ import (
 	"strings"
 	"syscall"
 
+	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/spf13/cobra"
 )
 
@@ -92,7 +93,7 @@ really lives in, and what drag and power follow from the law that fits.
 }
 
 // Main runs the command line and returns the process exit code. Errors are
-// one line on stderr, prefixed with "flowregime: ". A write error on the
+// one line on stderr, prefixed with "flowregime: ", control characters escaped. A write error on the
 // standard output fails the run (exit 1) whatever the command. SIGINT,
 // SIGTERM and SIGHUP stop it at once, even while it waits for input: its
 // temporary files are removed, no output is renamed into place, and the
@@ -150,12 +151,12 @@ func execute(ctx context.Context, args []string, s Streams, out *checkedWriter) 
 	var ee exitError
 	if errors.As(err, &ee) {
 		if ee.msg != "" {
-			fmt.Fprintf(s.Err, "flowregime: %s\n", ee.msg)
+			fmt.Fprintf(s.Err, "flowregime: %s\n", report.Printable(ee.msg))
 		}
 		return ee.code
 	}
 	msg := strings.ReplaceAll(err.Error(), "\n", " ")
-	fmt.Fprintf(s.Err, "flowregime: %s\n", msg)
+	fmt.Fprintf(s.Err, "flowregime: %s\n", report.Printable(msg))
 	var ue usageError
 	if errors.As(err, &ue) || strings.HasPrefix(msg, "unknown command") || strings.HasPrefix(msg, "unknown flag") {
 		return ExitUsage

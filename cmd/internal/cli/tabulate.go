@@ -35,7 +35,9 @@ slope with its 95 % confidence interval. x and y are computed columns
 read in SI units from their columns.
 
 The input is either batch output or a survey table, which is then run
-through batch first with the same flags. Groups are held in memory.`,
+through batch first with the same flags. Groups are held in memory, at
+most 100000 of them (more, as with --by on a row id, is refused: a
+summary is for groups of many rows).`,
 		Example: `  flowregime tabulate survey.csv --by taxon --fit power_W=mass --fit reynolds=length
   flowregime batch survey.csv -q | flowregime tabulate - --by site --format json`,
 		Args: func(cmd *cobra.Command, args []string) error {
@@ -128,12 +130,14 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		sep = '\t'
 	}
 	var r io.Reader = in
+	var pr *io.PipeReader
 	rejected := 0
 	errc := make(chan error, 1)
 	peek := &peekReader{r: in}
 	head, _ := peek.peekLine()
 	if cfg.InFormat == batch.JSONL || !strings.Contains(head, "reynolds") || !strings.Contains(head, "regime") {
-		pr, pw := io.Pipe()
+		var pw *io.PipeWriter
+		pr, pw = io.Pipe()
 		cfg.OutFormat = batch.CSV
 		sep = ','
 		go func() {
@@ -162,6 +166,9 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 	}
 	groups, err := tabulate.Tabulate(header, cr.Read, sp)
 	if err != nil {
+		if pr != nil {
+			pr.CloseWithError(err) // stops the batch run that feeds it
+		}
 		return nil, 0, usageError{fmt.Errorf("tabulate: %v", err)}
 	}
 	if e := <-errc; e != nil {

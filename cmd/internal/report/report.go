@@ -57,7 +57,9 @@ func checkFinite(headers []string, rows [][]string) error {
 }
 
 // Table writes an aligned table with the given headers, which should carry
-// units, e.g. "density (kg/m³)". Headers are printed as given.
+// units, e.g. "density (kg/m³)". Headers and cells are printed as given,
+// but for control characters other than line breaks, which are escaped
+// (see [Printable]).
 func Table(w io.Writer, headers []string, rows [][]string) error {
 	if err := checkFinite(headers, rows); err != nil {
 		return err
@@ -69,11 +71,15 @@ func Table(w io.Writer, headers []string, rows [][]string) error {
 	)
 	h := make([]any, len(headers))
 	for i, s := range headers {
-		h[i] = s
+		h[i] = printableCell(s)
 	}
 	t.Header(h...)
 	for _, r := range rows {
-		if err := t.Append(r); err != nil {
+		clean := make([]string, len(r)) // the table keeps the rows until Render
+		for i, c := range r {
+			clean[i] = printableCell(c)
+		}
+		if err := t.Append(clean); err != nil {
 			return err
 		}
 	}
@@ -148,7 +154,7 @@ func List(w io.Writer, title string, items []string) {
 	}
 	fmt.Fprintf(w, "%s:\n", title)
 	for _, s := range items {
-		fmt.Fprintf(w, "  - %s\n", s)
+		fmt.Fprintf(w, "  - %s\n", Printable(s))
 	}
 }
 

@@ -1,7 +1,11 @@
 package tabulate
 
 import (
+	"errors"
+	"io"
 	"math"
+	"strconv"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/stat"
@@ -83,5 +87,34 @@ func TestOLSIntervalFromResiduals(t *testing.T) {
 	const t10 = 2.228138851986 // Student's t, 0.975 quantile, 10 degrees of freedom (standard tables)
 	if math.Abs((f.OLSHigh-f.OLSSlope)-t10*se) > 1e-9 {
 		t.Errorf("half-width %g, want %g", f.OLSHigh-f.OLSSlope, t10*se)
+	}
+}
+
+// A grouping with more than MaxGroups groups (one per row id) is refused,
+// not held in memory; MaxGroups groups are summarised. The limit is a
+// stated bound of this program (common practice, no source).
+func TestTabulateGroupBound(t *testing.T) {
+	header := []string{"id", "reynolds", "strouhal", "drag_N", "power_W", "regime"}
+	rows := func(n int) func() ([]string, error) {
+		i := 0
+		return func() ([]string, error) {
+			if i == n {
+				return nil, io.EOF
+			}
+			i++
+			return []string{strconv.Itoa(i), "10", "0.3", "1e-6", "1e-7", "intermediate"}, nil
+		}
+	}
+	groups, err := Tabulate(header, rows(MaxGroups), Spec{By: []string{"id"}})
+	if err != nil || len(groups) != MaxGroups {
+		t.Fatalf("%d groups: %v", len(groups), err)
+	}
+	if g := groups[0]; g.N != 1 || g.Stats["reynolds"].Median != 10 || g.Regimes["intermediate"] != 1 {
+		t.Errorf("group %v", g)
+	}
+	_, err = Tabulate(header, rows(MaxGroups+1), Spec{By: []string{"id"}})
+	var tm TooManyGroups
+	if !errors.As(err, &tm) || !strings.Contains(err.Error(), "--by id makes more than 100000 groups") {
+		t.Errorf("one group too many: %v", err)
 	}
 }

@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"sort"
 	"strings"
 
@@ -51,12 +52,29 @@ type Group struct {
 	Fits    []FitResult
 }
 
+// acc gathers one group's values: per metric (in the order of Metrics),
+// per regime (in the order of regime.Regimes) and per fit, in slices
+// rather than maps, so that a group costs a few hundred bytes besides its
+// values.
 type acc struct {
 	key     []string
 	n       int
-	metric  map[string][]float64
-	regimes map[string]int
+	metric  [][]float64
+	regimes []int
 	fx, fy  [][]float64
+}
+
+// MaxGroups bounds the number of groups. A summary is for groups of many
+// rows; a grouping that makes more groups than this (such as one by a row
+// id) is refused with a message instead of holding them all in memory.
+const MaxGroups = 100000
+
+// TooManyGroups is the error of a grouping that makes more than MaxGroups
+// groups.
+type TooManyGroups struct{ By []string }
+
+func (e TooManyGroups) Error() string {
+	return fmt.Sprintf("--by %s makes more than %d groups; a summary is for groups of many rows (group by fewer or coarser columns, or read the batch output row by row)", strings.Join(e.By, ","), MaxGroups)
 }
 
 // column reads one named value from a row.
@@ -93,13 +111,13 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		}
 		by = append(by, c.idx)
 	}
-	metric := map[string]int{}
-	for _, m := range Metrics {
+	metric := make([]int, len(Metrics))
+	for i, m := range Metrics {
 		c, err := find(m)
 		if err != nil {
 			return nil, fmt.Errorf("the input has no %q column; give batch output or a survey table", m)
 		}
-		metric[m] = c.idx
+		metric[i] = c.idx
 	}
 	regimeCol, err := find("regime")
 	if err != nil {
@@ -136,18 +154,24 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		k := strings.Join(key, "\x00")
 		g, ok := groups[k]
 		if !ok {
-			g = &acc{key: key, metric: map[string][]float64{}, regimes: map[string]int{}, fx: make([][]float64, len(fitCols)), fy: make([][]float64, len(fitCols))}
+			if len(groups) == MaxGroups {
+				return nil, TooManyGroups{By: spec.By}
+			}
+			g = &acc{key: key, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regime.Regimes)),
+				fx: make([][]float64, len(fitCols)), fy: make([][]float64, len(fitCols))}
 			groups[k] = g
 			order = append(order, k)
 		}
 		g.n++
-		for m, c := range metric {
+		for i, c := range metric {
 			if v, ok := number(row, column{idx: c}); ok {
-				g.metric[m] = append(g.metric[m], v)
+				g.metric[i] = append(g.metric[i], v)
 			}
 		}
-		if regimeCol.idx < len(row) && row[regimeCol.idx] != "" {
-			g.regimes[row[regimeCol.idx]]++
+		if regimeCol.idx < len(row) {
+			if i := slices.Index(regime.Regimes, row[regimeCol.idx]); i >= 0 {
+				g.regimes[i]++
+			}
 		}
 		for i, fc := range fitCols {
 			y, oky := number(row, fc[0])
@@ -163,11 +187,11 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 	for _, k := range order {
 		a := groups[k]
 		g := Group{Key: a.key, N: a.n, Stats: map[string]Stat{}, Regimes: map[string]float64{}}
-		for _, m := range Metrics {
-			g.Stats[m] = summarise(a.metric[m])
+		for i, m := range Metrics {
+			g.Stats[m] = summarise(a.metric[i])
 		}
-		for _, r := range regime.Regimes {
-			g.Regimes[r] = float64(a.regimes[r]) / float64(a.n)
+		for i, r := range regime.Regimes {
+			g.Regimes[r] = float64(a.regimes[i]) / float64(a.n)
 		}
 		for i, p := range spec.Fits {
 			g.Fits = append(g.Fits, FitResult{Pair: p, Fit: ScalingFit(a.fx[i], a.fy[i])})
