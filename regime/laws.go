@@ -120,6 +120,9 @@ type Estimate struct {
 	Basis         string  // that length, in words
 	ReMin, ReMax  float64 // published range of Reynolds on Basis
 	InRange       bool
+	// A join between two laws (see [Law.Join]) carries the two validated
+	// ends' forces at this speed, a bracket for the drag (N); NaN otherwise.
+	Low, High float64
 }
 
 // Law is a drag law: its name, source, published range and the range in
@@ -137,6 +140,66 @@ type Law struct {
 	eval     func(b Body, f Flow, re float64) (cd, area float64)
 	basisLen func(b Body) float64
 	powerLaw bool // only for power-law fluids
+	// Join is set for a smooth join across a gap between two laws'
+	// published ranges; eval then blends the two ends.
+	Join *Join
+	// alt, where set, is the other credible law for the same case (the
+	// other boundary-layer state); its force and the chosen one's bracket
+	// the drag.
+	alt *lawEnd
+}
+
+// Join is a documented smooth join between two validated laws, used where
+// no published law covers the gap between their ranges: the drag is
+// F = F_lo^(1−w) F_hi^w, with w rising smoothly (w = 3x² − 2x³,
+// x = ln(Re/From)/ln(To/From)) from 0 at Re = From, the upper end of the
+// lower law's published range, to 1 at Re = To, the lower end of the upper
+// law's; both forces are reported as a bracket. The interpolation is this
+// package's choice (common practice for joining asymptotes, no source);
+// it keeps the drag continuous with a continuous slope.
+type Join struct {
+	Lo, Hi   lawEnd
+	From, To float64 // Re on the join's Basis
+}
+
+// lawEnd is one validated end of a join.
+type lawEnd struct {
+	name     string
+	eval     func(b Body, f Flow, re float64) (cd, area float64)
+	basisLen func(b Body) float64
+}
+
+// force returns the end law's drag (N) at the flow.
+func (e lawEnd) force(b Body, f Flow) float64 {
+	re := f.Density * f.Speed * e.basisLen(b) / f.Viscosity
+	cd, area := e.eval(b, f, re)
+	return 0.5 * f.Density * f.Speed * f.Speed * cd * area
+}
+
+// weight returns the blend weight w of the upper end at re.
+func (j *Join) weight(re float64) float64 {
+	x := math.Log(re/j.From) / math.Log(j.To/j.From)
+	x = math.Max(0, math.Min(1, x))
+	return x * x * (3 - 2*x)
+}
+
+// eval returns the joined drag coefficient on the lower end's area.
+func (j *Join) eval(b Body, f Flow, re float64) (float64, float64) {
+	lo, hi := j.Lo.force(b, f), j.Hi.force(b, f)
+	w := j.weight(re)
+	fj := math.Exp((1-w)*math.Log(lo) + w*math.Log(hi))
+	loRe := f.Density * f.Speed * j.Lo.basisLen(b) / f.Viscosity
+	_, area := j.Lo.eval(b, f, loRe)
+	return fj / (0.5 * f.Density * f.Speed * f.Speed * area), area
+}
+
+// joined returns a Law that joins lo and hi between from and to.
+func joined(l Law, lo, hi lawEnd, from, to float64) Law {
+	j := &Join{Lo: lo, Hi: hi, From: from, To: to}
+	l.Join, l.eval = j, j.eval
+	l.ReMin, l.ReMax, l.ChooseLo, l.ChooseHi = from, to, from, to
+	l.Source = fmt.Sprintf("smooth join in log Re of %s (to Re %g) and %s (from Re %g); %s", lo.name, from, hi.name, to, l.Source)
+	return l
 }
 
 func frontalSphere(d float64) float64 { return math.Pi * d * d / 4 }
@@ -191,19 +254,53 @@ const (
 	inf         = math.MaxFloat64
 )
 
+// The validated ends that the joins below connect.
+var (
+	endOseenBrennerSpheroid = lawEnd{name: "Oseen–Brenner (Brenner 1961)", basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return OseenCorrection(ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter), f.Density, f.Viscosity)
+		}, diameterFrontal)}
+	endLaminarTransition = lawEnd{name: "a laminar boundary layer with transition at Re 5e5", basisLen: length,
+		eval: frictionLaw(func(re float64) float64 { return TransitionCf(re, 5e5) })}
+	endLaminarBody     = lawEnd{name: "laminar skin friction with Hoerner's form factor", basisLen: length, eval: frictionLaw(BlasiusCf)}
+	endOseenBrennerRod = lawEnd{name: "Oseen–Brenner rod (Cox 1970; Brenner 1961)", basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 {
+			return OseenCorrection(SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2), f.Density, f.Viscosity)
+		}, diameterFrontal)}
+	endLaminarRod = lawEnd{name: "laminar skin friction on the rod's side", basisLen: length, eval: rodFriction}
+	endLamb       = lawEnd{name: "Lamb 1911", basisLen: diameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) { return LambCylinderCD(re), b.Diameter * b.Length }}
+	endWhite = lawEnd{name: "White's cylinder fit", basisLen: diameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) { return WhiteCylinderCD(re), b.Diameter * b.Length }}
+	endPowerLawCreeping = lawEnd{name: "creeping flow in a power-law fluid (Renaud et al. 2004)", basisLen: length,
+		eval: linear(func(b Body, f Flow) float64 { return PowerLawCreepingDrag(f.PowerLawK, f.PowerLawN, f.Speed, b.Length) }, func(b Body) float64 { return frontalSphere(b.Length) })}
+	endSphereCurve = lawEnd{name: "the Newtonian sphere laws at the apparent viscosity", basisLen: length, eval: sphereCD(SphereCD)}
+)
+
+// rodFriction is the laminar (Blasius) skin friction of a rod's side,
+// πdl, with no form factor: the rod's ends add pressure drag that no
+// published law gives for an aligned rod at these Re, so this is a lower
+// estimate.
+func rodFriction(b Body, _ Flow, re float64) (float64, float64) {
+	return BlasiusCf(re), math.Pi * b.Diameter * b.Length
+}
+
 // Laws lists every drag law, grouped by shape, in the order they are tried.
+// Choice ranges lie inside published ranges; where two laws' ranges leave a
+// gap, a [Join] bridges it.
 var Laws = []Law{
 	{Name: "creeping flow in a power-law fluid", Shape: Sphere, Source: "Renaud, Mauret & Chhabra 2004, Can. J. Chem. Eng. 82, 1066 (X(n) correction)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
-		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length, powerLaw: true,
-		eval: linear(func(b Body, f Flow) float64 { return PowerLawCreepingDrag(f.PowerLawK, f.PowerLawN, f.Speed, b.Length) }, func(b Body) float64 { return frontalSphere(b.Length) })},
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length, powerLaw: true, eval: endPowerLawCreeping.eval},
+	joined(Law{Name: "power-law creeping flow joined to the sphere laws", Shape: Sphere, Source: "the sphere laws at η(U/d), as Chhabra 2007, ch. 5, suggests beyond creeping flow", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
+		basisLen: length, powerLaw: true}, endPowerLawCreeping, endSphereCurve, 0.1, 100),
 	{Name: "Stokes", Shape: Sphere, Source: srcStokes, Basis: "diameter", AreaName: frontalArea,
-		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, eval: sphereCD(StokesCD), basisLen: length},
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: sphereStokesHi, eval: sphereCD(StokesCD), basisLen: length},
 	{Name: "Proudman–Pearson", Shape: Sphere, Source: "Proudman & Pearson 1957, J. Fluid Mech. 2, 237", Basis: "diameter", AreaName: frontalArea,
-		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, eval: sphereCD(ProudmanPearsonCD), basisLen: length},
+		ReMin: 0, ReMax: 1, ChooseLo: sphereStokesHi, ChooseHi: sphereExpansionHi, eval: sphereCD(ProudmanPearsonCD), basisLen: length},
 	{Name: "Oseen", Shape: Sphere, Source: "Oseen 1910, Ark. Mat. Astr. Fys. 6", Basis: "diameter", AreaName: frontalArea,
 		ReMin: 0, ReMax: 1, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(OseenCD), basisLen: length},
 	{Name: "standard drag curve", Shape: Sphere, Source: srcCGW, Basis: "diameter", AreaName: frontalArea,
-		ReMin: 0, ReMax: 1e6, ChooseLo: 1, ChooseHi: inf, eval: sphereCD(StandardCurveCD), basisLen: length},
+		ReMin: 0, ReMax: 1e6, ChooseLo: sphereExpansionHi, ChooseHi: inf, eval: sphereCD(StandardCurveCD), basisLen: length},
 	{Name: "Schiller–Naumann", Shape: Sphere, Source: "Schiller & Naumann 1933, Z. Ver. Dtsch. Ing. 77, 318", Basis: "diameter", AreaName: frontalArea,
 		ReMin: 0, ReMax: 800, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(SchillerNaumannCD), basisLen: length},
 	{Name: "Clift–Gauvin", Shape: Sphere, Source: "Clift & Gauvin 1970, Proc. Chemeca '70; in Clift, Grace & Weber 1978", Basis: "diameter", AreaName: frontalArea,
@@ -212,32 +309,33 @@ var Laws = []Law{
 		ReMin: 1e3, ReMax: 2e5, ChooseLo: -1, ChooseHi: -1, eval: sphereCD(func(float64) float64 { return NewtonCD }), basisLen: length},
 
 	{Name: "Stokes prolate spheroid", Shape: Spheroid, Source: srcHB, Basis: "length", AreaName: frontalArea,
-		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: sphereStokesHi, basisLen: length,
 		eval: linear(func(b Body, f Flow) float64 {
 			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
 		}, diameterFrontal)},
 	{Name: "Oseen–Brenner spheroid", Shape: Spheroid, Source: srcBrenner, Basis: "length", AreaName: frontalArea,
-		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, basisLen: length,
-		eval: linear(func(b Body, f Flow) float64 {
-			return OseenCorrection(ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter), f.Density, f.Viscosity)
-		}, diameterFrontal)},
-	{Name: "Haider–Levenspiel", Shape: Spheroid, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
-		ReMin: 0, ReMax: 2.6e5, ChooseLo: 1, ChooseHi: 1e3, basisLen: equalVolumeDiameter,
-		eval: func(b Body, _ Flow, re float64) (float64, float64) {
-			deq := equalVolumeDiameter(b)
-			return HaiderLevenspielCD(re, Sphericity(b.Length, b.Diameter)), frontalSphere(deq)
-		}},
+		ReMin: 0, ReMax: 1, ChooseLo: sphereStokesHi, ChooseHi: 1, basisLen: length, eval: endOseenBrennerSpheroid.eval},
+	joined(Law{Name: "Oseen–Brenner joined to the boundary layer", Shape: Spheroid, Source: srcBrenner + "; " + srcHoerner, Basis: "length", AreaName: frontalArea,
+		basisLen: length}, endOseenBrennerSpheroid, endLaminarBody, 1, 1e3),
 	{Name: "skin friction, laminar (Blasius)", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: 5e5, eval: frictionLaw(BlasiusCf), basisLen: length},
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: bodyTurbulentFrom, eval: frictionLaw(BlasiusCf), basisLen: length},
+	{Name: "skin friction, turbulent on animal bodies", Shape: Spheroid, Source: "Prandtl–Schlichting line (Schlichting 1979, ch. 21; published from Re 5e5, extrapolated down to where it meets the laminar line); turbulent boundary layers measured on trout at Re 4e5 (Yanase & Saarenrinne 2015, J. Exp. Biol. 218, 1373); " + srcHoerner, Basis: "length", AreaName: wettedArea,
+		ReMin: bodyTurbulentFrom, ReMax: 1e9, ChooseLo: bodyTurbulentFrom, ChooseHi: inf, eval: frictionLaw(AnimalBodyCf), basisLen: length, alt: &endLaminarTransition},
 	{Name: "skin friction, transition at Re 5e5", Shape: Spheroid, Source: "Prandtl 1927; Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: 5e5, ReMax: 1e9, ChooseLo: 5e5, ChooseHi: inf, eval: frictionLaw(func(re float64) float64 { return TransitionCf(re, 5e5) }), basisLen: length},
+		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: endLaminarTransition.eval, basisLen: length},
 	{Name: "skin friction, turbulent (Prandtl–Schlichting)", Shape: Spheroid, Source: "Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(PrandtlSchlichtingCf), basisLen: length},
 	{Name: "skin friction, ITTC-1957 line", Shape: Spheroid, Source: "ITTC 1957, 8th ITTC, Madrid; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 1e5, ReMax: 1e10, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(ITTC1957Cf), basisLen: length},
+	{Name: "Haider–Levenspiel", Shape: Spheroid, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: -1, ChooseHi: -1, basisLen: equalVolumeDiameter,
+		eval: func(b Body, _ Flow, re float64) (float64, float64) {
+			deq := equalVolumeDiameter(b)
+			return HaiderLevenspielCD(re, Sphericity(b.Length, b.Diameter)), frontalSphere(deq)
+		}},
 
 	{Name: "slender rod (Cox)", Shape: Rod, Source: "Cox 1970, J. Fluid Mech. 44, 791", Basis: "length", AreaName: frontalArea,
-		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length,
+		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: sphereStokesHi, basisLen: length,
 		eval: linear(func(b Body, f Flow) float64 {
 			return SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2)
 		}, diameterFrontal)},
@@ -247,26 +345,61 @@ var Laws = []Law{
 			return ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter)
 		}, diameterFrontal)},
 	{Name: "Oseen–Brenner rod", Shape: Rod, Source: "Cox 1970; " + srcBrenner, Basis: "length", AreaName: frontalArea,
-		ReMin: 0, ReMax: 1, ChooseLo: 0.1, ChooseHi: 1, basisLen: length,
-		eval: linear(func(b Body, f Flow) float64 {
-			return OseenCorrection(SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2), f.Density, f.Viscosity)
-		}, diameterFrontal)},
+		ReMin: 0, ReMax: 1, ChooseLo: sphereStokesHi, ChooseHi: 1, basisLen: length, eval: endOseenBrennerRod.eval},
+	joined(Law{Name: "Oseen–Brenner rod joined to the boundary layer", Shape: Rod, Source: "Cox 1970; " + srcBrenner + "; Blasius 1908", Basis: "length", AreaName: frontalArea,
+		basisLen: length}, endOseenBrennerRod, endLaminarRod, 1, 1e3),
+	{Name: "skin friction of the side, laminar (Blasius)", Shape: Rod, Source: "Blasius 1908; Schlichting 1979, ch. 7 (side area πdl, ends not counted: a lower estimate)", Basis: "length", AreaName: "side area π d × length",
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: inf, basisLen: length, eval: rodFriction},
 	{Name: "Haider–Levenspiel", Shape: Rod, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
-		ReMin: 0, ReMax: 2.6e5, ChooseLo: 1, ChooseHi: inf, basisLen: equalVolumeDiameter,
+		ReMin: 0, ReMax: 2.6e5, ChooseLo: -1, ChooseHi: -1, basisLen: equalVolumeDiameter,
 		eval: func(b Body, _ Flow, re float64) (float64, float64) {
 			return HaiderLevenspielCD(re, rodSphericity(b.Length, b.Diameter)), frontalSphere(equalVolumeDiameter(b))
 		}},
 
 	{Name: "Lamb (Oseen cylinder)", Shape: Cylinder, Source: "Lamb 1911, Phil. Mag. 21, 112", Basis: "diameter", AreaName: projected,
-		ReMin: 0, ReMax: 0.5, ChooseLo: 0, ChooseHi: 0.7, basisLen: diameter,
-		eval: func(b Body, _ Flow, re float64) (float64, float64) { return LambCylinderCD(re), b.Diameter * b.Length }},
+		ReMin: 0, ReMax: 0.5, ChooseLo: 0, ChooseHi: 0.5, basisLen: diameter, eval: endLamb.eval},
+	joined(Law{Name: "Lamb joined to White's fit", Shape: Cylinder, Source: "Lamb 1911; White 2006", Basis: "diameter", AreaName: projected,
+		basisLen: diameter}, endLamb, endWhite, 0.5, 1),
 	{Name: "cylinder fit (White)", Shape: Cylinder, Source: "White 2006, Viscous Fluid Flow, 3rd ed.", Basis: "diameter", AreaName: projected,
-		ReMin: 1, ReMax: 2e5, ChooseLo: 0.7, ChooseHi: inf, basisLen: diameter,
-		eval: func(b Body, _ Flow, re float64) (float64, float64) { return WhiteCylinderCD(re), b.Diameter * b.Length }},
+		ReMin: 1, ReMax: 2e5, ChooseLo: 1, ChooseHi: inf, basisLen: diameter, eval: endWhite.eval},
 
 	{Name: "measured drag coefficient", Shape: Measured, Source: "user-supplied C_D and reference area", Basis: "length", AreaName: "the stated reference area",
 		ReMin: 0, ReMax: inf, ChooseLo: 0, ChooseHi: inf, basisLen: length,
 		eval: func(b Body, _ Flow, _ float64) (float64, float64) { return b.DragCoefficient, b.ReferenceArea }},
+}
+
+// Where the sphere laws hand over (Re on the diameter): Stokes to
+// Proudman–Pearson at 0.01, where they differ by 0.19 %; Proudman–Pearson
+// to the standard curve at 0.5, where they differ by 0.05 % (Proudman &
+// Pearson 1957 against Clift, Grace & Weber 1978, Table 5.2).
+const (
+	sphereStokesHi    = 0.01
+	sphereExpansionHi = 0.5
+)
+
+// SphereCD returns the drag coefficient of a rigid sphere at Re (on the
+// diameter) by the law chosen there: Stokes, Proudman–Pearson, or the
+// standard curve of Clift, Grace & Weber (1978). Drag and settling both use
+// it.
+func SphereCD(re float64) float64 {
+	switch {
+	case re <= sphereStokesHi:
+		return StokesCD(re)
+	case re <= sphereExpansionHi:
+		return ProudmanPearsonCD(re)
+	}
+	return StandardCurveCD(re)
+}
+
+// sphereLawName names the law [SphereCD] uses at re.
+func sphereLawName(re float64) string {
+	switch {
+	case re <= sphereStokesHi:
+		return "Stokes"
+	case re <= sphereExpansionHi:
+		return "Proudman–Pearson"
+	}
+	return "standard drag curve"
 }
 
 // lawsByShape indexes Laws by shape, in order.
@@ -334,11 +467,20 @@ func DragChosen(b Body, f Flow) (DragResult, error) { return drag(b, f, false) }
 func (l *Law) estimate(b Body, f Flow) Estimate {
 	re := f.Density * f.Speed * l.basisLen(b) / f.Viscosity
 	cd, area := l.eval(b, f, re)
-	return Estimate{
+	e := Estimate{
 		Law: l.Name, Source: l.Source, Coefficient: cd, ReferenceArea: area, AreaName: l.AreaName,
 		Force: 0.5 * f.Density * f.Speed * f.Speed * cd * area, Reynolds: re, Basis: l.Basis,
 		ReMin: l.ReMin, ReMax: l.ReMax, InRange: re >= l.ReMin && re <= l.ReMax,
+		Low: math.NaN(), High: math.NaN(),
 	}
+	switch {
+	case l.Join != nil:
+		e.Low, e.High = l.Join.Lo.force(b, f), l.Join.Hi.force(b, f)
+	case l.alt != nil:
+		a := l.alt.force(b, f)
+		e.Low, e.High = math.Min(a, e.Force), math.Max(a, e.Force)
+	}
+	return e
 }
 
 func drag(b Body, f Flow, all bool) (DragResult, error) {
@@ -388,6 +530,11 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(*c))
 		})
 	}
+	if a := chosen.alt; a != nil && c.High > 1.1*c.Low {
+		note.add(&res.Warnings, WarnModel, func() string {
+			return fmt.Sprintf("drag: the boundary layer of a rigid animal body at Re = %.3g is taken as turbulent (%.3g N; below Re 5e5 the turbulent line is extrapolated); with %s the drag would be %.3g N: take the two as a bracket", c.Reynolds, c.High, a.name, c.Low)
+		})
+	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
 		note.add(&res.Warnings, WarnDragCrisis, func() string {
 			return fmt.Sprintf("drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds)
@@ -398,9 +545,10 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 			return fmt.Sprintf("drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2))
 		})
 	}
-	if c.Law == "Haider–Levenspiel" && (b.Shape == Spheroid || b.Shape == Rod) {
+	if j := chosen.Join; j != nil {
 		note.add(&res.Warnings, WarnModel, func() string {
-			return "drag: no published law covers an aligned elongated body at 1 < Re < 1000; Haider–Levenspiel, fitted to freely moving non-spherical particles, likely overestimates a streamlined body's drag: compare the neighbouring estimates"
+			return fmt.Sprintf("drag: no published law covers this case at Re = %.3g on the %s; the drag joins %s (valid to Re %g), %.3g N here, and %s (valid from Re %g), %.3g N here, smoothly in log Re: take the two as a bracket",
+				c.Reynolds, c.Basis, j.Lo.name, j.From, c.Low, j.Hi.name, j.To, c.High)
 		})
 	}
 	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {

@@ -115,7 +115,7 @@ func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 		return nil, fmt.Errorf("regime: particle density must be positive, got %g kg/m³", p.Density)
 	}
 	sp := &settleProblem{p: p, m: m, d: p.Diameter, phi: 1, drho: p.Density - m.Density,
-		law: "Clift–Gauvin", source: "Clift & Gauvin 1970; in Clift, Grace & Weber 1978", basis: "diameter", cd: CliftGauvinCD, reMax: 3e5}
+		law: "sphere laws", source: "Stokes 1851; Proudman & Pearson 1957; " + srcCGW, basis: "diameter", cd: SphereCD, reMax: 1e6}
 	if math.Abs(sp.drho) <= 1e-5*m.Density { // equal within the medium density's own accuracy
 		return nil, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, m.Density)
 	}
@@ -178,6 +178,9 @@ func (sp *settleProblem) solve(mu float64) (Settling, error) {
 	s.Reynolds = math.Exp((lo + hi) / 2)
 	s.Speed = s.Reynolds * mu / (rhoF * d)
 	s.Coefficient = sp.cd(s.Reynolds) / s.Cunningham
+	if sp.phi == 1 {
+		s.Law = sphereLawName(s.Reynolds)
+	}
 	s.StokesSpeed = s.Cunningham * math.Abs(sp.drho) * g * d * d / (18 * mu)
 	if s.Reynolds > sp.reMax {
 		s.Warnings = append(s.Warnings, warnf(WarnLawOutOfRange, "settling: %s used at Re = %.3g, above its published range Re ≤ %g", s.Law, s.Reynolds, sp.reMax))
@@ -202,22 +205,8 @@ func (sp *settleProblem) nonNewtonian() (Settling, error) {
 			return s, nil
 		}
 	}
-	var s Settling
-	var err error
-	if k, n, ok := powerLawPart(rh); ok && yieldStress(rh) == 0 && sp.p.Shape != Spheroid {
-		// Creeping flow: 3πK Uⁿ d^(2−n) X(n) = Δρ g π d³/6.
-		u := math.Pow(math.Abs(sp.drho)*media.StandardGravity*math.Pow(d, 1+n)/(18*k*RenaudX(n)), 1/n)
-		if re := m.Density * math.Pow(u, 2-n) * math.Pow(d, n) / k; re <= 0.1 {
-			s = sp.base()
-			s.Speed, s.Reynolds = u, re
-			s.Law, s.Source, s.Basis = "creeping flow in a power-law fluid", "Renaud, Mauret & Chhabra 2004 (X(n) correction)", "diameter, on η(U/d)"
-			s.Coefficient = 24 / re * RenaudX(n)
-			s.StokesSpeed = u
-			return sp.finishNN(s), nil
-		}
-	}
 	if g := sp.p.ShearRate; g > 0 {
-		s, err = sp.solve(rh.ApparentViscosity(g))
+		s, err := sp.solve(rh.ApparentViscosity(g))
 		if err != nil {
 			return s, err
 		}
@@ -225,28 +214,82 @@ func (sp *settleProblem) nonNewtonian() (Settling, error) {
 		s.ShearRate, s.Viscosity = g, rh.ApparentViscosity(g)
 		return s, nil
 	}
-	// Fixed point on U with the apparent viscosity at U/d.
-	mu := m.DynamicViscosity
-	u := math.NaN()
-	for range 300 {
-		s, err = sp.solve(mu)
+	return sp.bracketed()
+}
+
+// bracketed finds the terminal speed in a non-Newtonian medium, with the
+// viscosity the apparent viscosity at U/d, by bisection in ln U between
+// 1e-18 and 1e4 m/s on drag(U) − buoyant weight; the drag rises with U,
+// so a root between the ends is found whenever one exists.
+func (sp *settleProblem) bracketed() (Settling, error) {
+	weight := sp.base().Force
+	excess := func(lnU float64) (float64, Estimate, error) {
+		e, err := sp.dragAt(math.Exp(lnU))
+		return e.Force - weight, e, err
+	}
+	lo, hi := math.Log(1e-18), math.Log(1e4)
+	fLo, _, err := excess(lo)
+	if err != nil {
+		return Settling{}, err
+	}
+	if fLo >= 0 {
+		s := sp.base()
+		s.Direction, s.Speed, s.Reynolds, s.Coefficient, s.StokesSpeed = Held, 0, 0, math.NaN(), 0
+		s.Law, s.Source = "held by the yield stress", "apparent-viscosity drag at vanishing speed exceeds the buoyant weight"
+		s = sp.finishNN(s)
+		s.Warnings = append(s.Warnings, warnf(WarnModel, "settling: Y_g = %.3g is below Beris et al.'s (1985) critical 0.143, yet the drag at the apparent viscosity already exceeds the buoyant weight at vanishing speed: the particle is held or creeps too slowly to compute", s.YieldParameter))
+		return s, nil
+	}
+	if fHi, _, err := excess(hi); err != nil || fHi < 0 {
+		return Settling{}, fmt.Errorf("regime: the terminal speed in this medium is above 1e4 m/s; check the units of size and density")
+	}
+	for range 200 {
+		mid := (lo + hi) / 2
+		f, _, err := excess(mid)
 		if err != nil {
-			return s, err
+			return Settling{}, err
 		}
-		if !math.IsNaN(u) && math.Abs(math.Log(s.Speed/u)) < 1e-10 {
-			return sp.finishNN(s), nil
-		}
-		if math.IsNaN(u) {
-			u = s.Speed
+		if f > 0 {
+			hi = mid
 		} else {
-			u = math.Sqrt(u * s.Speed) // damped: geometric mean of old and new
-		}
-		mu = rh.ApparentViscosity(u / d)
-		if !(mu > 0) || math.IsInf(mu, 0) {
-			return s, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/d)
+			lo = mid
 		}
 	}
-	return s, fmt.Errorf("regime: the settling speed in this non-Newtonian medium did not converge")
+	u := math.Exp((lo + hi) / 2)
+	e, _ := sp.dragAt(u)
+	s := sp.base()
+	s.Speed, s.Reynolds, s.Law, s.Source, s.Basis = u, e.Reynolds, e.Law, e.Source, e.Basis
+	s.Coefficient = e.Force / (0.5 * sp.m.Density * u * u * frontalSphere(sp.d))
+	mu := sp.m.ApparentViscosity(u / sp.d)
+	s.Archimedes = sp.m.Density * math.Abs(sp.drho) * media.StandardGravity * sp.d * sp.d * sp.d / (mu * mu)
+	s.StokesSpeed = math.Abs(sp.drho) * media.StandardGravity * sp.d * sp.d / (18 * mu)
+	return sp.finishNN(s), nil
+}
+
+// dragAt returns the drag on the particle at speed u in a non-Newtonian
+// medium, with the apparent viscosity at u/d: by the sphere laws of [Drag]
+// (a pure power-law fluid takes its creeping-flow law and the join beyond)
+// for a sphere, by Haider–Levenspiel on the equal-volume sphere for a
+// spheroid.
+func (sp *settleProblem) dragAt(u float64) (Estimate, error) {
+	rh := sp.m.Rheology
+	mu := rh.ApparentViscosity(u / sp.d)
+	if !(mu > 0) || math.IsInf(mu, 0) {
+		return Estimate{}, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/sp.d)
+	}
+	f := Flow{Speed: u, Density: sp.m.Density, Viscosity: mu}
+	if pl, ok := model(rh).(media.PowerLaw); ok {
+		f.PowerLawK, f.PowerLawN = pl.K, pl.N
+	}
+	if sp.phi == 1 {
+		var res DragResult
+		err := dragInto(&res, Body{Shape: Sphere, Length: sp.d}, f, false)
+		return res.Chosen, err
+	}
+	re := f.Density * u * sp.d / mu
+	cd := sp.cd(re)
+	return Estimate{Law: sp.law, Source: sp.source, Basis: sp.basis, Reynolds: re, Coefficient: cd,
+		Force: 0.5 * f.Density * u * u * cd * frontalSphere(sp.d)}, nil
 }
 
 func (sp *settleProblem) finishNN(s Settling) Settling {
