@@ -68,14 +68,15 @@ func Cunningham(kn float64) float64 {
 
 // Settle returns the terminal speed of a particle in the fluid. It solves
 // the force balance C_D(Re)·Re² = (4/3)·Ar by bisection in ln Re with a drag
-// law continuous in Re: Clift–Gauvin (1970) for a sphere, Haider–Levenspiel
-// (1989) for a spheroid (on the equal-volume sphere). In a gas the drag is
-// divided by the Cunningham slip factor.
+// law continuous in Re: [SphereCD], the sphere laws [Drag] chooses, for a
+// sphere; Haider–Levenspiel (1989) for a spheroid (on the equal-volume
+// sphere). In a gas the drag is divided by the Cunningham slip factor.
 //
 // In a non-Newtonian medium the viscosity is the apparent viscosity at the
 // particle's shear rate U/d (the convention of Chhabra 2007; some authors
-// use 2U/d), found by fixed-point iteration on U. A sphere in a power-law
-// fluid in creeping flow uses the X(n) correction instead ([RenaudX]). In a
+// use 2U/d), and U is found by bisection in ln U on drag − weight; a
+// sphere in a power-law fluid takes the same laws as [Drag] (the X(n)
+// creeping-flow law, [RenaudX], joined to the sphere laws). In a
 // yield-stress fluid a sphere with Y_g = 3τ_y/(d Δρ g) ≥ 0.143 is held
 // (Beris et al. 1985): Direction is Held and Speed 0.
 func Settle(p Particle, m media.Properties) (Settling, error) {

@@ -37,8 +37,8 @@ func Sphericity(l, d float64) float64 {
 func ProlateAxialStokesDrag(mu, u, l, d float64) float64 {
 	a := l / 2
 	e := math.Sqrt(1 - d*d/(l*l))
-	if e < 1e-4 { // series limit e → 0: F → 6πμaU (1 − e²/5 …)
-		return 6 * math.Pi * mu * a * u * (1 - e*e/5)
+	if e < 1e-4 { // series limit e → 0: F → 6πμaU (1 − 2e²/5 …), from (1+e²)L − 2e = (8/3)e³ + (16/15)e⁵ + …
+		return 6 * math.Pi * mu * a * u * (1 - 2*e*e/5)
 	}
 	bigL := math.Log((1 + e) / (1 - e))
 	return 16 * math.Pi * mu * u * a * e * e * e / ((1+e*e)*bigL - 2*e)

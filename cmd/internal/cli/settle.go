@@ -25,17 +25,20 @@ func newSettleCmd(s Streams) *cobra.Command {
 		Use:   "settle --diameter <d> --density <ρ> [flags]",
 		Short: "Terminal sinking or rising speed of a particle, egg, seed or spore",
 		Long: `Solve the balance of drag and buoyant weight for the terminal speed of a
-rigid particle, across regimes, with a drag law continuous in Re: Clift–Gauvin
-(1970) for a sphere, Haider–Levenspiel (1989) for a prolate spheroid (give
---length too). Re is on the diameter (of the equal-volume sphere for a
-spheroid). In air the Cunningham slip correction (Davies 1945 constants) is
-applied; it matters below about 10 µm (spores, pollen, bacteria).
+rigid particle, across regimes, with the same sphere laws as calc (Stokes,
+Proudman–Pearson, then the standard curve of Clift, Grace & Weber 1978) for
+a sphere, and Haider–Levenspiel (1989), a fit to freely falling
+non-spherical particles, for a prolate spheroid (give --length too). Re is
+on the diameter (of the equal-volume sphere for a spheroid). In air the
+Cunningham slip correction (Davies 1945 constants) is applied; it matters
+below about 10 µm (spores, pollen, bacteria).
 In a measured non-Newtonian medium (--medium FILE.json) the viscosity is
 the apparent viscosity at the shear rate U/d (Chhabra 2007; some authors use
-2U/d), solved together with U unless --shear-rate fixes it; a sphere in a
-power-law fluid in creeping flow uses the X(n) correction of Renaud, Mauret
-& Chhabra (2004); in a yield-stress fluid a sphere with
-Y_g = 3τ_y/(d Δρ g) ≥ 0.143 is held (Beris et al. 1985).
+2U/d), solved together with U by bisection unless --shear-rate fixes it; a
+sphere in a power-law fluid takes the X(n) creeping-flow law of Renaud,
+Mauret & Chhabra (2004), joined smoothly to the sphere laws between Re 0.1
+and 100; in a yield-stress fluid a sphere with Y_g = 3τ_y/(d Δρ g) ≥ 0.143
+is held (Beris et al. 1985).
 ` + mediumFlagHelp + "\n\n" + estimateNotice,
 		Example: `  flowregime settle --diameter 150um --density 1.06g/cm3 --medium seawater --temp 10C
   flowregime settle --diameter 25um --density 1100kg/m3 --medium air --humidity 70%`,
