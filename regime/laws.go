@@ -456,8 +456,8 @@ type DragResult struct {
 
 // Drag evaluates the laws for the body's shape and chooses the one whose
 // choice range holds the case (see each Law's ChooseLo–ChooseHi). Estimates
-// holds the chosen law's and every other law within two decades of Re of
-// its published range, each flagged in or out of range.
+// holds the chosen law's and every other law within a decade of Re of its
+// published range, each flagged in or out of range.
 func Drag(b Body, f Flow) (DragResult, error) { return drag(b, f, true) }
 
 // DragChosen is [Drag] without the other laws' estimates, and with
@@ -562,12 +562,15 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 }
 
 // applicable reports whether an estimate is worth showing beside the chosen
-// one: finite, and within two decades of Re of its law's published range.
+// one: finite, and within a decade of Re of its law's published range
+// (those outside the range carry InRange false and are shown as such).
+// Laws far beyond their range (an Oseen expansion at Re 1000) differ by
+// orders of magnitude and are left out rather than listed as comparable.
 func applicable(e Estimate) bool {
 	if math.IsNaN(e.Force) || math.IsInf(e.Force, 0) || e.Force <= 0 {
 		return false
 	}
-	return e.Reynolds >= e.ReMin/100 && e.Reynolds <= e.ReMax*100
+	return e.Reynolds >= e.ReMin/10 && e.Reynolds <= e.ReMax*10
 }
 
 func lawRange(e Estimate) string {
