@@ -39,13 +39,22 @@ func ITTC1957Cf(re float64) float64 {
 // (Schlichting's Table 21.1 gives the rounded 1700).
 //
 // Reference: Prandtl, L. (1927), as in Schlichting (1979), ch. 21.
-func TransitionCf(re, reCr float64) float64 {
-	if re <= reCr {
-		return BlasiusCf(re)
-	}
+func TransitionCf(re, reCr float64) float64 { return transitionAt(reCr)(re) }
+
+// transitionAt returns [TransitionCf] for a fixed Re_cr, with its constant
+// A computed once.
+func transitionAt(reCr float64) func(re float64) float64 {
 	a := reCr * (PrandtlSchlichtingCf(reCr) - BlasiusCf(reCr))
-	return PrandtlSchlichtingCf(re) - a/re
+	return func(re float64) float64 {
+		if re <= reCr {
+			return BlasiusCf(re)
+		}
+		return PrandtlSchlichtingCf(re) - a/re
+	}
 }
+
+// transition5e5 is [TransitionCf] with Re_cr = 5e5.
+var transition5e5 = transitionAt(5e5)
 
 // HoernerFormFactor returns the ratio of a streamlined body of revolution's
 // drag to its skin friction on the wetted area, 1 + 1.5(d/l)^1.5 + 7(d/l)³,

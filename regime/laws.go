@@ -143,10 +143,11 @@ type Law struct {
 	// Join is set for a smooth join across a gap between two laws'
 	// published ranges; eval then blends the two ends.
 	Join *Join
-	// alt, where set, is the other credible law for the same case (the
-	// other boundary-layer state); its force and the chosen one's bracket
-	// the drag.
-	alt *lawEnd
+	// altCf, where set, is the skin friction of the other credible
+	// boundary-layer state for a friction law (same area and form factor);
+	// its force and the chosen one's bracket the drag.
+	altCf   func(re float64) float64
+	altName string
 }
 
 // Join is a documented smooth join between two validated laws, used where
@@ -260,8 +261,6 @@ var (
 		eval: linear(func(b Body, f Flow) float64 {
 			return OseenCorrection(ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter), f.Density, f.Viscosity)
 		}, diameterFrontal)}
-	endLaminarTransition = lawEnd{name: "a laminar boundary layer with transition at Re 5e5", basisLen: length,
-		eval: frictionLaw(func(re float64) float64 { return TransitionCf(re, 5e5) })}
 	endLaminarBody     = lawEnd{name: "laminar skin friction with Hoerner's form factor", basisLen: length, eval: frictionLaw(BlasiusCf)}
 	endOseenBrennerRod = lawEnd{name: "Oseen–Brenner rod (Cox 1970; Brenner 1961)", basisLen: length,
 		eval: linear(func(b Body, f Flow) float64 {
@@ -291,7 +290,7 @@ func rodFriction(b Body, _ Flow, re float64) (float64, float64) {
 var Laws = []Law{
 	{Name: "creeping flow in a power-law fluid", Shape: Sphere, Source: "Renaud, Mauret & Chhabra 2004, Can. J. Chem. Eng. 82, 1066 (X(n) correction)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
 		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length, powerLaw: true, eval: endPowerLawCreeping.eval},
-	joined(Law{Name: "power-law creeping flow joined to the sphere laws", Shape: Sphere, Source: "the sphere laws at η(U/d), as Chhabra 2007, ch. 5, suggests beyond creeping flow", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
+	joined(Law{Name: "power-law creeping flow joined to the sphere laws", Shape: Sphere, Source: "the sphere laws at η(U/d) beyond creeping flow; the ends differ by X(n) ≤ 1.46 while measured corrections scatter over 1–1.8 (Coulson & Richardson, Chemical Engineering vol. 2, ch. 3)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
 		basisLen: length, powerLaw: true}, endPowerLawCreeping, endSphereCurve, 0.1, 100),
 	{Name: "Stokes", Shape: Sphere, Source: srcStokes, Basis: "diameter", AreaName: frontalArea,
 		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: sphereStokesHi, eval: sphereCD(StokesCD), basisLen: length},
@@ -320,9 +319,10 @@ var Laws = []Law{
 	{Name: "skin friction, laminar (Blasius)", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: bodyTurbulentFrom, eval: frictionLaw(BlasiusCf), basisLen: length},
 	{Name: "skin friction, turbulent on animal bodies", Shape: Spheroid, Source: "Prandtl–Schlichting line (Schlichting 1979, ch. 21; published from Re 5e5, extrapolated down to where it meets the laminar line); turbulent boundary layers measured on trout at Re 4e5 (Yanase & Saarenrinne 2015, J. Exp. Biol. 218, 1373); " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: bodyTurbulentFrom, ReMax: 1e9, ChooseLo: bodyTurbulentFrom, ChooseHi: inf, eval: frictionLaw(AnimalBodyCf), basisLen: length, alt: &endLaminarTransition},
+		ReMin: bodyTurbulentFrom, ReMax: 1e9, ChooseLo: bodyTurbulentFrom, ChooseHi: inf, eval: frictionLaw(AnimalBodyCf), basisLen: length,
+		altCf: transition5e5, altName: "a laminar boundary layer with transition at Re 5e5"},
 	{Name: "skin friction, transition at Re 5e5", Shape: Spheroid, Source: "Prandtl 1927; Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: endLaminarTransition.eval, basisLen: length},
+		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(transition5e5), basisLen: length},
 	{Name: "skin friction, turbulent (Prandtl–Schlichting)", Shape: Spheroid, Source: "Schlichting 1979, Boundary-Layer Theory, ch. 21; " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: 5e5, ReMax: 1e9, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(PrandtlSchlichtingCf), basisLen: length},
 	{Name: "skin friction, ITTC-1957 line", Shape: Spheroid, Source: "ITTC 1957, 8th ITTC, Madrid; " + srcHoerner, Basis: "length", AreaName: wettedArea,
@@ -476,8 +476,8 @@ func (l *Law) estimate(b Body, f Flow) Estimate {
 	switch {
 	case l.Join != nil:
 		e.Low, e.High = l.Join.Lo.force(b, f), l.Join.Hi.force(b, f)
-	case l.alt != nil:
-		a := l.alt.force(b, f)
+	case l.altCf != nil: // same area and form factor: scale by the friction
+		a := e.Force * l.altCf(re) * HoernerFormFactor(b.Length, b.Diameter) / cd
 		e.Low, e.High = math.Min(a, e.Force), math.Max(a, e.Force)
 	}
 	return e
@@ -530,9 +530,9 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(*c))
 		})
 	}
-	if a := chosen.alt; a != nil && c.High > 1.1*c.Low {
+	if chosen.altCf != nil && c.High > 1.1*c.Low {
 		note.add(&res.Warnings, WarnModel, func() string {
-			return fmt.Sprintf("drag: the boundary layer of a rigid animal body at Re = %.3g is taken as turbulent (%.3g N; below Re 5e5 the turbulent line is extrapolated); with %s the drag would be %.3g N: take the two as a bracket", c.Reynolds, c.High, a.name, c.Low)
+			return fmt.Sprintf("drag: the boundary layer of a rigid animal body at Re = %.3g is taken as turbulent (%.3g N; below Re 5e5 the turbulent line is extrapolated); with %s the drag would be %.3g N: take the two as a bracket", c.Reynolds, c.High, chosen.altName, c.Low)
 		})
 	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
