@@ -353,3 +353,26 @@ func TestNaturalGrains(t *testing.T) {
 		}
 	}
 }
+
+// calc and settle use the same sphere laws: at the terminal speed settle
+// finds, the drag that Drag gives for the same sphere equals the buoyant
+// weight (to the bisection's precision), across Stokes, Proudman–Pearson
+// and the standard curve (before, settle used Clift–Gauvin and differed by
+// up to 4 %).
+func TestSettleMatchesDrag(t *testing.T) {
+	w := water20(t)
+	for _, d := range []float64{20e-6, 80e-6, 150e-6, 1e-3, 1e-2} {
+		s, err := Settle(Particle{Shape: Sphere, Diameter: d, Density: 1500}, w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := Drag(Body{Shape: Sphere, Length: d}, Flow{Speed: s.Speed, Density: w.Density, Viscosity: w.DynamicViscosity})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if r.Chosen.Law != s.Law {
+			t.Errorf("d %g: settle law %q, drag law %q", d, s.Law, r.Chosen.Law)
+		}
+		checkRel(t, fmt.Sprintf("d %g m: drag at terminal speed / weight", d), r.Chosen.Force, s.Force, 1e-9)
+	}
+}
