@@ -108,6 +108,9 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 	if (o.coreyShape == "") != (o.roundness == "") {
 		return p, usagef("a natural grain needs both --corey-shape and --roundness (natural sand: about 0.7 and 3.5)")
 	}
+	if o.coreyShape != "" && !(p.CoreyShape > 0 && p.Roundness > 0) { // zero would read as "no grain"
+		return p, fmt.Errorf("a natural grain needs a Corey shape factor in 0.2–1 and a Powers roundness above 0 and at most 6, got %g and %g", p.CoreyShape, p.Roundness)
+	}
 	if p.Shape == regime.Spheroid && o.length == "" {
 		return p, usagef("a spheroid needs --length as well as --diameter")
 	}
