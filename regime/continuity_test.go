@@ -81,8 +81,39 @@ type step struct {
 }
 
 type sweepResult struct {
-	up, down step // largest rise and largest fall (smallest ratio)
-	bad      []string
+	up, down       step // largest rise and largest fall (smallest ratio)
+	joinUp, joinDn step // the same over the steps where the law changes
+	bad            []string
+}
+
+// note records a step in the result.
+func (r *sweepResult) note(s step, exempt bool) {
+	if exempt {
+		return
+	}
+	if s.ratio > r.up.ratio {
+		r.up = s
+	}
+	if s.ratio < r.down.ratio {
+		r.down = s
+	}
+	if s.from != s.to {
+		if s.ratio > r.joinUp.ratio {
+			r.joinUp = s
+		}
+		if r.joinDn.ratio == 0 || s.ratio < r.joinDn.ratio {
+			r.joinDn = s
+		}
+	}
+}
+
+// hand-overs describes the worst steps at law changes.
+func (r *sweepResult) handOvers() string {
+	if r.joinUp.ratio == 0 {
+		return "no hand-over"
+	}
+	return fmt.Sprintf("hand-overs: up ×%.4f at Re %.3g (%s → %s), down ×%.4f at Re %.3g (%s → %s)",
+		r.joinUp.ratio, r.joinUp.re, r.joinUp.from, r.joinUp.to, r.joinDn.ratio, r.joinDn.re, r.joinDn.from, r.joinDn.to)
 }
 
 // dragSweep sweeps speed from Re 1e-3 to 1e6 on the choice length.
@@ -110,13 +141,7 @@ func dragSweep(t testing.TB, b Body, m sweepMedium) sweepResult {
 		if i > 0 {
 			ratio := f / prevF
 			crisis := (b.Shape == Sphere) && r.Reynolds > 2e5
-			s := step{ratio: ratio, re: r.Reynolds, from: prevLaw, to: r.Drag.Chosen.Law}
-			if ratio > res.up.ratio && !crisis {
-				res.up = s
-			}
-			if ratio < res.down.ratio && !crisis {
-				res.down = s
-			}
+			res.note(step{ratio: ratio, re: r.Reynolds, from: prevLaw, to: r.Drag.Chosen.Law}, crisis)
 			if !crisis && (ratio > bound || ratio < 1) {
 				res.bad = append(res.bad, fmt.Sprintf("Re %.4g: drag ×%.4f (%s → %s)", r.Reynolds, ratio, prevLaw, r.Drag.Chosen.Law))
 			}
@@ -131,8 +156,8 @@ func TestDragContinuitySweep(t *testing.T) {
 	for _, m := range sweepMedia(t) {
 		for _, b := range sweepBodies() {
 			r := dragSweep(t, b.b, m)
-			t.Logf("%-18s %-14s max step ×%.4f at Re %.3g (%s → %s); min step ×%.4f at Re %.3g (%s → %s)",
-				m.name, b.name, r.up.ratio, r.up.re, r.up.from, r.up.to, r.down.ratio, r.down.re, r.down.from, r.down.to)
+			t.Logf("%-18s %-14s max step ×%.4f at Re %.3g, min ×%.4f at Re %.3g; %s",
+				m.name, b.name, r.up.ratio, r.up.re, r.down.ratio, r.down.re, r.handOvers())
 			if len(r.bad) > 0 {
 				t.Errorf("%s, %s: %d steps outside [1, %.4f], first: %s", m.name, b.name, len(r.bad), speedStep*speedStep*(1+joinSlack), r.bad[0])
 			}
@@ -154,14 +179,8 @@ func settleSweep(t testing.TB, p Particle, m sweepMedium, aspect float64) sweepR
 		}
 		if prevU > 0 {
 			ratio := s.Speed / prevU
-			st := step{ratio: ratio, re: s.Reynolds, from: prevLaw, to: s.Law}
 			crisis := s.Reynolds > 2e5
-			if ratio > res.up.ratio && !crisis {
-				res.up = st
-			}
-			if ratio < res.down.ratio && !crisis {
-				res.down = st
-			}
+			res.note(step{ratio: ratio, re: s.Reynolds, from: prevLaw, to: s.Law}, crisis)
 			if !crisis && (ratio > bound || ratio < 1) {
 				res.bad = append(res.bad, fmt.Sprintf("d %.4g m, Re %.4g: speed ×%.4f (%s → %s)", d, s.Reynolds, ratio, prevLaw, s.Law))
 			}
@@ -187,8 +206,8 @@ func TestSettleContinuitySweep(t *testing.T) {
 				p.Roundness = 3.5
 			}
 			r := settleSweep(t, p, m, c.aspect)
-			t.Logf("%-18s %-12s max step ×%.4f at Re %.3g (%s → %s); min step ×%.4f at Re %.3g",
-				m.name, c.name, r.up.ratio, r.up.re, r.up.from, r.up.to, r.down.ratio, r.down.re)
+			t.Logf("%-18s %-12s max step ×%.4f at Re %.3g, min ×%.4f at Re %.3g; %s",
+				m.name, c.name, r.up.ratio, r.up.re, r.down.ratio, r.down.re, r.handOvers())
 			if len(r.bad) > 0 {
 				t.Errorf("%s, %s: %d steps outside the bound, first: %s", m.name, c.name, len(r.bad), r.bad[0])
 			}
