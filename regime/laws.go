@@ -246,6 +246,7 @@ const (
 	srcHB       = "Oberbeck 1876; Happel & Brenner 1965, Low Reynolds Number Hydrodynamics, ch. 4"
 	srcCGW      = "Clift, Grace & Weber 1978, Bubbles, Drops, and Particles, Table 5.2"
 	srcHL       = "Haider & Levenspiel 1989, Powder Technol. 58, 63 (freely moving non-spherical particles)"
+	srcHS       = "Hölzer & Sommerfeld 2008, Powder Technol. 184, 361 (any orientation, here along the axis)"
 	srcBrenner  = "Brenner 1961, J. Fluid Mech. 11, 604 (Oseen correction for any shape)"
 	srcHoerner  = "Hoerner 1965, Fluid-Dynamic Drag, ch. 6 (form factor on wetted area)"
 	wettedArea  = "wetted area of the prolate spheroid, with Hoerner's form factor"
@@ -261,7 +262,9 @@ var (
 		eval: linear(func(b Body, f Flow) float64 {
 			return OseenCorrection(ProlateAxialStokesDrag(f.Viscosity, f.Speed, b.Length, b.Diameter), f.Density, f.Viscosity)
 		}, diameterFrontal)}
-	endLaminarBody     = lawEnd{name: "laminar skin friction with Hoerner's form factor", basisLen: length, eval: frictionLaw(BlasiusCf)}
+	endHolzerSpheroid  = lawEnd{name: "Hölzer–Sommerfeld along the axis", basisLen: equalVolumeDiameter, eval: holzerSpheroid}
+	endHolzerRod       = lawEnd{name: "Hölzer–Sommerfeld along the axis", basisLen: equalVolumeDiameter, eval: holzerRod}
+	endAnimalBody      = lawEnd{name: "skin friction of an animal body with Hoerner's form factor", basisLen: length, eval: frictionLaw(AnimalBodyCf)}
 	endOseenBrennerRod = lawEnd{name: "Oseen–Brenner rod (Cox 1970; Brenner 1961)", basisLen: length,
 		eval: linear(func(b Body, f Flow) float64 {
 			return OseenCorrection(SlenderRodAxialDrag(f.Viscosity, f.Speed, b.Length, b.Diameter/2), f.Density, f.Viscosity)
@@ -275,6 +278,23 @@ var (
 		eval: linear(func(b Body, f Flow) float64 { return PowerLawCreepingDrag(f.PowerLawK, f.PowerLawN, f.Speed, b.Length) }, func(b Body) float64 { return frontalSphere(b.Length) })}
 	endSphereCurve = lawEnd{name: "the Newtonian sphere laws at the apparent viscosity", basisLen: length, eval: sphereCD(SphereCD)}
 )
+
+// holzerSpheroid is Hölzer–Sommerfeld for a prolate spheroid moving along
+// its axis: frontal area πd²/4, longitudinal section πld/4.
+func holzerSpheroid(b Body, _ Flow, re float64) (float64, float64) {
+	deq := equalVolumeDiameter(b)
+	phi, perp, par := alignedSphericities(deq, ProlateSpheroidArea(b.Length, b.Diameter), frontalSphere(b.Diameter), math.Pi*b.Length*b.Diameter/4)
+	return HolzerSommerfeldCD(re, phi, perp, par), frontalSphere(deq)
+}
+
+// holzerRod is Hölzer–Sommerfeld for a flat-ended rod moving along its
+// axis: surface πdl + πd²/2, frontal area πd²/4, longitudinal section ld.
+func holzerRod(b Body, _ Flow, re float64) (float64, float64) {
+	deq := equalVolumeDiameter(b)
+	area := math.Pi*b.Diameter*b.Length + math.Pi*b.Diameter*b.Diameter/2
+	phi, perp, par := alignedSphericities(deq, area, frontalSphere(b.Diameter), b.Length*b.Diameter)
+	return HolzerSommerfeldCD(re, phi, perp, par), frontalSphere(deq)
+}
 
 // rodFriction is the laminar (Blasius) skin friction of a rod's side,
 // πdl, with no form factor: the rod's ends add pressure drag that no
@@ -314,10 +334,14 @@ var Laws = []Law{
 		}, diameterFrontal)},
 	{Name: "Oseen–Brenner spheroid", Shape: Spheroid, Source: srcBrenner, Basis: "length", AreaName: frontalArea,
 		ReMin: 0, ReMax: 1, ChooseLo: sphereStokesHi, ChooseHi: 1, basisLen: length, eval: endOseenBrennerSpheroid.eval},
-	joined(Law{Name: "Oseen–Brenner joined to the boundary layer", Shape: Spheroid, Source: srcBrenner + "; " + srcHoerner, Basis: "length", AreaName: frontalArea,
-		basisLen: length}, endOseenBrennerSpheroid, endLaminarBody, 1, 1e3),
+	joined(Law{Name: "Oseen–Brenner joined to Hölzer–Sommerfeld", Shape: Spheroid, Source: srcBrenner + "; " + srcHS, Basis: "length", AreaName: frontalArea,
+		basisLen: length}, endOseenBrennerSpheroid, endHolzerSpheroid, 1, 10),
+	{Name: "Hölzer–Sommerfeld, aligned", Shape: Spheroid, Source: srcHS, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
+		ReMin: 0, ReMax: 1e5, ChooseLo: 10, ChooseHi: 100, basisLen: equalVolumeDiameter, eval: holzerSpheroid},
+	joined(Law{Name: "Hölzer–Sommerfeld joined to the boundary layer", Shape: Spheroid, Source: srcHS + "; " + srcHoerner, Basis: "length", AreaName: eqSphere,
+		basisLen: length}, endHolzerSpheroid, endAnimalBody, 100, bodyTurbulentFrom),
 	{Name: "skin friction, laminar (Blasius)", Shape: Spheroid, Source: "Blasius 1908; " + srcHoerner, Basis: "length", AreaName: wettedArea,
-		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: bodyTurbulentFrom, eval: frictionLaw(BlasiusCf), basisLen: length},
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: -1, ChooseHi: -1, eval: frictionLaw(BlasiusCf), basisLen: length},
 	{Name: "skin friction, turbulent on animal bodies", Shape: Spheroid, Source: "Prandtl–Schlichting line (Schlichting 1979, ch. 21; published from Re 5e5, extrapolated down to where it meets the laminar line); turbulent boundary layers measured on trout at Re 4e5 (Yanase & Saarenrinne 2015, J. Exp. Biol. 218, 1373); " + srcHoerner, Basis: "length", AreaName: wettedArea,
 		ReMin: bodyTurbulentFrom, ReMax: 1e9, ChooseLo: bodyTurbulentFrom, ChooseHi: inf, eval: frictionLaw(AnimalBodyCf), basisLen: length,
 		altCf: transition5e5, altName: "a laminar boundary layer with transition at Re 5e5"},
@@ -346,10 +370,14 @@ var Laws = []Law{
 		}, diameterFrontal)},
 	{Name: "Oseen–Brenner rod", Shape: Rod, Source: "Cox 1970; " + srcBrenner, Basis: "length", AreaName: frontalArea,
 		ReMin: 0, ReMax: 1, ChooseLo: sphereStokesHi, ChooseHi: 1, basisLen: length, eval: endOseenBrennerRod.eval},
-	joined(Law{Name: "Oseen–Brenner rod joined to the boundary layer", Shape: Rod, Source: "Cox 1970; " + srcBrenner + "; Blasius 1908", Basis: "length", AreaName: frontalArea,
-		basisLen: length}, endOseenBrennerRod, endLaminarRod, 1, 1e3),
+	joined(Law{Name: "Oseen–Brenner rod joined to Hölzer–Sommerfeld", Shape: Rod, Source: "Cox 1970; " + srcBrenner + "; " + srcHS, Basis: "length", AreaName: frontalArea,
+		basisLen: length}, endOseenBrennerRod, endHolzerRod, 1, 10),
+	{Name: "Hölzer–Sommerfeld, aligned", Shape: Rod, Source: srcHS, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
+		ReMin: 0, ReMax: 1e5, ChooseLo: 10, ChooseHi: 100, basisLen: equalVolumeDiameter, eval: holzerRod},
+	joined(Law{Name: "Hölzer–Sommerfeld joined to the boundary layer", Shape: Rod, Source: srcHS + "; Blasius 1908", Basis: "length", AreaName: eqSphere,
+		basisLen: length}, endHolzerRod, endLaminarRod, 100, 1e4),
 	{Name: "skin friction of the side, laminar (Blasius)", Shape: Rod, Source: "Blasius 1908; Schlichting 1979, ch. 7 (side area πdl, ends not counted: a lower estimate)", Basis: "length", AreaName: "side area π d × length",
-		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e3, ChooseHi: inf, basisLen: length, eval: rodFriction},
+		ReMin: 1e3, ReMax: 5e5, ChooseLo: 1e4, ChooseHi: inf, basisLen: length, eval: rodFriction},
 	{Name: "Haider–Levenspiel", Shape: Rod, Source: srcHL, Basis: "equal-volume sphere diameter", AreaName: eqSphere,
 		ReMin: 0, ReMax: 2.6e5, ChooseLo: -1, ChooseHi: -1, basisLen: equalVolumeDiameter,
 		eval: func(b Body, _ Flow, re float64) (float64, float64) {
@@ -547,7 +575,7 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 	}
 	if j := chosen.Join; j != nil {
 		note.add(&res.Warnings, WarnModel, func() string {
-			return fmt.Sprintf("drag: no published law covers this case at Re = %.3g on the %s; the drag joins %s (valid to Re %g), %.3g N here, and %s (valid from Re %g), %.3g N here, smoothly in log Re: take the two as a bracket",
+			return fmt.Sprintf("drag: at Re = %.3g on the %s the drag joins %s (used up to Re %g), %.3g N here, and %s (used from Re %g), %.3g N here, smoothly in log Re, as no published law covers the gap between them: take the two as a bracket",
 				c.Reynolds, c.Basis, j.Lo.name, j.From, c.Low, j.Hi.name, j.To, c.High)
 		})
 	}
