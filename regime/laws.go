@@ -246,7 +246,7 @@ const (
 	srcHB       = "Oberbeck 1876; Happel & Brenner 1965, Low Reynolds Number Hydrodynamics, ch. 4"
 	srcCGW      = "Clift, Grace & Weber 1978, Bubbles, Drops, and Particles, Table 5.2"
 	srcHL       = "Haider & Levenspiel 1989, Powder Technol. 58, 63 (freely moving non-spherical particles)"
-	srcHS       = "Hölzer & Sommerfeld 2008, Powder Technol. 184, 361 (any orientation, here along the axis)"
+	srcHS       = "Hölzer & Sommerfeld 2008, Powder Technol. 184, 361 (any orientation, here along the axis; the upper end of its fitted range, Re 1e5 here, not checked against the paper)"
 	srcBrenner  = "Brenner 1961, J. Fluid Mech. 11, 604 (Oseen correction for any shape)"
 	srcHoerner  = "Hoerner 1965, Fluid-Dynamic Drag, ch. 6 (form factor on wetted area)"
 	wettedArea  = "wetted area of the prolate spheroid, with Hoerner's form factor"
