@@ -3,6 +3,7 @@ package regime
 import (
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
@@ -210,6 +211,34 @@ func TestSettleContinuitySweep(t *testing.T) {
 				m.name, c.name, r.up.ratio, r.up.re, r.down.ratio, r.down.re, r.handOvers())
 			if len(r.bad) > 0 {
 				t.Errorf("%s, %s: %d steps outside the bound, first: %s", m.name, c.name, len(r.bad), r.bad[0])
+			}
+		}
+	}
+}
+
+// Over random bodies and flows (sizes 1e-7–10 m, speeds 1e-7–1e3 m/s, any
+// medium density and viscosity of living media and beyond), every shape's
+// chosen drag and its bracket are finite and positive or the call fails
+// with an error; nothing panics or returns NaN (a join's logarithms, the
+// power-law laws and the friction bracket included).
+func TestDragFiniteEverywhere(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 2))
+	logU := func(lo, hi float64) float64 { return math.Exp(math.Log(lo) + rng.Float64()*(math.Log(hi)-math.Log(lo))) }
+	for range 20000 {
+		l := logU(1e-7, 10)
+		d := l * logU(1e-3, 1)
+		f := Flow{Speed: logU(1e-7, 1e3), Density: logU(0.05, 2000), Viscosity: logU(1e-6, 1e3)}
+		if rng.IntN(3) == 0 {
+			f.PowerLawK, f.PowerLawN = logU(1e-3, 10), logU(0.1, 1)
+		}
+		for _, s := range []Shape{Sphere, Spheroid, Rod, Cylinder} {
+			r, err := Drag(Body{Shape: s, Length: l, Diameter: d}, f)
+			if err != nil {
+				continue
+			}
+			c := r.Chosen
+			if !(c.Force > 0) || math.IsInf(c.Force, 0) || (c.Low == c.Low && !(c.Low > 0 && c.High >= c.Low)) {
+				t.Fatalf("%s l %g d %g %+v: %s force %g bracket %g–%g", s, l, d, f, c.Law, c.Force, c.Low, c.High)
 			}
 		}
 	}

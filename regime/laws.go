@@ -73,6 +73,11 @@ type Body struct {
 	ReferenceArea   float64
 }
 
+// minRodAspect is the least length/diameter of a rod: Cox's (1970) axial
+// drag 2πμlU/(ln(l/a) − 0.807) changes sign at l/a = 2.24 (l/d = 1.12)
+// and is poor below l/a = 10; below l/d = 2 the body is refused.
+const minRodAspect = 2
+
 // Validate checks the body's dimensions.
 func (b Body) Validate() error {
 	if !(b.Length > 0) || math.IsInf(b.Length, 0) {
@@ -86,6 +91,9 @@ func (b Body) Validate() error {
 		}
 		if b.Shape != Cylinder && b.Diameter > b.Length {
 			return fmt.Errorf("regime: a %s's diameter (%g m) must not exceed its length (%g m); for a flattened body give the longest axis as length", b.Shape, b.Diameter, b.Length)
+		}
+		if b.Shape == Rod && b.Length < minRodAspect*b.Diameter {
+			return fmt.Errorf("regime: a rod %g m long and %g m wide is too stout for slender-body theory (Cox 1970 fails below length = 2 × diameter, where its drag turns negative); give it as a spheroid", b.Length, b.Diameter)
 		}
 	case Measured:
 		if !(b.DragCoefficient > 0) || !(b.ReferenceArea > 0) || math.IsInf(b.DragCoefficient, 0) || math.IsInf(b.ReferenceArea, 0) {
@@ -120,8 +128,9 @@ type Estimate struct {
 	Basis         string  // that length, in words
 	ReMin, ReMax  float64 // published range of Reynolds on Basis
 	InRange       bool
-	// A join between two laws (see [Law.Join]) carries the two validated
-	// ends' forces at this speed, a bracket for the drag (N); NaN otherwise.
+	// The bracket for the drag (N), Low ≤ High: for a join (see
+	// [Law.Join]) its two validated ends' forces at this speed, for a rigid
+	// animal body the laminar and turbulent boundary layers; NaN otherwise.
 	Low, High float64
 }
 
@@ -503,7 +512,8 @@ func (l *Law) estimate(b Body, f Flow) Estimate {
 	}
 	switch {
 	case l.Join != nil:
-		e.Low, e.High = l.Join.Lo.force(b, f), l.Join.Hi.force(b, f)
+		lo, hi := l.Join.Lo.force(b, f), l.Join.Hi.force(b, f)
+		e.Low, e.High = math.Min(lo, hi), math.Max(lo, hi)
 	case l.altCf != nil: // same area and form factor: scale by the friction
 		a := e.Force * l.altCf(re) * HoernerFormFactor(b.Length, b.Diameter) / cd
 		e.Low, e.High = math.Min(a, e.Force), math.Max(a, e.Force)
@@ -576,7 +586,7 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 	if j := chosen.Join; j != nil {
 		note.add(&res.Warnings, WarnModel, func() string {
 			return fmt.Sprintf("drag: at Re = %.3g on the %s the drag joins %s (used up to Re %g), %.3g N here, and %s (used from Re %g), %.3g N here, smoothly in log Re, as no published law covers the gap between them: take the two as a bracket",
-				c.Reynolds, c.Basis, j.Lo.name, j.From, c.Low, j.Hi.name, j.To, c.High)
+				c.Reynolds, c.Basis, j.Lo.name, j.From, j.Lo.force(b, f), j.Hi.name, j.To, j.Hi.force(b, f))
 		})
 	}
 	if b.Shape == Spheroid && c.Reynolds >= 1e3 && c.Basis == "length" {
