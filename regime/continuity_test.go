@@ -223,7 +223,9 @@ func TestSettleContinuitySweep(t *testing.T) {
 // power-law laws and the friction bracket included).
 func TestDragFiniteEverywhere(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 2))
-	logU := func(lo, hi float64) float64 { return math.Exp(math.Log(lo) + rng.Float64()*(math.Log(hi)-math.Log(lo))) }
+	logU := func(lo, hi float64) float64 {
+		return math.Exp(math.Log(lo) + rng.Float64()*(math.Log(hi)-math.Log(lo)))
+	}
 	for range 20000 {
 		l := logU(1e-7, 10)
 		d := l * logU(1e-3, 1)
