@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
@@ -242,6 +243,39 @@ func TestDragFiniteEverywhere(t *testing.T) {
 			if !(c.Force > 0) || math.IsInf(c.Force, 0) || (c.Low == c.Low && !(c.Low > 0 && c.High >= c.Low)) {
 				t.Fatalf("%s l %g d %g %+v: %s force %g bracket %g–%g", s, l, d, f, c.Law, c.Force, c.Low, c.High)
 			}
+		}
+	}
+}
+
+// Settling over random particles and media (Newtonian water and air, and
+// power-law, Bingham, Herschel–Bulkley and Carreau fluids): a finite speed
+// (zero only when held) or an error, never a panic, NaN or "did not
+// converge".
+func TestSettleFiniteEverywhere(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	logU := func(lo, hi float64) float64 {
+		return math.Exp(math.Log(lo) + rng.Float64()*(math.Log(hi)-math.Log(lo)))
+	}
+	ms := sweepMedia(t)
+	media4 := []media.Properties{ms[0].p, ms[2].p, ms[3].p,
+		measured(media.Bingham{TauY: 0.5, MuP: 0.05}, 1000, 1e-3, 1e3),
+		measured(media.HerschelBulkley{TauY: 0.2, K: 0.3, N: 0.6}, 1000, 1e-3, 1e3),
+		measured(media.Carreau{Eta0: 0.056, EtaInf: 0.00345, Lambda: 3.313, N: 0.3568}, 1050, 1e-3, 1e3)}
+	for range 3000 {
+		p := Particle{Shape: Sphere, Diameter: logU(1e-7, 0.1), Density: logU(10, 2e4)}
+		if rng.IntN(3) == 0 {
+			p.Shape, p.Length = Spheroid, p.Diameter*logU(1, 10)
+		}
+		m := media4[rng.IntN(len(media4))]
+		s, err := Settle(p, m)
+		if err != nil {
+			if strings.Contains(err.Error(), "converge") {
+				t.Fatalf("%+v in %s: %v", p, m.Medium, err)
+			}
+			continue
+		}
+		if !(s.Speed >= 0) || math.IsInf(s.Speed, 0) || (s.Speed == 0) != (s.Direction == Held) {
+			t.Fatalf("%+v in %s: %s at %g m/s (%s)", p, m.Medium, s.Direction, s.Speed, s.Law)
 		}
 	}
 }
