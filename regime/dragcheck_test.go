@@ -240,3 +240,24 @@ func TestHolzerSommerfeld(t *testing.T) {
 		checkRel(t, fmt.Sprintf("H–S creeping spheroid %g:1", ar), hs, ProlateAxialStokesDrag(w.DynamicViscosity, u, b.Length, b.Diameter), 0.08)
 	}
 }
+
+// In a power-law fluid drag (calc) and settling use the same laws: at the
+// terminal speed settle finds, calc's drag on the same sphere equals the
+// buoyant weight, in creeping flow, across the join and beyond it.
+func TestPowerLawSettleMatchesCalc(t *testing.T) {
+	m := measured(media.PowerLaw{K: 0.1, N: 0.6}, 1000, 1e-6, 1e9)
+	for _, d := range []float64{1e-4, 1e-3, 3e-3, 1e-2} {
+		s, err := Settle(Particle{Shape: Sphere, Diameter: d, Density: 2500}, m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := Calc(NewOrganism(Body{Shape: Sphere, Length: d}, s.Speed), m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if r.Drag.Chosen.Law != s.Law {
+			t.Errorf("d %g: settle %q, calc %q", d, s.Law, r.Drag.Chosen.Law)
+		}
+		checkRel(t, fmt.Sprintf("d %g m (Re %.3g): calc drag / weight", d, s.Reynolds), r.Drag.Chosen.Force, s.Force, 1e-9)
+	}
+}
