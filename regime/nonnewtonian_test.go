@@ -18,12 +18,23 @@ func measured(m media.Model, rho, lo, hi float64) media.Properties {
 }
 
 // X(n) of Renaud, Mauret & Chhabra (2004): exactly 1 for a Newtonian fluid;
-// against the numerical results tabulated by Chhabra (2007) (recalled from
-// memory, approximate): about 1.24 at n = 0.8, 1.38 at 0.6, 1.42–1.46 at
-// 0.4–0.5.
+// its largest value is the published bound "the drag on a sphere in a
+// power-law fluid may be up to 46 per cent higher than that in a Newtonian
+// fluid at the same particle Reynolds number" (Coulson & Richardson's
+// Chemical Engineering, vol. 2, ch. 3, power-law fluids, with Chhabra's
+// Y(n) in Table 3.9): max X = 1.46 ± 0.01 over 0.1 ≤ n ≤ 1. Against the
+// numerical results tabulated by Chhabra (2007) (recalled from memory,
+// approximate): about 1.24 at n = 0.8, 1.38 at 0.6, 1.42–1.46 at 0.4–0.5.
 func TestRenaudX(t *testing.T) {
 	if RenaudX(1) != 1 {
 		t.Errorf("X(1) = %v, want exactly 1", RenaudX(1))
+	}
+	maxX := 0.0
+	for n := 0.1; n <= 1; n += 0.001 {
+		maxX = math.Max(maxX, RenaudX(n))
+	}
+	if math.Abs(maxX-1.46) > 0.01 {
+		t.Errorf("max X(n) = %.4f, want 1.46 (up to 46 %% above Newtonian)", maxX)
 	}
 	for _, c := range []struct{ n, x, tol float64 }{{0.8, 1.24, 0.03}, {0.6, 1.38, 0.03}, {0.4, 1.44, 0.03}} {
 		checkRel(t, "X(n)", RenaudX(c.n), c.x, c.tol)

@@ -99,7 +99,9 @@ func TestSphereLawsAgainstStandardCurve(t *testing.T) {
 // Haider & Levenspiel (1989): at sphericity 1 their general correlation
 // should agree with their own sphere fit,
 // C_D = 24/Re (1 + 0.1806 Re^0.6459) + 0.4251/(1 + 6880.95/Re)
-// (both recalled from memory of the paper), and with the standard curve.
+// (as given by Barati et al. 2014, Powder Technol. 257, 11, and the fluids
+// library's Haider_Levenspiel; the general correlation's coefficients as in
+// the ANSYS Fluent 12.0 Theory Guide, §15.3.2), and with the standard curve.
 // The general correlation is fitted to many shapes, so at φ = 1 it runs up
 // to 7 % above the sphere fit and 9 % above the standard curve (computed);
 // the bounds, 8 % and 10 %, catch a wrong coefficient, not fitting error.

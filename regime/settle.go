@@ -16,7 +16,14 @@ type Particle struct {
 	// ShearRate fixes the characteristic shear rate (1/s) in a
 	// non-Newtonian medium; 0 or NaN means U/d at terminal speed.
 	ShearRate float64
+	// A natural grain (Sphere shape, Diameter its nominal diameter): its
+	// Corey shape factor (0.2–1) and Powers roundness (0–6), for
+	// Dietrich's (1982) factors; 0 or NaN means a smooth sphere.
+	CoreyShape, Roundness float64
 }
+
+// natural reports whether the particle is a natural grain.
+func (p Particle) natural() bool { return p.CoreyShape > 0 || p.Roundness > 0 }
 
 // Directions of terminal motion.
 const (
@@ -68,14 +75,15 @@ func Cunningham(kn float64) float64 {
 
 // Settle returns the terminal speed of a particle in the fluid. It solves
 // the force balance C_D(Re)·Re² = (4/3)·Ar by bisection in ln Re with a drag
-// law continuous in Re: Clift–Gauvin (1970) for a sphere, Haider–Levenspiel
-// (1989) for a spheroid (on the equal-volume sphere). In a gas the drag is
-// divided by the Cunningham slip factor.
+// law continuous in Re: [SphereCD], the sphere laws [Drag] chooses, for a
+// sphere; Haider–Levenspiel (1989) for a spheroid (on the equal-volume
+// sphere). In a gas the drag is divided by the Cunningham slip factor.
 //
 // In a non-Newtonian medium the viscosity is the apparent viscosity at the
 // particle's shear rate U/d (the convention of Chhabra 2007; some authors
-// use 2U/d), found by fixed-point iteration on U. A sphere in a power-law
-// fluid in creeping flow uses the X(n) correction instead ([RenaudX]). In a
+// use 2U/d), and U is found by bisection in ln U on drag − weight; a
+// sphere in a power-law fluid takes the same laws as [Drag] (the X(n)
+// creeping-flow law, [RenaudX], joined to the sphere laws). In a
 // yield-stress fluid a sphere with Y_g = 3τ_y/(d Δρ g) ≥ 0.143 is held
 // (Beris et al. 1985): Direction is Held and Speed 0.
 func Settle(p Particle, m media.Properties) (Settling, error) {
@@ -84,9 +92,15 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 		return Settling{}, err
 	}
 	var s Settling
-	if m.Newtonian() {
+	switch {
+	case p.natural() && !m.Newtonian():
+		return s, fmt.Errorf("regime: Dietrich's natural-grain factors are for Newtonian water and air; give a sphere in a non-Newtonian medium")
+	case m.Newtonian():
 		s, err = sp.solve(m.DynamicViscosity)
-	} else {
+		if err == nil && p.natural() {
+			s = sp.naturalGrain(s)
+		}
+	default:
 		s, err = sp.nonNewtonian()
 	}
 	if err == nil && (math.IsInf(s.Speed, 0) || math.IsNaN(s.Speed) || math.IsInf(s.Force, 0)) {
@@ -115,13 +129,21 @@ func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 		return nil, fmt.Errorf("regime: particle density must be positive, got %g kg/m³", p.Density)
 	}
 	sp := &settleProblem{p: p, m: m, d: p.Diameter, phi: 1, drho: p.Density - m.Density,
-		law: "Clift–Gauvin", source: "Clift & Gauvin 1970; in Clift, Grace & Weber 1978", basis: "diameter", cd: CliftGauvinCD, reMax: 3e5}
+		law: "sphere laws", source: "Stokes 1851; Proudman & Pearson 1957; " + srcCGW, basis: "diameter", cd: SphereCD, reMax: 1e6}
 	if math.Abs(sp.drho) <= 1e-5*m.Density { // equal within the medium density's own accuracy
 		return nil, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, m.Density)
 	}
 	switch p.Shape {
 	case Sphere, "":
+		if p.natural() {
+			if err := checkGrain(p.CoreyShape, p.Roundness); err != nil {
+				return nil, err
+			}
+		}
 	case Spheroid:
+		if p.natural() {
+			return nil, fmt.Errorf("regime: a particle is either a spheroid (length and diameter) or a natural grain (Corey shape factor and roundness), not both")
+		}
 		if !(p.Length >= p.Diameter) || math.IsInf(p.Length, 0) {
 			return nil, fmt.Errorf("regime: a spheroid's length must be at least its diameter")
 		}
@@ -178,6 +200,9 @@ func (sp *settleProblem) solve(mu float64) (Settling, error) {
 	s.Reynolds = math.Exp((lo + hi) / 2)
 	s.Speed = s.Reynolds * mu / (rhoF * d)
 	s.Coefficient = sp.cd(s.Reynolds) / s.Cunningham
+	if sp.phi == 1 {
+		s.Law = sphereLawName(s.Reynolds)
+	}
 	s.StokesSpeed = s.Cunningham * math.Abs(sp.drho) * g * d * d / (18 * mu)
 	if s.Reynolds > sp.reMax {
 		s.Warnings = append(s.Warnings, warnf(WarnLawOutOfRange, "settling: %s used at Re = %.3g, above its published range Re ≤ %g", s.Law, s.Reynolds, sp.reMax))
@@ -202,22 +227,8 @@ func (sp *settleProblem) nonNewtonian() (Settling, error) {
 			return s, nil
 		}
 	}
-	var s Settling
-	var err error
-	if k, n, ok := powerLawPart(rh); ok && yieldStress(rh) == 0 && sp.p.Shape != Spheroid {
-		// Creeping flow: 3πK Uⁿ d^(2−n) X(n) = Δρ g π d³/6.
-		u := math.Pow(math.Abs(sp.drho)*media.StandardGravity*math.Pow(d, 1+n)/(18*k*RenaudX(n)), 1/n)
-		if re := m.Density * math.Pow(u, 2-n) * math.Pow(d, n) / k; re <= 0.1 {
-			s = sp.base()
-			s.Speed, s.Reynolds = u, re
-			s.Law, s.Source, s.Basis = "creeping flow in a power-law fluid", "Renaud, Mauret & Chhabra 2004 (X(n) correction)", "diameter, on η(U/d)"
-			s.Coefficient = 24 / re * RenaudX(n)
-			s.StokesSpeed = u
-			return sp.finishNN(s), nil
-		}
-	}
 	if g := sp.p.ShearRate; g > 0 {
-		s, err = sp.solve(rh.ApparentViscosity(g))
+		s, err := sp.solve(rh.ApparentViscosity(g))
 		if err != nil {
 			return s, err
 		}
@@ -225,28 +236,82 @@ func (sp *settleProblem) nonNewtonian() (Settling, error) {
 		s.ShearRate, s.Viscosity = g, rh.ApparentViscosity(g)
 		return s, nil
 	}
-	// Fixed point on U with the apparent viscosity at U/d.
-	mu := m.DynamicViscosity
-	u := math.NaN()
-	for range 300 {
-		s, err = sp.solve(mu)
+	return sp.bracketed()
+}
+
+// bracketed finds the terminal speed in a non-Newtonian medium, with the
+// viscosity the apparent viscosity at U/d, by bisection in ln U between
+// 1e-18 and 1e4 m/s on drag(U) − buoyant weight; the drag rises with U,
+// so a root between the ends is found whenever one exists.
+func (sp *settleProblem) bracketed() (Settling, error) {
+	weight := sp.base().Force
+	excess := func(lnU float64) (float64, Estimate, error) {
+		e, err := sp.dragAt(math.Exp(lnU))
+		return e.Force - weight, e, err
+	}
+	lo, hi := math.Log(1e-18), math.Log(1e4)
+	fLo, _, err := excess(lo)
+	if err != nil {
+		return Settling{}, err
+	}
+	if fLo >= 0 {
+		s := sp.base()
+		s.Direction, s.Speed, s.Reynolds, s.Coefficient, s.StokesSpeed = Held, 0, 0, math.NaN(), 0
+		s.Law, s.Source = "held by the yield stress", "apparent-viscosity drag at vanishing speed exceeds the buoyant weight"
+		s = sp.finishNN(s)
+		s.Warnings = append(s.Warnings, warnf(WarnModel, "settling: Y_g = %.3g is below Beris et al.'s (1985) critical 0.143, yet the drag at the apparent viscosity already exceeds the buoyant weight at vanishing speed: the particle is held or creeps too slowly to compute", s.YieldParameter))
+		return s, nil
+	}
+	if fHi, _, err := excess(hi); err != nil || fHi < 0 {
+		return Settling{}, fmt.Errorf("regime: the terminal speed in this medium is above 1e4 m/s; check the units of size and density")
+	}
+	for range 200 {
+		mid := (lo + hi) / 2
+		f, _, err := excess(mid)
 		if err != nil {
-			return s, err
+			return Settling{}, err
 		}
-		if !math.IsNaN(u) && math.Abs(math.Log(s.Speed/u)) < 1e-10 {
-			return sp.finishNN(s), nil
-		}
-		if math.IsNaN(u) {
-			u = s.Speed
+		if f > 0 {
+			hi = mid
 		} else {
-			u = math.Sqrt(u * s.Speed) // damped: geometric mean of old and new
-		}
-		mu = rh.ApparentViscosity(u / d)
-		if !(mu > 0) || math.IsInf(mu, 0) {
-			return s, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/d)
+			lo = mid
 		}
 	}
-	return s, fmt.Errorf("regime: the settling speed in this non-Newtonian medium did not converge")
+	u := math.Exp((lo + hi) / 2)
+	e, _ := sp.dragAt(u)
+	s := sp.base()
+	s.Speed, s.Reynolds, s.Law, s.Source, s.Basis = u, e.Reynolds, e.Law, e.Source, e.Basis
+	s.Coefficient = e.Force / (0.5 * sp.m.Density * u * u * frontalSphere(sp.d))
+	mu := sp.m.ApparentViscosity(u / sp.d)
+	s.Archimedes = sp.m.Density * math.Abs(sp.drho) * media.StandardGravity * sp.d * sp.d * sp.d / (mu * mu)
+	s.StokesSpeed = math.Abs(sp.drho) * media.StandardGravity * sp.d * sp.d / (18 * mu)
+	return sp.finishNN(s), nil
+}
+
+// dragAt returns the drag on the particle at speed u in a non-Newtonian
+// medium, with the apparent viscosity at u/d: by the sphere laws of [Drag]
+// (a pure power-law fluid takes its creeping-flow law and the join beyond)
+// for a sphere, by Haider–Levenspiel on the equal-volume sphere for a
+// spheroid.
+func (sp *settleProblem) dragAt(u float64) (Estimate, error) {
+	rh := sp.m.Rheology
+	mu := rh.ApparentViscosity(u / sp.d)
+	if !(mu > 0) || math.IsInf(mu, 0) {
+		return Estimate{}, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/sp.d)
+	}
+	f := Flow{Speed: u, Density: sp.m.Density, Viscosity: mu}
+	if pl, ok := model(rh).(media.PowerLaw); ok {
+		f.PowerLawK, f.PowerLawN = pl.K, pl.N
+	}
+	if sp.phi == 1 {
+		var res DragResult
+		err := dragInto(&res, Body{Shape: Sphere, Length: sp.d}, f, false)
+		return res.Chosen, err
+	}
+	re := f.Density * u * sp.d / mu
+	cd := sp.cd(re)
+	return Estimate{Law: sp.law, Source: sp.source, Basis: sp.basis, Reynolds: re, Coefficient: cd,
+		Force: 0.5 * f.Density * u * u * cd * frontalSphere(sp.d)}, nil
 }
 
 func (sp *settleProblem) finishNN(s Settling) Settling {
@@ -260,6 +325,24 @@ func (sp *settleProblem) finishNN(s Settling) Settling {
 	}
 	if w := m.ExtrapolationWarning(s.ShearRate); w != nil {
 		s.Warnings = append(s.Warnings, *w)
+	}
+	return s
+}
+
+// naturalGrain applies Dietrich's (1982) shape and roundness factors to the
+// sphere's terminal motion s (see [DietrichShapeFactor]).
+func (sp *settleProblem) naturalGrain(s Settling) Settling {
+	m, d, p := sp.m, sp.d, sp.p
+	nu := m.DynamicViscosity / m.Density
+	dStar := math.Abs(sp.drho) * media.StandardGravity * d * d * d / (m.Density * nu * nu)
+	s.Speed *= math.Cbrt(DietrichShapeFactor(dStar, p.CoreyShape, p.Roundness))
+	s.Reynolds = s.Speed * d / nu
+	s.Coefficient = s.Force / (0.5 * m.Density * s.Speed * s.Speed * frontalSphere(d))
+	s.Law = fmt.Sprintf("%s with Dietrich's shape and roundness factors (CSF %.3g, P %.3g)", s.Law, p.CoreyShape, p.Roundness)
+	s.Source += "; Dietrich 1982, Water Resour. Res. 18, 1615"
+	s.Basis = "nominal diameter"
+	if dStar < dietrichDStarMin || dStar > dietrichDStarMax {
+		s.Warnings = append(s.Warnings, warnf(WarnLawOutOfRange, "settling: D* = %.3g is outside 0.05–5e9, the range of Dietrich's (1982) data; his shape and roundness factors are held at the nearest end", dStar))
 	}
 	return s
 }

@@ -85,9 +85,10 @@ const NewtonCD = 0.44
 //
 // Reference: Haider, A. & Levenspiel, O. (1989), Drag coefficient and
 // terminal velocity of spherical and nonspherical particles, Powder Technol.
-// 58, 63–70. (Coefficients recalled from memory of the paper; at phi = 1
-// they agree with the authors' own sphere fit to a few per cent, see the
-// tests.)
+// 58, 63–70, eqs. 10–11. The coefficients were checked against the form
+// and coefficients reproduced in the ANSYS Fluent 12.0 Theory Guide (2009),
+// §15.3.2, eqs. 15.3-2 and 15.3-3 (identical); at phi = 1 they agree with
+// the authors' own sphere fit to a few per cent (see the tests).
 func HaiderLevenspielCD(re, phi float64) float64 {
 	a := math.Exp(2.3288 - 6.4581*phi + 2.4486*phi*phi)
 	b := 0.0964 + 0.5565*phi

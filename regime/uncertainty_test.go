@@ -82,8 +82,12 @@ func TestRegimeProbabilityAtBoundary(t *testing.T) {
 	if p := lin.RegimeProbability[RegimeViscous]; math.Abs(p-0.5) > 0.01 {
 		t.Errorf("linear P(viscous) = %.3f, want 0.5", p)
 	}
-	if len(mc.LawProbability) < 2 {
-		t.Errorf("law probabilities %v: both Proudman–Pearson and the standard curve expected", mc.LawProbability)
+	// The sphere laws hand over at Re = 0.5 (Proudman–Pearson to the
+	// standard curve): there both laws must be drawn.
+	in[1].Value = 0.5 * u
+	atJoin, _ := MonteCarlo(in, eval, 4000, 7)
+	if len(atJoin.LawProbability) < 2 {
+		t.Errorf("law probabilities %v: both Proudman–Pearson and the standard curve expected", atJoin.LawProbability)
 	}
 }
 

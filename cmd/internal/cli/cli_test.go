@@ -133,7 +133,7 @@ func TestCalcJSONFish(t *testing.T) {
 		t.Errorf("reynolds %g", re)
 	}
 	drag := m["drag"].(map[string]any)
-	if drag["law"] != "skin friction, laminar (Blasius)" || len(drag["estimates"].([]any)) < 2 {
+	if drag["law"] != "skin friction, turbulent on animal bodies" || len(drag["estimates"].([]any)) < 2 {
 		t.Errorf("drag %v", drag)
 	}
 	if p := num(t, m, "power", "total_W"); math.Abs(p/(num(t, m, "drag", "force_N")*0.6)-1) > 1e-12 {
@@ -339,7 +339,7 @@ func TestSweepBoundaries(t *testing.T) {
 	var stokesMax float64
 	for _, l := range regime.Laws {
 		if l.Name == "Stokes" {
-			stokesMax = l.ReMax
+			stokesMax = l.ChooseHi // where the sweep must mark the hand-over
 		}
 	}
 	seenLaw, seenRegime := false, false
