@@ -26,6 +26,7 @@ type Organism struct {
 	InducedFactor float64 // NaN means DefaultInducedFactor
 	ProfileCD     float64 // NaN means the attached-flow default
 	Disc          string  // DiscSpan (default) or DiscStroke
+	Gliding       bool    // a flyer with its wings held still: a glide, no flapping power
 	Diffusivity   float64 // solute diffusivity, m²/s; NaN means dissolved O₂ in water
 
 	// For non-Newtonian media: the characteristic shear rate (NaN means
@@ -47,6 +48,7 @@ const (
 	PowerTowing   = "towing"   // drag × speed, efficiency 1
 	PowerSwimming = "swimming" // drag × speed ÷ efficiency
 	PowerFlight   = "flight"   // induced + parasite + profile
+	PowerGliding  = "gliding"  // no flapping work: m g × sink speed, the rate height energy is spent
 )
 
 // Power is the power needed to move at the given speed.
@@ -220,6 +222,13 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			return err
 		}
 		r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
+		if o.Gliding {
+			r.Power.Kind = PowerGliding
+		} else if math.IsNaN(o.Frequency) {
+			note.add(&r.Warnings, WarnModel, func() string {
+				return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding)"
+			})
+		}
 		r.Warnings = append(r.Warnings, fp.Warnings...)
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
@@ -321,10 +330,28 @@ func (o Organism) flightInput(m media.Properties, viscosity float64, wings Wings
 	if math.IsNaN(k) {
 		k = DefaultInducedFactor
 	}
+	area, cd := bodyFrontal(o.Body)
 	return FlightInput{
 		Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: viscosity, InducedFactor: k,
-		Disc: o.Disc, Wings: wings, brief: !note,
+		Disc: o.Disc, Wings: wings, BodyArea: area, BodyCD: cd, Gliding: o.Gliding, brief: !note,
 	}
+}
+
+// bodyFrontal returns the frontal area (m²) of a flyer's body seen from
+// ahead, with the measured drag coefficient of a measured body on its own
+// area (0 otherwise: the bird body default applies).
+func bodyFrontal(b Body) (area, cd float64) {
+	switch b.Shape {
+	case Sphere:
+		return math.Pi * b.Length * b.Length / 4, 0
+	case Spheroid, Rod:
+		return math.Pi * b.Diameter * b.Diameter / 4, 0
+	case Cylinder: // broadside
+		return b.Length * b.Diameter, 0
+	case Measured:
+		return b.ReferenceArea, b.DragCoefficient
+	}
+	return 0, 0
 }
 
 // OrganismPowerCurve is [FlightPowerCurve] for a flying organism in air,
