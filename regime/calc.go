@@ -78,8 +78,9 @@ type Result struct {
 	ReducedFrequency float64
 	Drag             DragResult
 	Power            Power
-	CoastTime        float64 // s; only in the viscous regime
+	CoastTime        float64 // s; only in the viscous regime: the time to stop if CoastStops, else the time constant M U/F
 	CoastDistance    float64 // m
+	CoastStops       bool    // the body stops in finite time (shear-thinning power law, yield stress)
 	Peclet           float64
 	Diffusivity      float64 // m²/s
 	Warnings         []Warning
@@ -256,7 +257,14 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			mass = m.Density * vol // neutrally buoyant when no mass is given
 		}
 		if !math.IsNaN(mass) && !math.IsNaN(vol) {
-			r.CoastTime, r.CoastDistance = Coasting(mass+0.5*m.Density*vol, o.Speed, dr.Chosen.Force)
+			c := coast(m, r.ShearRate, mass+0.5*m.Density*vol, o.Speed, dr.Chosen.Force)
+			r.CoastTime, r.CoastDistance, r.CoastStops = c.Time, c.Distance, c.Stops
+			if math.IsInf(c.Distance, 0) {
+				r.CoastDistance = math.NaN()
+				note.add(&r.Warnings, WarnModel, func() string {
+					return "coasting: in this shear-thickening fluid creeping-flow drag falls off so fast at low speed that the coasting distance has no bound; none is given"
+				})
+			}
 		}
 	}
 	switch {
@@ -276,6 +284,24 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		return fmt.Errorf("regime: the result is not a number; check the inputs")
 	}
 	return nil
+}
+
+// coast coasts a body of effective mass mEff from speed u against the
+// creeping-flow drag force at u, taking the drag to scale with speed as the
+// medium's stress at a shear rate proportional to speed (drag = geometry ×
+// apparent viscosity × speed): linear in a Newtonian fluid, U^n in a power
+// law, a yield force plus a rate term in a yield-stress fluid.
+func coast(m *media.Properties, shearRate, mEff, u, force float64) Coast {
+	if m.Newtonian() {
+		tau, d := Coasting(mEff, u, force)
+		return Coast{Time: tau, Distance: d}
+	}
+	if pl, ok := model(m.Rheology).(media.PowerLaw); ok {
+		return CoastingPowerLaw(mEff, u, force, pl.N)
+	}
+	stress := func(s float64) float64 { return m.ApparentViscosity(shearRate*s) * s }
+	s1 := stress(1)
+	return CoastingDrag(mEff, u, force, func(s float64) float64 { return stress(s) / s1 }, yieldStress(m.Rheology) > 0)
 }
 
 // optionalNames name the optional values in the order calc checks them.

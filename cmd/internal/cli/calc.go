@@ -302,11 +302,20 @@ func calcFields(r regime.Result) []report.Field {
 		report.Maybe("bingham_number", "Bingham number", r.BinghamNumber, 4),
 		report.Maybe("deborah", "Deborah number", r.Deborah, 3),
 		report.Maybe("weissenberg", "Weissenberg number", r.Weissenberg, 3),
-		report.Maybe("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3),
+		report.Maybe("coasting_time_s", coastTimeLabel(r.CoastStops), r.CoastTime, 3),
 		report.Maybe("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3),
 		report.Maybe("peclet", "Péclet number (on --length)", r.Peclet, 3),
 		report.Maybe("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3),
 	)
+}
+
+// coastTimeLabel says whether the coasting time is a time to stop or the
+// time constant of a speed that decays without stopping.
+func coastTimeLabel(stops bool) string {
+	if stops {
+		return "coasting: time to stop (s)"
+	}
+	return "coasting time after stopping (s)"
 }
 
 // powerFields are the power lines: a glide shows its sink speed and glide

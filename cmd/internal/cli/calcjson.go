@@ -24,6 +24,7 @@ type calcJSON struct {
 	Power            powerJSON        `json:"power"`
 	CoastTime        *float64         `json:"coasting_time_s,omitempty"`
 	CoastDistance    *float64         `json:"coasting_distance_m,omitempty"`
+	CoastStops       *bool            `json:"coasting_stops,omitempty"`
 	Peclet           *float64         `json:"peclet,omitempty"`
 	GeneralizedRe    *float64         `json:"generalized_reynolds,omitempty"`
 	BinghamNumber    *float64         `json:"bingham_number,omitempty"`
@@ -183,6 +184,9 @@ func newCalcJSON(r regime.Result) calcJSON {
 		j.Power.ChordReynolds = report.Opt(f.ChordReynolds)
 		j.Power.ProfileMethod, j.Power.ProfileRatio, j.Power.BodyCD = f.ProfileMethod, report.Opt(f.ProfileRatio), report.Opt(f.BodyDragCoefficient)
 		j.Power.SinkSpeed, j.Power.GlideRatio = report.Opt(f.SinkSpeed), report.Opt(f.GlideRatio)
+	}
+	if !math.IsNaN(r.CoastTime) {
+		j.CoastStops = &r.CoastStops
 	}
 	if !r.Medium.Newtonian() {
 		j.Medium.ShearRate, j.Medium.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)
