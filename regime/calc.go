@@ -270,8 +270,13 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	switch {
 	case !math.IsNaN(o.Diffusivity):
 		r.Diffusivity = o.Diffusivity
-	case m.Medium == media.KindFreshWater || m.Medium == media.KindSeawater:
-		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivity25C, m.TemperatureC, r.Viscosity)
+	case m.Medium == media.KindFreshWater:
+		r.Diffusivity = OxygenDiffusivityWater(m.TemperatureC)
+	case m.Medium == media.KindSeawater:
+		// Sea water's viscosity is pure water's at the same temperature and
+		// pressure times the Sharqawy et al. factor, so that factor alone is
+		// the viscosity ratio.
+		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivityWater(m.TemperatureC), 1, media.SeawaterViscosity(1, m.TemperatureC, m.SalinityAbsolute))
 	}
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)

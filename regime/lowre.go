@@ -6,22 +6,25 @@ import (
 	"gonum.org/v1/gonum/integrate/quad"
 )
 
-// OxygenDiffusivity25C is the diffusivity of dissolved oxygen in water at
-// 25 °C, 2.10e-9 m²/s (Cussler, E. L. (2009), Diffusion: Mass Transfer in
-// Fluid Systems, 3rd ed., Cambridge, Table 5.2-1; recalled from memory;
-// other compilations give 2.0–2.4e-9).
-const OxygenDiffusivity25C = 2.10e-9
-
-// water25Viscosity is pure water at 25 °C and 101325 Pa by IAPWS R12-08,
-// Pa·s, the reference for Stokes–Einstein scaling.
-const water25Viscosity = 0.00089002
-
-// StokesEinsteinScale returns a diffusivity d25 known at 25 °C in pure water
-// scaled to temperature tC and viscosity mu by the Stokes–Einstein relation
-// D ∝ T/μ (Einstein 1905, Ann. Phys. 17, 549).
-func StokesEinsteinScale(d25, tC, mu float64) float64 {
-	return d25 * (tC + 273.15) / 298.15 * water25Viscosity / mu
+// OxygenDiffusivityWater returns the diffusivity (m²/s) of dissolved oxygen
+// in pure water at tC °C from the interpolation formula of Han, P. &
+// Bartels, D. M. (1996), Temperature dependence of oxygen diffusion in H2O
+// and D2O, J. Phys. Chem. 100, 5597–5602 (Taylor dispersion, −0.5 to
+// 95 °C): log10(D / cm² s⁻¹) = −4.410 + 773.8/T − (506.4/T)², T in K. It
+// gives 2.00e-9 m²/s at 25 °C; the Wilke & Chang (1955) correlation, good to
+// about ±10 %, gives 1.97e-9 at 20 °C with association parameter 2.26
+// (this formula: 1.76e-9) and 2.42e-9 at 25 °C with 2.6.
+func OxygenDiffusivityWater(tC float64) float64 {
+	t := tC + 273.15
+	x := 506.4 / t
+	return 1e-4 * math.Exp(math.Ln10*(-4.410+773.8/t-x*x))
 }
+
+// StokesEinsteinScale returns a diffusivity d known in a solvent of
+// viscosity mu0 scaled to viscosity mu at the same temperature, D ∝ 1/μ
+// (Einstein 1905, Ann. Phys. 17, 549), as for oxygen in sea water from its
+// value in pure water.
+func StokesEinsteinScale(d, mu0, mu float64) float64 { return d * mu0 / mu }
 
 // Peclet returns Pe = U L / D.
 func Peclet(u, l, d float64) float64 { return u * l / d }
