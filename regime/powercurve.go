@@ -92,6 +92,7 @@ type PowerCurve struct {
 	Points                     []CurvePoint
 	Hover                      float64 // W, total power at zero speed; NaN for a glide
 	Gliding                    bool
+	ProfileMethod              string  // how profile power was found ([FlightPower].ProfileMethod)
 	Weight                     float64 // N, m g: P/W is the sink speed of a glide
 	MinPowerSpeed, MinPower    float64 // m/s, W
 	MaxRangeSpeed, MinCostOfTr float64 // m/s, J/m: the minimum of P/V
@@ -138,6 +139,7 @@ func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, er
 			return pc, err
 		}
 		pc.Points = append(pc.Points, CurvePoint{v, fp.Induced, fp.Parasite, fp.Profile, fp.Total})
+		pc.ProfileMethod = fp.ProfileMethod
 	}
 	find := func(g func(float64) float64, name string) (float64, float64) {
 		best := 0

@@ -24,7 +24,9 @@ func newPowerCurveCmd(s Streams) *cobra.Command {
 		Long: `Compute the mechanical power of level flight (induced + parasite + profile,
 as in calc) from --from to --to, the power in hover, the speed of minimum
 power and the speed of maximum range (minimum power per unit speed, the
-cost of transport), both found by Brent's 1-D minimiser.` + "\n\n" + estimateNotice,
+cost of transport), both found by Brent's 1-D minimiser. With --gliding the
+animal does no flapping work: the table gives the sink speed and glide
+ratio, and the summary the speeds of minimum sink and best glide.` + "\n\n" + estimateNotice,
 		Example: `  flowregime powercurve --length 16cm --diameter 3.5cm --mass 40g --span 42cm --chord 4cm --freq 8Hz --amplitude 20cm --medium air`,
 		Args:    cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
@@ -87,9 +89,10 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 			MinPower      float64  `json:"min_power_W"`
 			MaxRangeSpeed float64  `json:"max_range_speed_m_s"`
 			CostOfTr      float64  `json:"min_cost_of_transport_J_m"`
+			ProfileMethod string   `json:"profile_method"`
 			Points        []pt     `json:"points"`
 			Warnings      []string `json:"warnings"`
-		}{pc.Hover, pc.MinPowerSpeed, pc.MinPower, pc.MaxRangeSpeed, pc.MinCostOfTr, ps, nonNil(warningTexts(pc.Warnings))})
+		}{pc.Hover, pc.MinPowerSpeed, pc.MinPower, pc.MaxRangeSpeed, pc.MinCostOfTr, pc.ProfileMethod, ps, nonNil(warningTexts(pc.Warnings))})
 	}
 	var rows [][]string
 	for _, p := range pc.Points {
@@ -106,6 +109,7 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 		fmt.Sprintf("hover: %s W", report.Num(pc.Hover, 4)),
 		fmt.Sprintf("minimum power: %s W at %s m/s", report.Num(pc.MinPower, 4), report.Num(pc.MinPowerSpeed, 4)),
 		fmt.Sprintf("maximum range: %s J/m at %s m/s", report.Num(pc.MinCostOfTr, 4), report.Num(pc.MaxRangeSpeed, 4)),
+		"profile power: " + pc.ProfileMethod,
 	})
 	report.List(s.Out, "Warnings", warningTexts(pc.Warnings))
 	return nil
@@ -151,6 +155,7 @@ func writeGlidePolar(pc regime.PowerCurve, format string, s Streams) error {
 		"gliding: no flapping power",
 		fmt.Sprintf("minimum sink: %s m/s at %s m/s", report.Num(minSink, 4), report.Num(pc.MinPowerSpeed, 4)),
 		fmt.Sprintf("best glide: ratio %s at %s m/s", report.Num(bestRatio, 4), report.Num(pc.MaxRangeSpeed, 4)),
+		"profile drag: " + pc.ProfileMethod,
 	})
 	report.List(s.Out, "Warnings", warningTexts(pc.Warnings))
 	return nil
