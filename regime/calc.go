@@ -231,6 +231,8 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			})
 		}
 		r.Warnings = append(r.Warnings, fp.Warnings...)
+	case o.Gliding:
+		return fmt.Errorf("regime: gliding needs a flyer in air with a mass and a wingspan")
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
 			note.add(&r.Warnings, WarnInconsistent, func() string {

@@ -166,3 +166,12 @@ func TestSwiftGlideRatio(t *testing.T) {
 	}
 	checkRel(t, "swift L/D at 9.5 m/s", r.Power.Flight.GlideRatio, 12.5, 0.25)
 }
+
+// Gliding is refused, not ignored, for what is not a flyer in air.
+func TestGlidingNeedsAFlyer(t *testing.T) {
+	o := NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, 1)
+	o.Gliding = true
+	if _, err := Calc(o, water20(t)); err == nil || !strings.Contains(err.Error(), "gliding needs a flyer") {
+		t.Errorf("a gliding fish: %v", err)
+	}
+}

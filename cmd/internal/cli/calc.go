@@ -2,6 +2,7 @@ package cli
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -208,6 +209,9 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 		return in, media.Properties{}, usageError{err}
 	}
 	in.Organism.Gliding = o.gliding
+	if og := in.Organism; o.gliding && (in.Conditions.Medium != media.KindAir || math.IsNaN(og.Mass) || math.IsNaN(og.Span)) {
+		return in, media.Properties{}, usagef("--gliding needs a flyer in air with --mass and --span")
+	}
 	m, err := media.Lookup(in.Conditions)
 	if err != nil {
 		return in, m, fmt.Errorf("%s", trimPkg(err))

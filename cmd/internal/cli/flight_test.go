@@ -33,4 +33,15 @@ func TestGlidingCommands(t *testing.T) {
 	if num(t, m, "best_glide_speed_m_s") <= num(t, m, "min_sink_speed_m_s") {
 		t.Errorf("best glide not above minimum sink speed: %s", out)
 	}
+	// --gliding for what cannot glide is a usage error, not ignored.
+	for _, bad := range [][]string{
+		{"calc", "--length", "30cm", "--diameter", "5cm", "--speed", "1m/s", "--gliding"},
+		{"calc", "--length", "30cm", "--diameter", "5cm", "--speed", "1m/s", "--medium", "air", "--mass", "1kg", "--gliding"},
+		{"powercurve", "--length", "30cm", "--diameter", "5cm", "--medium", "freshwater", "--mass", "1kg", "--span", "1m", "--gliding"},
+	} {
+		_, errs, code := run(t, bad...)
+		if code != ExitUsage || !strings.Contains(errs, "--gliding needs a flyer") || strings.Count(errs, "\n") > 1 {
+			t.Errorf("%v: exit %d, %q", bad, code, errs)
+		}
+	}
 }
