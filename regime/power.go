@@ -92,7 +92,8 @@ const DefaultInducedFactor = 1.15
 
 // BirdBodyDragCoefficient is the drag coefficient of a bird's body in
 // flight on its frontal area, 0.1: the default of Pennycuick, C. J. (2008),
-// Modelling the Flying Bird, Academic Press (ch. 4). Calibrations against
+// Modelling the Flying Bird, Academic Press (the default of his Flight
+// program, as its R re-implementations state). Calibrations against
 // the air speeds of 31 migrating species gave 0.060 (small waders) to 0.12
 // (mute swan) at Re 25 000–250 000 (Pennycuick, C. J., Åkesson, S. &
 // Hedenström, A. (2013), Air speeds of migrating birds observed by
@@ -109,9 +110,11 @@ const BirdBodyDragCoefficient = 0.1
 func BirdBodyFrontalArea(m float64) float64 { return 0.00813 * math.Pow(m, 0.666) }
 
 // Profile power ratio X1 = P_pro/P_am of Pennycuick's method: 8.4/AR
-// (Pennycuick 2008, ch. 3), or the constant 1.2 of Pennycuick, C. J.
-// (1975), Mechanics of flight, in Avian Biology vol. 5, Academic Press,
-// used when the aspect ratio is unknown.
+// (Pennycuick 2008, ch. 3, Mechanics of level flight), or the constant 1.2
+// of his earlier versions (Pennycuick, C. J. (1975), Mechanics of flight,
+// in Avian Biology vol. 5, Academic Press; the year recalled from memory),
+// used when the aspect ratio is unknown. Both as given by the R
+// re-implementations of his method (package "flying", Masinde).
 const (
 	ProfilePowerConstant  = 8.4
 	ProfilePowerRatioFlat = 1.2
@@ -134,7 +137,8 @@ const GlideProfileCD = 0.026
 //
 //	P_am = 1.0517 k^¾ (mg)^{3/2} (S_bC_Db)^¼ / (ρ^½ b^{3/2}),
 //
-// 1.0517 = 8/(3π·0.807); Pennycuick (2008, ch. 3) prints 0.807 and 1.05.
+// 1.0517 = 8/(3π·0.807); Pennycuick (2008, ch. 3, Box 3.3) prints 0.807
+// and 1.05 (as cited by the R re-implementations; both derived here).
 func AbsoluteMinimumPower(mass, span, rho, k, flatPlate float64) float64 {
 	w := mass * media.StandardGravity
 	c := 8 / (3 * math.Pi * math.Pow(4/(3*math.Pi), 0.25))
