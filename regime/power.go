@@ -280,7 +280,11 @@ func profilePower(fp *FlightPower, in FlightInput, w Wings, flatPlate float64, n
 		}
 		fp.ProfileMethod, fp.ProfileRatio = ProfileRatioFlat, ProfilePowerRatioFlat
 		note.add(&fp.Warnings, WarnModel, func() string {
-			return "flight: no wing area or chord, so profile power is Pennycuick's 1.2 × absolute minimum power (1975); give the wing area for the 8.4/AR ratio"
+			unused := ""
+			if given {
+				unused = " (the profile-drag coefficient given needs the wing area and is not used)"
+			}
+			return "flight: no wing area or chord, so profile power is Pennycuick's 1.2 × absolute minimum power (1975); give the wing area for the 8.4/AR ratio" + unused
 		})
 	case in.Gliding:
 		fp.ProfileMethod, fp.ProfileCD = ProfileGlide, w.ProfileCD
