@@ -228,6 +228,20 @@ func Flight(in FlightInput) (FlightPower, error) {
 	fp.HoverInduced = k * thrust * fp.HoverVelocity
 	fp.InducedVelocity = InducedVelocity(thrust, in.Density, fp.DiscArea, in.Speed)
 	fp.Induced = k * thrust * fp.InducedVelocity
+	flatPlate := parasitePower(&fp, in, note)
+	fp.Profile = profilePower(&fp, in, w, flatPlate, note)
+	fp.Total = fp.Induced + fp.Parasite + fp.Profile
+	if in.Gliding {
+		fp.SinkSpeed = fp.Total / thrust
+		fp.GlideRatio = in.Speed / fp.SinkSpeed
+	}
+	return fp, nil
+}
+
+// parasitePower sets the body's frontal area, drag coefficient and parasite
+// power in fp, and returns the bird-body flat-plate area S_bC_Db that
+// Pennycuick's absolute minimum power is on.
+func parasitePower(fp *FlightPower, in FlightInput, note noter) (flatPlate float64) {
 	fp.BodyArea, fp.BodyDragCoefficient = in.BodyArea, in.BodyCD
 	if !(fp.BodyArea > 0) {
 		fp.BodyArea = BirdBodyFrontalArea(in.Mass)
@@ -238,7 +252,7 @@ func Flight(in FlightInput) (FlightPower, error) {
 	if !(fp.BodyDragCoefficient > 0) {
 		fp.BodyDragCoefficient = BirdBodyDragCoefficient
 	}
-	flatPlate := fp.BodyArea * fp.BodyDragCoefficient
+	flatPlate = fp.BodyArea * fp.BodyDragCoefficient
 	if q := 0.5 * in.Density * in.Speed * in.Speed; q > 0 {
 		drag := in.Drag
 		if in.BodyDrag != nil {
@@ -249,13 +263,7 @@ func Flight(in FlightInput) (FlightPower, error) {
 		}
 		fp.Parasite = q * fp.BodyArea * fp.BodyDragCoefficient * in.Speed
 	}
-	fp.Profile = profilePower(&fp, in, w, flatPlate, note)
-	fp.Total = fp.Induced + fp.Parasite + fp.Profile
-	if in.Gliding {
-		fp.SinkSpeed = fp.Total / thrust
-		fp.GlideRatio = in.Speed / fp.SinkSpeed
-	}
-	return fp, nil
+	return flatPlate
 }
 
 // profilePower chooses and applies the profile power method, recording it
