@@ -118,6 +118,12 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if !(o.Speed > 0) || math.IsInf(o.Speed, 0) {
 		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
+	zeroBeat := o.Frequency == 0 && isFlyer(o, m)
+	if zeroBeat { // a flyer with a wingbeat frequency of 0 glides (said in the warnings below)
+		g := *o
+		g.Frequency, g.Gliding = math.NaN(), true
+		o = &g
+	}
 	for i, v := range [...]float64{o.Frequency, o.Amplitude, o.Mass, o.Span, o.WingLength, o.Chord, o.WingArea,
 		o.StrokeAngle, o.Diffusivity, o.ShearRate, o.RelaxationTime} {
 		if v == v && !(v > 0 && v <= math.MaxFloat64) { // given (not NaN) and not positive and finite
@@ -125,6 +131,11 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		}
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
+	if zeroBeat {
+		note.add(&r.Warnings, WarnModel, func() string {
+			return "flight: a wingbeat frequency of 0 is taken as gliding: no flapping power"
+		})
+	}
 	l := ChoiceLength(o.Body) // the diameter of a sphere or cylinder, the length of other bodies
 	r.ShearRate = o.Speed / l
 	if !math.IsNaN(o.ShearRate) {
@@ -213,9 +224,8 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	r.Warnings = append(r.Warnings, dr.Warnings...)
 
 	// Power.
-	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 	switch {
-	case flyer:
+	case isFlyer(o, m):
 		in := o.flightInput(*m, r.Viscosity, wings, note)
 		in.Drag = dr.Chosen.Force // at this speed, already computed
 		fp, err := Flight(in)
@@ -223,11 +233,17 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			return err
 		}
 		r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
-		if o.Gliding {
+		switch {
+		case o.Gliding && !math.IsNaN(o.Frequency):
 			r.Power.Kind = PowerGliding
-		} else if math.IsNaN(o.Frequency) {
+			note.add(&r.Warnings, WarnInconsistent, func() string {
+				return "inputs: a gliding flyer with a wingbeat frequency: the frequency is not used for power"
+			})
+		case o.Gliding:
+			r.Power.Kind = PowerGliding
+		case math.IsNaN(o.Frequency):
 			note.add(&r.Warnings, WarnModel, func() string {
-				return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding)"
+				return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding, a table a wingbeat frequency of 0)"
 			})
 		}
 		r.Warnings = append(r.Warnings, fp.Warnings...)
@@ -291,6 +307,12 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		return fmt.Errorf("regime: the result is not a number; check the inputs")
 	}
 	return nil
+}
+
+// isFlyer reports whether the organism gets flight power: in air, with a
+// mass and a wingspan.
+func isFlyer(o *Organism, m *media.Properties) bool {
+	return m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 }
 
 // coast coasts a body of effective mass mEff from speed u against the
@@ -396,6 +418,11 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	if err := o.Body.Validate(); err != nil {
 		return PowerCurve{}, err
 	}
+	var zeroBeat []Warning
+	if o.Frequency == 0 {
+		o.Frequency, o.Gliding = math.NaN(), true
+		zeroBeat = append(zeroBeat, warnf(WarnModel, "flight: a wingbeat frequency of 0 is taken as gliding: no flapping power"))
+	}
 	in := o.flightInput(m, m.DynamicViscosity, o.wings(), true)
 	in.BodyDrag = func(u float64) float64 { // from the drag laws at each speed
 		d, err := DragChosen(o.Body, Flow{Speed: u, Density: m.Density, Viscosity: m.DynamicViscosity})
@@ -408,6 +435,6 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	if err != nil {
 		return pc, err
 	}
-	pc.Warnings = append(m.Warnings, pc.Warnings...)
+	pc.Warnings = append(append(append([]Warning{}, m.Warnings...), zeroBeat...), pc.Warnings...)
 	return pc, nil
 }

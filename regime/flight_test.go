@@ -175,3 +175,38 @@ func TestGlidingNeedsAFlyer(t *testing.T) {
 		t.Errorf("a gliding fish: %v", err)
 	}
 }
+
+// A flyer with a wingbeat frequency of 0 glides, with a warning saying so
+// (the way a table row asks for a glide); a swimmer's 0 is still refused.
+func TestZeroWingbeatGlides(t *testing.T) {
+	air, _ := media.Air(media.AirConditions{TemperatureC: 15, PressurePa: math.NaN()})
+	o := NewOrganism(Body{Shape: Spheroid, Length: 0.16, Diameter: 0.035}, 10)
+	o.Mass, o.Span, o.WingArea, o.Frequency = 0.04, 0.42, 0.0168, 0
+	r, err := Calc(o, air)
+	if err != nil {
+		t.Fatal(err)
+	}
+	said := false
+	for _, w := range r.Warnings {
+		said = said || strings.Contains(w.Message, "frequency of 0 is taken as gliding")
+	}
+	if r.Power.Kind != PowerGliding || !said {
+		t.Errorf("kind %q, warnings %v", r.Power.Kind, r.Warnings)
+	}
+	var rb Result
+	if err := CalcChosenInto(&rb, &o, &air); err != nil || rb.Power.Kind != PowerGliding {
+		t.Errorf("batch path: kind %q, %v", rb.Power.Kind, err)
+	}
+	if o.Frequency != 0 || o.Gliding {
+		t.Error("CalcChosenInto changed the caller's organism")
+	}
+	pc, err := OrganismPowerCurve(o, air, 3, 20, 18)
+	if err != nil || !pc.Gliding {
+		t.Errorf("power curve: gliding %v, %v", pc.Gliding, err)
+	}
+	fish := NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, 1)
+	fish.Frequency = 0
+	if _, err := Calc(fish, water20(t)); err == nil {
+		t.Error("a fish with tail-beat frequency 0 was accepted")
+	}
+}

@@ -26,7 +26,7 @@ func (f *organismFlags) bind(cmd *cobra.Command) {
 	fs.StringVar(&f.diameter, "diameter", "", "maximum body diameter (spheroid, rod, cylinder), e.g. 2.5mm")
 	fs.StringVar(&f.shape, "shape", "", "sphere, spheroid, rod, cylinder or measured (default: spheroid with --diameter, else sphere)")
 	fs.StringVar(&f.speed, "speed", "", "swimming or flight speed, e.g. 0.4m/s, 30um/s, 3BL/s")
-	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min")
+	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min (0 for a flyer: gliding)")
 	fs.StringVar(&f.amplitude, "amplitude", "", "peak-to-peak tail-tip or wing-tip excursion, e.g. 4cm")
 	fs.StringVar(&f.mass, "mass", "", "body mass, e.g. 20g")
 	fs.StringVar(&f.span, "span", "", "wingspan tip to tip (flyers), e.g. 35cm")
