@@ -35,6 +35,7 @@ type FitReport struct {
 	Fits     []ModelFit
 	Best     string
 	Class    string // "newtonian", "shear-thinning", "shear-thickening" or "yield-stress"
+	Rule     string // the rule the class follows ([ClassRule])
 	Evidence []string
 	Warnings []string
 	N        int
@@ -104,34 +105,55 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 		return rep, fmt.Errorf("media: no model could be fitted to the data")
 	}
 	rep.Best = rep.Fits[best].Model.Name()
-	rep.classify(best)
+	minStress := pts[0].Stress
+	for _, p := range pts {
+		minStress = math.Min(minStress, p.Stress)
+	}
+	rep.classify(best, minStress)
 	return rep, nil
 }
 
-// classify names the fluid's class from the best model and the power-law
-// flow index, with the evidence.
-func (rep *FitReport) classify(best int) {
+// The yield-stress rule. A yield stress fitted to flow-curve data is an
+// extrapolation below the lowest measured rate (Barnes, H. A. (1999), The
+// yield stress—a review or 'παντα ρει'—everything flows?, J. Non-Newtonian
+// Fluid Mech. 81, 133–178), so a fluid is classed yield-stress only when
+// the fitted yield stress is (1) significantly above zero (95 % interval),
+// (2) a material share of the stress actually measured, at least
+// YieldShareMin of the lowest measured stress (10 %: common practice, no
+// source), which a stress levelling off at low rates gives and a pure power
+// law does not, and (3) the best yield model beats the best model without a
+// yield stress by more than YieldAICcMargin in AICc (2: Burnham & Anderson
+// 2002, §2.6, below which both models have substantial support).
+const (
+	YieldShareMin   = 0.10
+	YieldAICcMargin = 2.0
+)
+
+// ClassRule states the rule [FitReport].Class follows.
+const ClassRule = "yield-stress when the fitted yield stress is above zero at 95 %, at least 10 % of the lowest measured stress, " +
+	"and its model beats every model without a yield stress by ΔAICc > 2; otherwise shear-thinning or shear-thickening when the " +
+	"power-law flow index's 95 % interval lies below or above 1 and the best model is not Newtonian; otherwise newtonian"
+
+// classify names the fluid's class by [ClassRule], with the evidence;
+// minStress is the lowest measured stress (Pa).
+func (rep *FitReport) classify(best int, minStress float64) {
 	bf := rep.Fits[best]
+	rep.Rule = ClassRule
 	rep.Evidence = append(rep.Evidence, fmt.Sprintf("best model by AICc: %s (AICc %.4g)", rep.Best, bf.AICc))
-	if ty := YieldStress(bf.Model); ty > 0 {
-		se := bf.StdErrors[indexParam(bf.Params, PYield)]
-		if !math.IsNaN(se) && ty-1.96*se > 0 {
-			rep.Class = ClassYield
-			rep.Evidence = append(rep.Evidence, fmt.Sprintf("yield stress %.4g ± %.2g Pa (95 %% interval %.4g–%.4g Pa) is significantly above zero", ty, se, ty-1.96*se, ty+1.96*se))
-			if hb, ok := bf.Model.(HerschelBulkley); ok {
-				nse := bf.StdErrors[indexParam(bf.Params, PFlowIndex)]
-				switch {
-				case hb.N+1.96*nse < 1:
-					rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thinning above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
-				case hb.N-1.96*nse > 1:
-					rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thickening above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
-				default:
-					rep.Evidence = append(rep.Evidence, fmt.Sprintf("no thinning above yield beyond error: flow index %.3g ± %.2g", hb.N, nse))
-				}
+	if ty := YieldStress(bf.Model); ty > 0 && rep.yieldEvident(bf, ty, minStress) {
+		rep.Class = ClassYield
+		if hb, ok := bf.Model.(HerschelBulkley); ok {
+			nse := bf.StdErrors[indexParam(bf.Params, PFlowIndex)]
+			switch {
+			case hb.N+1.96*nse < 1:
+				rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thinning above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
+			case hb.N-1.96*nse > 1:
+				rep.Evidence = append(rep.Evidence, fmt.Sprintf("shear-thickening above yield: Herschel–Bulkley flow index %.3g ± %.2g", hb.N, nse))
+			default:
+				rep.Evidence = append(rep.Evidence, fmt.Sprintf("no thinning above yield beyond error: flow index %.3g ± %.2g", hb.N, nse))
 			}
-			return
 		}
-		rep.Evidence = append(rep.Evidence, fmt.Sprintf("yield stress %.4g ± %.2g Pa is not significantly above zero", ty, se))
+		return
 	}
 	pl := rep.Fits[1] // power law
 	if pl.Err != nil {
@@ -152,6 +174,28 @@ func (rep *FitReport) classify(best int) {
 	if rep.Class == ClassNewtonian {
 		rep.Evidence = append(rep.Evidence, fmt.Sprintf("viscosity %.4g ± %.2g Pa·s", rep.Fits[0].Params[0].Value, rep.Fits[0].StdErrors[0]))
 	}
+}
+
+// yieldEvident applies the three tests of the yield-stress rule to the best
+// fit's yield stress ty and records each result as evidence.
+func (rep *FitReport) yieldEvident(bf ModelFit, ty, minStress float64) bool {
+	se := bf.StdErrors[indexParam(bf.Params, PYield)]
+	significant := !math.IsNaN(se) && ty-1.96*se > 0
+	share := ty / minStress
+	margin := math.Inf(1) // no model without a yield stress could be fitted
+	for _, f := range rep.Fits {
+		if f.Err == nil && !math.IsNaN(f.AICc) && YieldStress(f.Model) == 0 {
+			margin = math.Min(margin, f.AICc-bf.AICc)
+		}
+	}
+	ok := significant && share >= YieldShareMin && margin > YieldAICcMargin
+	verdict := "is not evidence of a yield stress"
+	if ok {
+		verdict = "is evidence of a yield stress"
+	}
+	rep.Evidence = append(rep.Evidence, fmt.Sprintf("yield stress %.4g ± %.2g Pa (95 %% interval %.4g–%.4g Pa), %.3g %% of the lowest measured stress %.4g Pa, ΔAICc %.3g against the best model without one: %s",
+		ty, se, ty-1.96*se, ty+1.96*se, 100*share, minStress, margin, verdict))
+	return ok
 }
 
 func indexParam(ps []Param, name string) int {

@@ -218,9 +218,13 @@ func TestAltitudeIsGeometric(t *testing.T) {
 	checkRel(t, "p(10 km geometric)", a.PressurePa, 26499.9, 1e-5)
 }
 
-// CIPM-2007 worked example: 10 °C, 97325.3 Pa, 40 % relative humidity gives
-// 1.19569e-3 g/cm³. The figure is recomputed from Picard et al. (2008)
-// equations; the provenance of the worked example is unverified.
+// CIPM-2007 worked example: 10 °C, 97325.3 Pa (730 mmHg), 40 % relative
+// humidity gives 1.19569e-3 g/cm³, as cited from Gupta, S. V. (2012), Mass
+// Metrology, Springer, appendix (p. 205). Checked: of Picard et al. (2008),
+// Metrologia 45, 149, only the abstract and introduction could be read (no
+// example there), and Gupta's appendix could not be read, so the figure
+// stays unverified against its source; it equals the CIPM-2007 equations
+// recomputed by hand, which is what this test holds.
 func TestMoistAirCIPM2007Example(t *testing.T) {
 	checkRel(t, "ρ moist", MoistAirDensity(283.15, 97325.3, 0.4, 0.0004), 1.19569, 5e-6)
 }

@@ -26,6 +26,7 @@ type Organism struct {
 	InducedFactor float64 // NaN means DefaultInducedFactor
 	ProfileCD     float64 // NaN means the attached-flow default
 	Disc          string  // DiscSpan (default) or DiscStroke
+	Gliding       bool    // a flyer with its wings held still: a glide, no flapping power
 	Diffusivity   float64 // solute diffusivity, m²/s; NaN means dissolved O₂ in water
 
 	// For non-Newtonian media: the characteristic shear rate (NaN means
@@ -47,6 +48,7 @@ const (
 	PowerTowing   = "towing"   // drag × speed, efficiency 1
 	PowerSwimming = "swimming" // drag × speed ÷ efficiency
 	PowerFlight   = "flight"   // induced + parasite + profile
+	PowerGliding  = "gliding"  // no flapping work: m g × sink speed, the rate height energy is spent
 )
 
 // Power is the power needed to move at the given speed.
@@ -76,8 +78,9 @@ type Result struct {
 	ReducedFrequency float64
 	Drag             DragResult
 	Power            Power
-	CoastTime        float64 // s; only in the viscous regime
+	CoastTime        float64 // s; only in the viscous regime: the time to stop if CoastStops, else the time constant M U/F
 	CoastDistance    float64 // m
+	CoastStops       bool    // the body stops in finite time (shear-thinning power law, yield stress)
 	Peclet           float64
 	Diffusivity      float64 // m²/s
 	Warnings         []Warning
@@ -118,6 +121,12 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if !(o.Speed > 0) {
 		return fmt.Errorf("regime: speed must be positive, got %g m/s", o.Speed)
 	}
+	zeroBeat := o.Frequency == 0 && isFlyer(o, m)
+	if zeroBeat { // a flyer with a wingbeat frequency of 0 glides (said in the warnings below)
+		g := *o
+		g.Frequency, g.Gliding = math.NaN(), true
+		o = &g
+	}
 	for i, v := range [...]float64{o.Frequency, o.Amplitude, o.Mass, o.Span, o.WingLength, o.Chord, o.WingArea,
 		o.StrokeAngle, o.Diffusivity, o.ShearRate, o.RelaxationTime} {
 		if v == v && !(v > 0 && v <= math.MaxFloat64) { // given (not NaN) and not positive and finite
@@ -125,6 +134,11 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		}
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
+	if zeroBeat {
+		note.add(&r.Warnings, WarnModel, func() string {
+			return "flight: a wingbeat frequency of 0 is taken as gliding: no flapping power"
+		})
+	}
 	l := ChoiceLength(o.Body) // the diameter of a sphere or cylinder, the length of other bodies
 	r.ShearRate = o.Speed / l
 	if !math.IsNaN(o.ShearRate) {
@@ -216,9 +230,8 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	r.Warnings = append(r.Warnings, dr.Warnings...)
 
 	// Power.
-	flyer := m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 	switch {
-	case flyer:
+	case isFlyer(o, m):
 		in := o.flightInput(*m, r.Viscosity, wings, note)
 		in.Drag = dr.Chosen.Force // at this speed, already computed
 		fp, err := Flight(in)
@@ -226,7 +239,22 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			return err
 		}
 		r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
+		switch {
+		case o.Gliding && !math.IsNaN(o.Frequency):
+			r.Power.Kind = PowerGliding
+			note.add(&r.Warnings, WarnInconsistent, func() string {
+				return "inputs: a gliding flyer with a wingbeat frequency: the frequency is not used for power"
+			})
+		case o.Gliding:
+			r.Power.Kind = PowerGliding
+		case math.IsNaN(o.Frequency):
+			note.add(&r.Warnings, WarnModel, func() string {
+				return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding, a table a wingbeat frequency of 0)"
+			})
+		}
 		r.Warnings = append(r.Warnings, fp.Warnings...)
+	case o.Gliding:
+		return fmt.Errorf("regime: gliding needs a flyer in air with a mass and a wingspan")
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
 			note.add(&r.Warnings, WarnInconsistent, func() string {
@@ -253,19 +281,55 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			mass = m.Density * vol // neutrally buoyant when no mass is given
 		}
 		if !math.IsNaN(mass) && !math.IsNaN(vol) {
-			r.CoastTime, r.CoastDistance = Coasting(mass+0.5*m.Density*vol, o.Speed, dr.Chosen.Force)
+			c := coast(m, r.ShearRate, mass+0.5*m.Density*vol, o.Speed, dr.Chosen.Force)
+			r.CoastTime, r.CoastDistance, r.CoastStops = c.Time, c.Distance, c.Stops
+			if math.IsInf(c.Distance, 0) {
+				r.CoastDistance = math.NaN()
+				note.add(&r.Warnings, WarnModel, func() string {
+					return "coasting: in this shear-thickening fluid creeping-flow drag falls off so fast at low speed that the coasting distance has no bound; none is given"
+				})
+			}
 		}
 	}
 	switch {
 	case !math.IsNaN(o.Diffusivity):
 		r.Diffusivity = o.Diffusivity
-	case m.Medium == media.KindFreshWater || m.Medium == media.KindSeawater:
-		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivity25C, m.TemperatureC, r.Viscosity)
+	case m.Medium == media.KindFreshWater:
+		r.Diffusivity = OxygenDiffusivityWater(m.TemperatureC)
+	case m.Medium == media.KindSeawater:
+		// Sea water's viscosity is pure water's at the same temperature and
+		// pressure times the Sharqawy et al. factor, so that factor alone is
+		// the viscosity ratio.
+		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivityWater(m.TemperatureC), 1, media.SeawaterViscosity(1, m.TemperatureC, m.SalinityAbsolute))
 	}
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)
 	}
 	return checkResult(r, o)
+}
+
+// isFlyer reports whether the organism gets flight power: in air, with a
+// mass and a wingspan.
+func isFlyer(o *Organism, m *media.Properties) bool {
+	return m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
+}
+
+// coast coasts a body of effective mass mEff from speed u against the
+// creeping-flow drag force at u, taking the drag to scale with speed as the
+// medium's stress at a shear rate proportional to speed (drag = geometry ×
+// apparent viscosity × speed): linear in a Newtonian fluid, U^n in a power
+// law, a yield force plus a rate term in a yield-stress fluid.
+func coast(m *media.Properties, shearRate, mEff, u, force float64) Coast {
+	if m.Newtonian() {
+		tau, d := Coasting(mEff, u, force)
+		return Coast{Time: tau, Distance: d}
+	}
+	if pl, ok := model(m.Rheology).(media.PowerLaw); ok {
+		return CoastingPowerLaw(mEff, u, force, pl.N)
+	}
+	stress := func(s float64) float64 { return m.ApparentViscosity(shearRate*s) * s }
+	s1 := stress(1)
+	return CoastingDrag(mEff, u, force, func(s float64) float64 { return stress(s) / s1 }, yieldStress(m.Rheology) > 0)
 }
 
 // optionalNames name the optional values in the order calc checks them.
@@ -320,10 +384,28 @@ func (o Organism) flightInput(m media.Properties, viscosity float64, wings Wings
 	if math.IsNaN(k) {
 		k = DefaultInducedFactor
 	}
+	area, cd := bodyFrontal(o.Body)
 	return FlightInput{
 		Mass: o.Mass, Speed: o.Speed, Density: m.Density, Viscosity: viscosity, InducedFactor: k,
-		Disc: o.Disc, Wings: wings, brief: !note,
+		Disc: o.Disc, Wings: wings, BodyArea: area, BodyCD: cd, Gliding: o.Gliding, brief: !note,
 	}
+}
+
+// bodyFrontal returns the frontal area (m²) of a flyer's body seen from
+// ahead, with the measured drag coefficient of a measured body on its own
+// area (0 otherwise: the bird body default applies).
+func bodyFrontal(b Body) (area, cd float64) {
+	switch b.Shape {
+	case Sphere:
+		return math.Pi * b.Length * b.Length / 4, 0
+	case Spheroid, Rod:
+		return math.Pi * b.Diameter * b.Diameter / 4, 0
+	case Cylinder: // broadside
+		return b.Length * b.Diameter, 0
+	case Measured:
+		return b.ReferenceArea, b.DragCoefficient
+	}
+	return 0, 0
 }
 
 // OrganismPowerCurve is [FlightPowerCurve] for a flying organism in air,
@@ -334,6 +416,11 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	}
 	if err := o.Body.Validate(); err != nil {
 		return PowerCurve{}, err
+	}
+	var zeroBeat []Warning
+	if o.Frequency == 0 {
+		o.Frequency, o.Gliding = math.NaN(), true
+		zeroBeat = append(zeroBeat, warnf(WarnModel, "flight: a wingbeat frequency of 0 is taken as gliding: no flapping power"))
 	}
 	in := o.flightInput(m, m.DynamicViscosity, o.wings(), true)
 	in.BodyDrag = func(u float64) float64 { // from the drag laws at each speed
@@ -350,6 +437,6 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	if err := checkCurve(&pc, &o, lo, hi); err != nil {
 		return PowerCurve{}, err
 	}
-	pc.Warnings = append(m.Warnings, pc.Warnings...)
+	pc.Warnings = append(append(append([]Warning{}, m.Warnings...), zeroBeat...), pc.Warnings...)
 	return pc, nil
 }

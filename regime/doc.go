@@ -25,12 +25,15 @@
 //	skin friction                 BlasiusCf, …             Blasius 1908; Prandtl–Schlichting; ITTC 1957
 //	form factor                   HoernerFormFactor        Hoerner 1965, Fluid-Dynamic Drag, ch. 6
 //	flight power                  Flight                   Rankine 1865; Froude 1889; Glauert 1935;
-//	                                                       Weis-Fogh 1973; Ellington 1984 part VI
+//	                                                       Weis-Fogh 1973; Ellington 1984 part VI;
+//	                                                       Pennycuick 2008 (body C_Db, profile ratio)
+//	gliding                       Flight (Gliding)         Tucker & Heine 1990 (profile C_D)
 //	power curve minima            FlightPowerCurve         Brent 1973 (Minimize1D)
 //	settling                      Settle                   Clift & Gauvin 1970; Cunningham 1910 / Davies 1945
 //	power-law creeping drag       RenaudX                  Renaud, Mauret & Chhabra 2004
 //	yield criterion               BerisCritical            Beris et al. 1985, J. Fluid Mech. 158
-//	coasting, Péclet              Coasting, Peclet         Purcell 1977; Stokes–Einstein
+//	coasting                      Coasting, CoastingPowerLaw, CoastingDrag  Purcell 1977; Newton's law integrated
+//	O₂ diffusivity, Péclet        OxygenDiffusivityWater   Han & Bartels 1996; Stokes–Einstein
 //	uncertainty                   MonteCarlo, Linear       seeded Monte Carlo; first order in log space
 //
 // Errors start with "regime:". A law used outside its published range is

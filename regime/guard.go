@@ -144,7 +144,10 @@ func resultError(r *Result, o *Organism, i int, v float64) error {
 func checkCurve(pc *PowerCurve, o *Organism, lo, hi float64) error {
 	inputs := []quantity{{"length", "m", o.Body.Length}, {"mass", "kg", o.Mass}, {"span", "m", o.Span},
 		{"from speed", "m/s", lo}, {"to speed", "m/s", hi}}
-	vals := []float64{pc.Hover, pc.MinPowerSpeed, pc.MinPower, pc.MaxRangeSpeed, pc.MinCostOfTr}
+	vals := []float64{pc.MinPowerSpeed, pc.MinPower, pc.MaxRangeSpeed, pc.MinCostOfTr}
+	if !pc.Gliding { // a glide has no hover: its Hover is NaN by design
+		vals = append(vals, pc.Hover)
+	}
 	for _, p := range pc.Points {
 		vals = append(vals, p.Induced, p.Parasite, p.Profile, p.Total)
 	}

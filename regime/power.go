@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/flowregime/flowregime/media"
 	"gonum.org/v1/gonum/integrate/quad"
 )
 
@@ -68,8 +69,15 @@ type FlightInput struct {
 	InducedFactor float64 // k ≥ 1
 	Disc          string  // DiscSpan or DiscStroke
 	Wings         Wings
-	BodyDrag      func(speed float64) float64 // parasite drag of the body, N
+	BodyDrag      func(speed float64) float64 // drag of the body from the drag laws, N
 	Drag          float64                     // the body's drag at Speed, N, used when BodyDrag is nil
+
+	// The body's frontal area (m²) and its drag coefficient in flight on
+	// that area. Zero area: Pennycuick's allometry [BirdBodyFrontalArea];
+	// zero coefficient: [BirdBodyDragCoefficient].
+	BodyArea, BodyCD float64
+
+	Gliding bool // wings held still: no flapping power, a glide instead
 
 	brief noter // warnings with codes only (batch work)
 }
@@ -78,8 +86,64 @@ type FlightInput struct {
 // given: 1.15, the value typical of rotor wakes in momentum theory (common
 // practice in rotorcraft analysis, e.g. Leishman, J. G. (2006), Principles
 // of Helicopter Aerodynamics, 2nd ed., Cambridge, ch. 3; recalled). Animal
-// estimates span about 1.1–1.2 (Ellington 1984, part VI).
+// estimates span about 1.1–1.2 (Ellington 1984, part VI); Pennycuick (2008)
+// used 1.2 for birds and Pennycuick, Åkesson & Hedenström (2013) 0.9.
 const DefaultInducedFactor = 1.15
+
+// BirdBodyDragCoefficient is the drag coefficient of a bird's body in
+// flight on its frontal area, 0.1: the default of Pennycuick, C. J. (2008),
+// Modelling the Flying Bird, Academic Press (the default of his Flight
+// program, as its R re-implementations state). Calibrations against
+// the air speeds of 31 migrating species gave 0.060 (small waders) to 0.12
+// (mute swan) at Re 25 000–250 000 (Pennycuick, C. J., Åkesson, S. &
+// Hedenström, A. (2013), Air speeds of migrating birds observed by
+// ornithodolite and compared with predictions from flight theory, J. R. Soc.
+// Interface 10, 20130419). Skin friction of a streamlined body alone gives
+// about 0.07 and leaves out the head, legs and wing-root interference, so
+// the flight model takes the larger of the two.
+const BirdBodyDragCoefficient = 0.1
+
+// BirdBodyFrontalArea returns a bird's body frontal area (m²) from its mass
+// m (kg), S_b = 0.00813 m^0.666 (Pennycuick, C. J., Obrecht, H. H. & Fuller,
+// M. R. (1988), Empirical estimates of body drag of large waterfowl and
+// raptors, J. Exp. Biol. 135, 253–264).
+func BirdBodyFrontalArea(m float64) float64 { return 0.00813 * math.Pow(m, 0.666) }
+
+// Profile power ratio X1 = P_pro/P_am of Pennycuick's method: 8.4/AR
+// (Pennycuick 2008, ch. 3, Mechanics of level flight), or the constant 1.2
+// of his earlier versions (Pennycuick, C. J. (1975), Mechanics of flight,
+// in Avian Biology vol. 5, Academic Press; the year recalled from memory),
+// used when the aspect ratio is unknown. Both as given by the R
+// re-implementations of his method (package "flying", Masinde).
+const (
+	ProfilePowerConstant  = 8.4
+	ProfilePowerRatioFlat = 1.2
+)
+
+// GlideProfileCD is the profile-drag coefficient of gliding wings when none
+// is given: 0.026, the best estimate of the minimum profile-drag
+// coefficient of a Harris' hawk (Tucker, V. A. & Heine, C. (1990),
+// Aerodynamics of gliding flight in a Harris' hawk, J. Exp. Biol. 149,
+// 469–489), in the range Henningsson & Hedenström (2011, J. Exp. Biol. 214,
+// 382–393) found for a gliding swift.
+const GlideProfileCD = 0.026
+
+// AbsoluteMinimumPower returns Pennycuick's absolute minimum power (W):
+// the minimum over speed of the far-field induced power
+// k(mg)²/(2ρ(πb²/4)V) plus the parasite power ½ρS_bC_DbV³, with
+// flatPlate = S_bC_Db (m²). The minimum lies at
+// V_mp = (4/(3π))^¼ k^¼ (mg)^½ / (ρ^½ b^½ (S_bC_Db)^¼), where
+// (4/(3π))^¼ = 0.807, and is
+//
+//	P_am = 1.0517 k^¾ (mg)^{3/2} (S_bC_Db)^¼ / (ρ^½ b^{3/2}),
+//
+// 1.0517 = 8/(3π·0.807); Pennycuick (2008, ch. 3, Box 3.3) prints 0.807
+// and 1.05 (as cited by the R re-implementations; both derived here).
+func AbsoluteMinimumPower(mass, span, rho, k, flatPlate float64) float64 {
+	w := mass * media.StandardGravity
+	c := 8 / (3 * math.Pi * math.Pow(4/(3*math.Pi), 0.25))
+	return c * math.Pow(k, 0.75) * math.Pow(w, 1.5) * math.Pow(flatPlate, 0.25) / (math.Sqrt(rho) * math.Pow(span, 1.5))
+}
 
 // FlightPower is the mechanical power of level flight split into its parts.
 type FlightPower struct {
@@ -87,24 +151,46 @@ type FlightPower struct {
 	HoverInduced                      float64 // W, induced power at zero speed
 	InducedVelocity, HoverVelocity    float64 // m/s
 	DiscArea                          float64 // m²
-	ProfileCD                         float64 // coefficient used
-	ProfileCDDefault                  bool    // true when taken from skin friction
+	BodyDragCoefficient               float64 // on BodyArea, as used at this speed
+	BodyArea                          float64 // m²
+	ProfileMethod                     string  // how profile power was found
+	ProfileRatio                      float64 // X1 when the ratio method is used, else NaN
+	ProfileCD                         float64 // coefficient of the blade-element or glide method, else NaN
 	ChordReynolds                     float64 // on mean chord and mean relative wing speed
+	Gliding                           bool
+	SinkSpeed, GlideRatio             float64 // gliding only: m/s and lift/drag; NaN when flapping
 	Warnings                          []Warning
 }
+
+// Profile power methods.
+const (
+	ProfileBladeElement = "blade element with the given profile-drag coefficient"
+	ProfileRatio        = "Pennycuick's profile power ratio X1 = 8.4/AR (2008)"
+	ProfileRatioFlat    = "Pennycuick's profile power ratio X1 = 1.2 (1975), no wing area"
+	ProfileGlide        = "gliding wings, ½ρ C_D,pro S V³"
+	ProfileNone         = "left out: no wing area or chord"
+)
 
 // Flight returns induced, parasite and profile power in level flight.
 //
 // Induced power is k T v_i with T = m g and v_i from Glauert's relation
 // ([InducedVelocity]), Rankine–Froude in hover. Parasite power is the body's
-// drag times speed. Profile power integrates, over the wingbeat and along
-// both (rectangular) wings, the section profile drag times the section's
-// speed relative to the air, ½ρC_D,pro c |w|³ with |w|² = V² + (φ̇r)² and
-// a simple-harmonic stroke φ = (Φ/2) cos 2πft (blade-element theory;
-// Weis-Fogh 1973, J. Exp. Biol. 59, 169; Ellington 1984, part VI). Without a
-// profile-drag coefficient the wing is taken as a flat plate with attached
-// flow: twice the Blasius (or transitional) skin friction at the chord
-// Reynolds number, a lower bound.
+// drag times speed, the drag being the larger of the drag laws' estimate and
+// ½ρV²S_bC_Db with a bird body's coefficient ([BirdBodyDragCoefficient]).
+//
+// Profile power, with a profile-drag coefficient given, integrates over the
+// wingbeat and along both (rectangular) wings the section profile drag
+// times the section's speed relative to the air, ½ρC_D,pro c |w|³ with
+// |w|² = V² + (φ̇r)² and a simple-harmonic stroke φ = (Φ/2) cos 2πft
+// (blade-element theory; Weis-Fogh 1973, J. Exp. Biol. 59, 169; Ellington
+// 1984, part VI). Without one it is Pennycuick's (2008) profile power
+// ratio: P_pro = X1 P_am, constant with speed, X1 = 8.4/AR
+// ([AbsoluteMinimumPower]); this is the calibration against birds that puts
+// the minimum-power and maximum-range speeds where birds are seen to fly.
+//
+// A gliding animal ([FlightInput].Gliding) does no flapping work: the same
+// drag parts, with the profile drag of fixed wings ([GlideProfileCD] when
+// none is given), set its sink speed P/(mg) and glide ratio V/sink.
 func Flight(in FlightInput) (FlightPower, error) {
 	w := in.Wings
 	switch {
@@ -116,13 +202,16 @@ func Flight(in FlightInput) (FlightPower, error) {
 		return FlightPower{}, fmt.Errorf("regime: flight speed must not be negative")
 	case !(in.InducedFactor >= 1):
 		return FlightPower{}, fmt.Errorf("regime: induced-power factor must be at least 1 (the ideal disc), got %g", in.InducedFactor)
+	case in.Gliding && !(in.Speed > 0):
+		return FlightPower{}, fmt.Errorf("regime: a glide needs a positive speed")
 	}
 	if !(w.Length > 0) {
 		w.Length = w.Span / 2
 	}
-	var fp FlightPower
+	nan := math.NaN()
+	fp := FlightPower{ProfileRatio: nan, ProfileCD: nan, SinkSpeed: nan, GlideRatio: nan, Gliding: in.Gliding}
 	note := !in.brief
-	thrust := in.Mass * 9.80665
+	thrust := in.Mass * media.StandardGravity
 	switch in.Disc {
 	case "", DiscSpan:
 		fp.DiscArea = math.Pi * w.Span * w.Span / 4
@@ -139,44 +228,95 @@ func Flight(in FlightInput) (FlightPower, error) {
 	fp.HoverInduced = k * thrust * fp.HoverVelocity
 	fp.InducedVelocity = InducedVelocity(thrust, in.Density, fp.DiscArea, in.Speed)
 	fp.Induced = k * thrust * fp.InducedVelocity
-	switch {
-	case in.Speed == 0:
-	case in.BodyDrag != nil:
-		fp.Parasite = in.BodyDrag(in.Speed) * in.Speed
-	case in.Drag > 0:
-		fp.Parasite = in.Drag * in.Speed
+	flatPlate := parasitePower(&fp, in, note)
+	fp.Profile = profilePower(&fp, in, w, flatPlate, note)
+	fp.Total = fp.Induced + fp.Parasite + fp.Profile
+	if in.Gliding {
+		fp.SinkSpeed = fp.Total / thrust
+		fp.GlideRatio = in.Speed / fp.SinkSpeed
 	}
+	return fp, nil
+}
+
+// parasitePower sets the body's frontal area, drag coefficient and parasite
+// power in fp, and returns the bird-body flat-plate area S_bC_Db that
+// Pennycuick's absolute minimum power is on.
+func parasitePower(fp *FlightPower, in FlightInput, note noter) (flatPlate float64) {
+	fp.BodyArea, fp.BodyDragCoefficient = in.BodyArea, in.BodyCD
+	if !(fp.BodyArea > 0) {
+		fp.BodyArea = BirdBodyFrontalArea(in.Mass)
+		note.add(&fp.Warnings, WarnModel, func() string {
+			return fmt.Sprintf("flight: body frontal area taken as %.3g m² from the mass (Pennycuick, Obrecht & Fuller 1988)", fp.BodyArea)
+		})
+	}
+	if !(fp.BodyDragCoefficient > 0) {
+		fp.BodyDragCoefficient = BirdBodyDragCoefficient
+	}
+	flatPlate = fp.BodyArea * fp.BodyDragCoefficient
+	if q := 0.5 * in.Density * in.Speed * in.Speed; q > 0 {
+		drag := in.Drag
+		if in.BodyDrag != nil {
+			drag = in.BodyDrag(in.Speed)
+		}
+		if lawCD := drag / (q * fp.BodyArea); lawCD > fp.BodyDragCoefficient {
+			fp.BodyDragCoefficient = lawCD
+		}
+		fp.Parasite = q * fp.BodyArea * fp.BodyDragCoefficient * in.Speed
+	}
+	return flatPlate
+}
+
+// profilePower chooses and applies the profile power method, recording it
+// in fp.
+func profilePower(fp *FlightPower, in FlightInput, w Wings, flatPlate float64, note noter) float64 {
+	given := w.ProfileCD > 0 // NaN and 0 are not given
 	if w.Area > 0 {
 		flap := 0.0
-		if w.Frequency > 0 && w.StrokeAngle > 0 {
+		if !in.Gliding && w.Frequency > 0 && w.StrokeAngle > 0 {
 			flap = 2 * w.StrokeAngle * w.Frequency * w.Length / math.Sqrt(3) // mean |φ̇| r₂
 		}
-		wingSpeed := math.Hypot(in.Speed, flap)
-		fp.ChordReynolds = in.Density * wingSpeed * w.MeanChord() / in.Viscosity
-		fp.ProfileCD = w.ProfileCD
-		if math.IsNaN(fp.ProfileCD) || fp.ProfileCD <= 0 {
-			fp.ProfileCDDefault = true
-			fp.ProfileCD = 0 // no relative wing speed (hover without stroke kinematics): no profile power
-			if fp.ChordReynolds > 0 {
-				fp.ProfileCD = 2 * TransitionCf(fp.ChordReynolds, TransitionReynolds)
-			}
-			if fp.ChordReynolds > 0 && fp.ChordReynolds < 1e4 {
-				note.add(&fp.Warnings, WarnModel, func() string {
-					return fmt.Sprintf("flight: profile drag taken as flat-plate skin friction at chord Re = %.3g; below about 1e4 real wings' profile drag is several times higher (Ellington 1984, part VI): set the profile-drag coefficient from measurements", fp.ChordReynolds)
-				})
-			}
+		fp.ChordReynolds = in.Density * math.Hypot(in.Speed, flap) * w.MeanChord() / in.Viscosity
+	}
+	switch {
+	case !(w.Area > 0):
+		if in.Gliding {
+			fp.ProfileMethod = ProfileNone
+			note.add(&fp.Warnings, WarnModel, func() string {
+				return "flight: no wing area or chord, so the glide leaves profile drag out (sink speed too low)"
+			})
+			return 0
 		}
+		fp.ProfileMethod, fp.ProfileRatio = ProfileRatioFlat, ProfilePowerRatioFlat
+		note.add(&fp.Warnings, WarnModel, func() string {
+			unused := ""
+			if given {
+				unused = " (the profile-drag coefficient given needs the wing area and is not used)"
+			}
+			return "flight: no wing area or chord, so profile power is Pennycuick's 1.2 × absolute minimum power (1975); give the wing area for the 8.4/AR ratio" + unused
+		})
+	case in.Gliding:
+		fp.ProfileMethod, fp.ProfileCD = ProfileGlide, w.ProfileCD
+		if !given {
+			fp.ProfileCD = GlideProfileCD
+		}
+		return ProfilePower(in.Density, fp.ProfileCD, w.MeanChord(), w.Length, in.Speed, 0, 0)
+	case given:
+		fp.ProfileMethod, fp.ProfileCD = ProfileBladeElement, w.ProfileCD
 		if w.Frequency > 0 && !(w.StrokeAngle > 0) {
 			note.add(&fp.Warnings, WarnModel, func() string {
-				return "flight: no stroke angle or amplitude, so profile power is that of gliding wings (a lower bound for flapping)"
+				return "flight: no stroke angle or amplitude, so blade-element profile power is that of gliding wings (a lower bound for flapping)"
 			})
 		}
-		fp.Profile = ProfilePower(in.Density, fp.ProfileCD, w.MeanChord(), w.Length, in.Speed, w.StrokeAngle, w.Frequency)
-	} else {
-		note.add(&fp.Warnings, WarnModel, func() string { return "flight: no wing area or chord given, so profile power is left out" })
+		return ProfilePower(in.Density, fp.ProfileCD, w.MeanChord(), w.Length, in.Speed, w.StrokeAngle, w.Frequency)
+	default:
+		fp.ProfileMethod, fp.ProfileRatio = ProfileRatio, ProfilePowerConstant*w.Area/(w.Span*w.Span)
+		if fp.ChordReynolds > 0 && fp.ChordReynolds < 1e4 {
+			note.add(&fp.Warnings, WarnModel, func() string {
+				return fmt.Sprintf("flight: profile power from Pennycuick's ratio, calibrated on birds; at chord Re = %.3g (an insect's) give the profile-drag coefficient for the blade-element method", fp.ChordReynolds)
+			})
+		}
 	}
-	fp.Total = fp.Induced + fp.Parasite + fp.Profile
-	return fp, nil
+	return fp.ProfileRatio * AbsoluteMinimumPower(in.Mass, w.Span, in.Density, in.InducedFactor, flatPlate)
 }
 
 // ProfilePower returns the cycle-mean profile power (W) of two rectangular

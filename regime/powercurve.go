@@ -3,6 +3,8 @@ package regime
 import (
 	"fmt"
 	"math"
+
+	"github.com/flowregime/flowregime/media"
 )
 
 // Minimize1D returns the x in [a, b] that minimises f, by Brent's method:
@@ -88,7 +90,10 @@ type CurvePoint struct {
 // speeds of minimum power and of maximum range.
 type PowerCurve struct {
 	Points                     []CurvePoint
-	Hover                      float64 // W, total power at zero speed
+	Hover                      float64 // W, total power at zero speed; NaN for a glide
+	Gliding                    bool
+	ProfileMethod              string  // how profile power was found ([FlightPower].ProfileMethod)
+	Weight                     float64 // N, m g: P/W is the sink speed of a glide
 	MinPowerSpeed, MinPower    float64 // m/s, W
 	MaxRangeSpeed, MinCostOfTr float64 // m/s, J/m: the minimum of P/V
 	Warnings                   []Warning
@@ -97,7 +102,9 @@ type PowerCurve struct {
 // FlightPowerCurve evaluates [Flight] from lo to hi in steps and finds the
 // speeds of minimum power (minimum of P) and maximum range (minimum of
 // P/V) with [Minimize1D] inside the bracket of the best grid point. A
-// minimum at either end of the range is reported with a warning.
+// minimum at either end of the range is reported with a warning. For a
+// glide, P = m g × sink speed: the two speeds are those of minimum sink and
+// best glide, and there is no hover (NaN).
 func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, error) {
 	var pc PowerCurve
 	if !(lo > 0) || !(hi > lo) || steps < 3 {
@@ -112,13 +119,17 @@ func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, er
 		}
 		return fp.Total
 	}
-	h := in
-	h.Speed = 0
-	hp, err := Flight(h)
-	if err != nil {
-		return pc, err
+	pc.Gliding, pc.Weight = in.Gliding, in.Mass*media.StandardGravity
+	pc.Hover = math.NaN() // a glider cannot hover
+	if !in.Gliding {
+		h := in
+		h.Speed = 0
+		hp, err := Flight(h)
+		if err != nil {
+			return pc, err
+		}
+		pc.Hover = hp.Total
 	}
-	pc.Hover = hp.Total
 	for i := 0; i < steps; i++ {
 		v := lo + (hi-lo)*float64(i)/float64(steps-1)
 		c := in
@@ -128,6 +139,7 @@ func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, er
 			return pc, err
 		}
 		pc.Points = append(pc.Points, CurvePoint{v, fp.Induced, fp.Parasite, fp.Profile, fp.Total})
+		pc.ProfileMethod = fp.ProfileMethod
 	}
 	find := func(g func(float64) float64, name string) (float64, float64) {
 		best := 0

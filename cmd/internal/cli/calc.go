@@ -2,6 +2,7 @@ package cli
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -25,7 +26,7 @@ func (f *organismFlags) bind(cmd *cobra.Command) {
 	fs.StringVar(&f.diameter, "diameter", "", "maximum body diameter (spheroid, rod, cylinder), e.g. 2.5mm")
 	fs.StringVar(&f.shape, "shape", "", "sphere, spheroid, rod, cylinder or measured (default: spheroid with --diameter, else sphere)")
 	fs.StringVar(&f.speed, "speed", "", "swimming or flight speed, e.g. 0.4m/s, 30um/s, 3BL/s")
-	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min")
+	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min (0 for a flyer: gliding)")
 	fs.StringVar(&f.amplitude, "amplitude", "", "peak-to-peak tail-tip or wing-tip excursion, e.g. 4cm")
 	fs.StringVar(&f.mass, "mass", "", "body mass, e.g. 20g")
 	fs.StringVar(&f.span, "span", "", "wingspan tip to tip (flyers), e.g. 35cm")
@@ -37,11 +38,16 @@ func (f *organismFlags) bind(cmd *cobra.Command) {
 	fs.StringVar(&f.dragCoefficient, "drag-coefficient", "", "measured drag coefficient (with --area; sets --shape measured)")
 	fs.StringVar(&f.area, "area", "", "reference area of the measured drag coefficient, e.g. 3cm2")
 	fs.StringVar(&f.inducedFactor, "induced-factor", "", fmt.Sprintf("induced-power factor k of flight (default %g, common practice)", regime.DefaultInducedFactor))
-	fs.StringVar(&f.profileDrag, "profile-drag", "", "profile-drag coefficient of the wings (default: flat-plate skin friction, a lower bound)")
+	fs.StringVar(&f.profileDrag, "profile-drag", "", "profile-drag coefficient of the wings (default: Pennycuick's profile power ratio 8.4/aspect ratio; given, the blade-element method)")
 	fs.StringVar(&f.disc, "disc", regime.DiscSpan, "actuator disc of flight: span (circle of the wingspan) or stroke (area swept by the wings)")
 	fs.StringVar(&f.diffusivity, "diffusivity", "", "solute diffusivity for the Péclet number, e.g. 2e-9m2/s (default: dissolved O2 in water)")
 	fs.StringVar(&f.shearRate, "shear-rate", "", "measured medium: characteristic shear rate (default: speed/length), e.g. 5/s")
 	fs.StringVar(&f.relaxationTime, "relaxation-time", "", "viscoelastic medium: relaxation time for the Deborah and Weissenberg numbers, e.g. 0.3s")
+}
+
+// bindGliding adds the flag that marks a flyer as gliding.
+func bindGliding(cmd *cobra.Command, v *bool) {
+	cmd.Flags().BoolVar(v, "gliding", false, "the flyer glides with its wings still: sink speed and glide ratio instead of flapping power")
 }
 
 // source returns the organism flags as an inputs.Source.
@@ -70,6 +76,7 @@ func merge(a, b inputs.Flags) inputs.Flags {
 
 type calcOptions struct {
 	organism organismFlags
+	gliding  bool
 	medium   string
 	flags    mediumFlags
 	format   string
@@ -140,8 +147,12 @@ Conventions:
   Power: swimmers get drag × speed ÷ efficiency (towing power at efficiency
   1). In air, with --mass and --span, flight power is induced (momentum
   theory, Rankine–Froude in hover, Glauert in forward flight, factor
-  --induced-factor) + parasite (the body's drag × speed) + profile (blade
-  element over both wings with --profile-drag).
+  --induced-factor) + parasite (the body's drag × speed, with a bird body's
+  drag coefficient 0.1 on frontal area as the least, Pennycuick 2008) +
+  profile (Pennycuick's profile power ratio 8.4/aspect ratio × absolute
+  minimum power, or blade element over both wings with --profile-drag).
+  With --gliding there is no flapping power: the same drags give the sink
+  speed and glide ratio.
   'flowregime laws' lists every drag law with its source and range.
   Uncertainty: any value may carry one, 12±1mm, 12+-1mm or 12mm±8%. It is
   propagated by Monte Carlo (--draws, --seed; sizes, speeds and other
@@ -175,6 +186,7 @@ the Strouhal number of its stroke, the drag from the law whose range fits
 		},
 	}
 	o.organism.bind(cmd)
+	bindGliding(cmd, &o.gliding)
 	cmd.Flags().StringVar(&o.medium, "medium", media.KindFreshWater, "air, freshwater, seawater, or a medium file from 'flowregime fit --save'")
 	o.flags.bind(cmd.Flags())
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
@@ -195,6 +207,10 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 	in, err := inputs.Build(src, o.medium, keep)
 	if err != nil {
 		return in, media.Properties{}, usageError{err}
+	}
+	in.Organism.Gliding = o.gliding
+	if og := in.Organism; o.gliding && (in.Conditions.Medium != media.KindAir || math.IsNaN(og.Mass) || math.IsNaN(og.Span)) {
+		return in, media.Properties{}, usagef("--gliding needs a flyer in air with --mass and --span")
 	}
 	m, err := media.Lookup(in.Conditions)
 	if err != nil {
@@ -279,18 +295,8 @@ func calcFields(r regime.Result) []report.Field {
 		report.Field{Key: "drag_law", Label: "drag law", Value: r.Drag.Chosen.Law},
 		report.F("drag_coefficient", "drag coefficient", r.Drag.Chosen.Coefficient, 4),
 		report.F("drag_N", "drag (N)", r.Drag.Chosen.Force, 4),
-		report.Field{Key: "power_kind", Label: "power", Value: r.Power.Kind},
-		report.F("power_W", "power needed (W)", r.Power.Total, 4),
 	)
-	if f := r.Power.Flight; f != nil {
-		fs = append(fs,
-			report.F("induced_power_W", "  induced power (W)", f.Induced, 4),
-			report.F("parasite_power_W", "  parasite power (W)", f.Parasite, 4),
-			report.F("profile_power_W", "  profile power (W)", f.Profile, 4),
-			report.F("hover_induced_power_W", "  induced power in hover (W)", f.HoverInduced, 4),
-			report.F("profile_drag_coefficient", "  profile-drag coefficient", f.ProfileCD, 3),
-		)
-	}
+	fs = append(fs, powerFields(r.Power)...)
 	if !r.Medium.Newtonian() {
 		fs = append(fs, report.F("shear_rate_1_s", "characteristic shear rate (1/s)", r.ShearRate, 4),
 			report.F("apparent_viscosity_Pa_s", "apparent viscosity there (Pa·s)", r.Viscosity, 4))
@@ -300,10 +306,50 @@ func calcFields(r regime.Result) []report.Field {
 		report.Maybe("bingham_number", "Bingham number", r.BinghamNumber, 4),
 		report.Maybe("deborah", "Deborah number", r.Deborah, 3),
 		report.Maybe("weissenberg", "Weissenberg number", r.Weissenberg, 3),
-		report.Maybe("coasting_time_s", "coasting time after stopping (s)", r.CoastTime, 3),
+		report.Maybe("coasting_time_s", coastTimeLabel(r.CoastStops), r.CoastTime, 3),
 		report.Maybe("coasting_distance_m", "coasting distance (m)", r.CoastDistance, 3),
 		report.Maybe("peclet", "Péclet number (on --length)", r.Peclet, 3),
 		report.Maybe("diffusivity_m2_s", "solute diffusivity (m²/s)", r.Diffusivity, 3),
+	)
+}
+
+// coastTimeLabel says whether the coasting time is a time to stop or the
+// time constant of a speed that decays without stopping.
+func coastTimeLabel(stops bool) string {
+	if stops {
+		return "coasting: time to stop (s)"
+	}
+	return "coasting time after stopping (s)"
+}
+
+// powerFields are the power lines: a glide shows its sink speed and glide
+// ratio and no flapping power.
+func powerFields(p regime.Power) []report.Field {
+	fs := []report.Field{{Key: "power_kind", Label: "power", Value: p.Kind}}
+	f := p.Flight
+	if p.Kind == regime.PowerGliding {
+		fs[0].Value = "gliding: no flapping power"
+		return append(fs,
+			report.F("power_W", "height energy spent, m g × sink speed (W)", p.Total, 4),
+			report.F("sink_speed_m_s", "  sink speed (m/s)", f.SinkSpeed, 4),
+			report.F("glide_ratio", "  glide ratio (lift/drag)", f.GlideRatio, 3),
+			report.F("body_drag_coefficient", "  body drag coefficient (on frontal area)", f.BodyDragCoefficient, 3),
+			report.Maybe("profile_drag_coefficient", "  profile-drag coefficient", f.ProfileCD, 3),
+		)
+	}
+	fs = append(fs, report.F("power_W", "power needed (W)", p.Total, 4))
+	if f == nil {
+		return fs
+	}
+	return append(fs,
+		report.F("induced_power_W", "  induced power (W)", f.Induced, 4),
+		report.F("parasite_power_W", "  parasite power (W)", f.Parasite, 4),
+		report.F("profile_power_W", "  profile power (W)", f.Profile, 4),
+		report.Field{Key: "profile_method", Label: "  profile power method", Value: f.ProfileMethod},
+		report.F("hover_induced_power_W", "  induced power in hover (W)", f.HoverInduced, 4),
+		report.F("body_drag_coefficient", "  body drag coefficient (on frontal area)", f.BodyDragCoefficient, 3),
+		report.Maybe("profile_ratio", "  profile power ratio X1", f.ProfileRatio, 3),
+		report.Maybe("profile_drag_coefficient", "  profile-drag coefficient", f.ProfileCD, 3),
 	)
 }
 

@@ -24,6 +24,7 @@ type calcJSON struct {
 	Power            powerJSON        `json:"power"`
 	CoastTime        *float64         `json:"coasting_time_s,omitempty"`
 	CoastDistance    *float64         `json:"coasting_distance_m,omitempty"`
+	CoastStops       *bool            `json:"coasting_stops,omitempty"`
 	Peclet           *float64         `json:"peclet,omitempty"`
 	GeneralizedRe    *float64         `json:"generalized_reynolds,omitempty"`
 	BinghamNumber    *float64         `json:"bingham_number,omitempty"`
@@ -143,6 +144,11 @@ type powerJSON struct {
 	DiscArea        *float64 `json:"disc_area_m2,omitempty"`
 	ProfileCD       *float64 `json:"profile_drag_coefficient,omitempty"`
 	ChordReynolds   *float64 `json:"chord_reynolds,omitempty"`
+	ProfileMethod   string   `json:"profile_method,omitempty"`
+	ProfileRatio    *float64 `json:"profile_power_ratio,omitempty"`
+	BodyCD          *float64 `json:"body_drag_coefficient,omitempty"`
+	SinkSpeed       *float64 `json:"sink_speed_m_s,omitempty"`
+	GlideRatio      *float64 `json:"glide_ratio,omitempty"`
 }
 
 func newCalcJSON(r regime.Result) calcJSON {
@@ -165,14 +171,22 @@ func newCalcJSON(r regime.Result) calcJSON {
 		j.Drag.Estimates = append(j.Drag.Estimates, estimateJSON{Law: e.Law, Force: e.Force, Coefficient: e.Coefficient,
 			Reynolds: e.Reynolds, Basis: e.Basis, InRange: e.InRange, Range: regime.Law{ReMin: e.ReMin, ReMax: e.ReMax}.Range()})
 	}
-	if r.Power.Kind != regime.PowerFlight {
+	if r.Power.Flight == nil {
 		j.Power.Efficiency = report.Opt(r.Power.Efficiency)
 	}
 	if f := r.Power.Flight; f != nil {
 		j.Power.Induced, j.Power.Parasite, j.Power.Profile = report.Opt(f.Induced), report.Opt(f.Parasite), report.Opt(f.Profile)
-		j.Power.HoverInduced, j.Power.InducedVelocity = report.Opt(f.HoverInduced), report.Opt(f.InducedVelocity)
+		if !f.Gliding {
+			j.Power.HoverInduced = report.Opt(f.HoverInduced)
+		}
+		j.Power.InducedVelocity = report.Opt(f.InducedVelocity)
 		j.Power.DiscArea, j.Power.ProfileCD = report.Opt(f.DiscArea), report.Opt(f.ProfileCD)
 		j.Power.ChordReynolds = report.Opt(f.ChordReynolds)
+		j.Power.ProfileMethod, j.Power.ProfileRatio, j.Power.BodyCD = f.ProfileMethod, report.Opt(f.ProfileRatio), report.Opt(f.BodyDragCoefficient)
+		j.Power.SinkSpeed, j.Power.GlideRatio = report.Opt(f.SinkSpeed), report.Opt(f.GlideRatio)
+	}
+	if !math.IsNaN(r.CoastTime) {
+		j.CoastStops = &r.CoastStops
 	}
 	if !r.Medium.Newtonian() {
 		j.Medium.ShearRate, j.Medium.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)

@@ -266,6 +266,7 @@ func runFit(o *fitOptions, s Streams) error {
 		return err
 	}
 	fmt.Fprintf(s.Out, "Class: %s\n", rep.Class)
+	fmt.Fprintf(s.Out, "Class rule: %s\n", rep.Rule)
 	report.List(s.Out, "Evidence", rep.Evidence)
 	var ws []string
 	ws = append(ws, rep.Warnings...)
@@ -354,6 +355,7 @@ type modelJSON struct {
 
 type fitJSON struct {
 	Class     string      `json:"class"`
+	ClassRule string      `json:"class_rule"`
 	Best      string      `json:"best"`
 	Evidence  []string    `json:"evidence"`
 	Points    int         `json:"points"`
@@ -364,7 +366,7 @@ type fitJSON struct {
 }
 
 func newFitJSON(rep media.FitReport) fitJSON {
-	j := fitJSON{Class: rep.Class, Best: rep.Best, Evidence: nonNil(rep.Evidence), Points: rep.N,
+	j := fitJSON{Class: rep.Class, ClassRule: rep.Rule, Best: rep.Best, Evidence: nonNil(rep.Evidence), Points: rep.N,
 		RateRange: [2]float64{rep.MinRate, rep.MaxRate}, Residuals: "log stress", Warnings: nonNil(rep.Warnings)}
 	for _, f := range rep.Fits {
 		m := modelJSON{Model: f.Model.Name(), Parameters: map[string]float64{}, StandardErrors: map[string]*float64{},
