@@ -124,6 +124,9 @@ func Similar(p Prototype, lm, nu, rho float64, mode string) (Similarity, error) 
 	m.PowerRatio = m.ForceRatio * s
 	m.Organism = groups(p.Length, p.Speed, p.Frequency, p.Amplitude, p.Chord, p.Nu)
 	m.Model = groups(lm, m.Speed, m.Frequency, m.Amplitude, m.Chord, nu)
+	if !positive(m.Speed, m.ForceRatio, m.PowerRatio, m.TimeRatio, m.Model.Reynolds, m.Model.Froude) {
+		return Similarity{}, fmt.Errorf("regime: a model %.4g times the organism's size in this fluid gives speeds or forces beyond floating-point range", lambda)
+	}
 	return m, nil
 }
 

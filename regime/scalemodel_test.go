@@ -90,3 +90,11 @@ func TestSimilarRefusesBadInput(t *testing.T) {
 		}
 	}
 }
+
+// A scale of 1e-300 overflows the model speed (1e298 m/s in water): refused,
+// not printed as infinity.
+func TestSimilarRefusesOverflow(t *testing.T) {
+	if _, err := Similar(fish, 1e-301, fish.Nu, fish.Rho, MatchReynolds); err == nil {
+		t.Error("want an error for a model 1e-300 times the organism")
+	}
+}
