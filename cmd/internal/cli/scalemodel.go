@@ -151,7 +151,7 @@ func (o *scaleOptions) plan() (scalePlan, error) {
 		return p, usagef("--%s carries an uncertainty; scalemodel does not propagate it, give plain values", strings.ReplaceAll(us[0].Name, "_", "-"))
 	}
 	if !m.Newtonian() {
-		return p, usagef("--medium %s is non-Newtonian; a scale model in a Newtonian lab fluid cannot match its shear-rate dependence", o.calc.medium)
+		return p, fmt.Errorf("--medium %s is non-Newtonian; a scale model in a Newtonian lab fluid cannot match its shear-rate dependence", o.calc.medium)
 	}
 	org := in.Organism
 	p.medium = m

@@ -55,6 +55,11 @@ func newScaleResult(p scalePlan, rows []scaleRow) scaleResult {
 			r.notes = append(r.notes, r.whatWould())
 		}
 	}
+	for _, row := range r.rows {
+		if !row.Failed && (math.IsNaN(row.Colder) || math.IsNaN(row.Warmer)) {
+			r.notes = append(r.notes, row.Fluid+": ν one degree colder or warmer is not known (the fluid's data stop there); hold the tank at the stated temperature")
+		}
+	}
 	r.cautions = r.fluidCautions()
 	if c := r.similarityCaution(); c != "" {
 		r.cautions = append(r.cautions, c)
