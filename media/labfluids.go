@@ -203,7 +203,8 @@ func glycerolCautions(p *Properties, w, tC float64, brief bool) {
 	}
 	if w >= hygroscopicFraction {
 		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
-			return "medium: concentrated glycerol takes up water from the air, which lowers its viscosity; cover the tank and check the viscosity or density before each run"
+			drop := 100 * (1 - GlycerolKinematicViscosity(w-0.01, tC)/GlycerolKinematicViscosity(w, tC))
+			return fmt.Sprintf("medium: concentrated glycerol takes up water from the air; here one percent more water lowers ν by %.3g %%; cover the tank and check the viscosity or density before each run", drop)
 		})
 	}
 	if tC > hotGlycerolC {
