@@ -166,3 +166,30 @@ func TestScaleModelKeepsFailedCandidates(t *testing.T) {
 		}
 	}
 }
+
+// A fixed glycerol mixture that misses the target says at which tank
+// temperature it would hit it. A 1 mm limb at 1 cm/s in 20 °C water, as a
+// 10 cm model at 2.5 cm/s, needs ν ≈ 2.5e-4 m²/s, more than 90 % glycerol's
+// 1.77e-4 m²/s at 20 °C (Segur & Oberstar 219 mPa·s over Bosart & Snoddy
+// 1235.1 kg/m³), so the mixture must be colder; the stated temperature,
+// fed back through the medium command, must give the target (±2 %: the
+// temperature is printed to 3 digits and ν moves about 7 % per °C).
+func TestScaleModelFixedGlycerolTemperature(t *testing.T) {
+	out, errs, code := run(t, "scalemodel", "--length", "1mm", "--speed", "1cm/s", "--medium", "freshwater", "--model-length", "10cm",
+		"--model-speed", "2.5cm/s", "--fluid", "glycerol:0.9", "--format", "json")
+	if code != ExitFailure {
+		t.Fatalf("exit %d (%s); want 1: 90 %% glycerol at 20 °C misses the target", code, errs)
+	}
+	status, _ := scaleFluids(t, out)[0]["status"].(string)
+	i := strings.Index(status, "reaches the target at ")
+	if i < 0 {
+		t.Fatalf("status %q lacks the temperature", status)
+	}
+	temp := strings.TrimSuffix(status[i+len("reaches the target at "):], " °C")
+	mout, merrs, mcode := run(t, "medium", "glycerol:0.9", "--temp", temp+"C", "--format", "json")
+	if mcode != 0 {
+		t.Fatalf("medium at %s °C: %s", temp, merrs)
+	}
+	target := num(t, decode(t, out), "target_nu_m2_s")
+	relNear(t, "ν of 90 % glycerol at the stated temperature", num(t, decode(t, mout), "kinematic_viscosity_m2_s"), target, 0.02)
+}

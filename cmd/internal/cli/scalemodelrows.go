@@ -58,7 +58,17 @@ func (p *scalePlan) evaluate(name string) scaleRow {
 		return row
 	}
 	row.Matches, row.Status = p.status(props.KinematicViscosity)
+	if !row.Matches && !math.IsNaN(p.target) && isGlycerol(name) {
+		if t, err := media.GlycerolTemperatureFor(fraction, p.target); err == nil {
+			row.Status += fmt.Sprintf("; this mixture reaches the target at %s °C", report.Num(t, 3))
+		}
+	}
 	return row
+}
+
+func isGlycerol(name string) bool {
+	kind, _, ok, err := media.ParseLabFluid(name)
+	return ok && err == nil && kind == media.KindGlycerol
 }
 
 // sensitivity returns the relative change of ν at one degree colder and
