@@ -82,9 +82,6 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 		}
 		return p, nil
 	}
-	if p, ok, err := lookupLab(c, brief); ok {
-		return p, err
-	}
 	switch strings.ToLower(c.Medium) {
 	case KindAir:
 		if !math.IsNaN(c.DepthM) || !math.IsNaN(c.SalinityPractical) {
@@ -102,6 +99,9 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 	case "":
 		return Properties{}, fmt.Errorf("media: no medium given; accepted: %s", strings.Join(Kinds, ", "))
 	default:
+		if p, ok, err := lookupLab(c, brief); ok {
+			return p, err
+		}
 		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s, %s, or a medium file (.json)", c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
 	}
 }

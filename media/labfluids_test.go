@@ -203,6 +203,16 @@ func TestLookupLabFluids(t *testing.T) {
 			t.Errorf("%s: got %v, want %q", name, err, want)
 		}
 	}
+	deep := Unset("glycerol:0.5")
+	deep.DepthM = 3
+	if p, err := Lookup(deep); err != nil || len(p.Warnings) == 0 || p.Warnings[len(p.Warnings)-1].Code != WarnIgnored {
+		t.Errorf("glycerol with a depth: want the depth ignored out loud, got %v, %v", p.Warnings, err)
+	}
+	humid := Unset("sucrose:0.2")
+	humid.HumidityPercent = 50
+	if _, err := Lookup(humid); err == nil {
+		t.Error("sucrose with a humidity: want a refusal")
+	}
 	hot := Unset("glycerol:0.9")
 	hot.TemperatureC = 120
 	if _, err := Lookup(hot); err == nil {
