@@ -21,6 +21,11 @@ const (
 	fluidOil      = "oil"
 )
 
+// unscaledFlags are calc's organism flags that a scale model does not use;
+// they are refused rather than ignored.
+var unscaledFlags = []string{"diameter", "shape", "mass", "span", "wing-length", "wing-area", "stroke-angle", "efficiency", "drag-coefficient",
+	"area", "induced-factor", "profile-drag", "disc", "diffusivity", "shear-rate", "relaxation-time"}
+
 // defaultFluids are the candidates tried when no --fluid is given.
 var defaultFluids = []string{media.KindFreshWater, media.KindGlycerol, media.KindSucrose}
 
@@ -78,10 +83,18 @@ fraction, sucrose, oil) that makes the match possible.
 			if err := report.CheckFormat(o.calc.format); err != nil {
 				return usageError{err}
 			}
+			for _, name := range unscaledFlags {
+				if cmd.Flags().Changed(name) {
+					return usagef("--%s does not enter a scale model; scalemodel scales the whole shape and takes Re on --length (give there the length Re should be on), St on --amplitude, k on --chord", name)
+				}
+			}
 			return runScaleModel(o, s)
 		},
 	}
 	o.calc.organism.bind(cmd)
+	for _, name := range unscaledFlags {
+		_ = cmd.Flags().MarkHidden(name)
+	}
 	fs := cmd.Flags()
 	fs.StringVar(&o.calc.medium, "medium", media.KindFreshWater, "the organism's medium: air, freshwater, seawater, a lab fluid or a medium file")
 	o.calc.flags.bind(fs)

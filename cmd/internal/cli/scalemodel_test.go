@@ -134,6 +134,7 @@ func TestScaleModelBadInput(t *testing.T) {
 		{[]string{"--scale", "2", "--oil-point", "20C=1mPas", "--oil-point", "40C=2mPas", "--oil-density", "900kg/m3"}, "does not fall", ExitUsage},
 		{[]string{"--scale", "2", "--oil-point", "20C=1mPas", "--oil-point", "40C=0.5mPas"}, "--oil-density", ExitUsage},
 		{[]string{"--scale", "2", "--tank-temp", "hot"}, "--tank-temp", ExitUsage},
+		{[]string{"--scale", "2", "--mass", "1mg"}, "--mass does not enter", ExitUsage},
 		{[]string{"--scale", "2", "--medium", "glycerol:1.5"}, "outside 0 to 1", ExitFailure},
 		{[]string{"--scale", "2", "--medium", "../../../testdata/media/mucus.json"}, "non-Newtonian", ExitFailure},
 		{[]string{"--scale", "2", "--amplitude", "1±0.1mm"}, "--amplitude carries an uncertainty", ExitUsage},
