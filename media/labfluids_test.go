@@ -152,6 +152,14 @@ func TestOilAndradeVector(t *testing.T) {
 	}
 	within(t, "E_a (J/mol)", o.ActivationEnergy(), 16490, 5e-4)
 	within(t, "μ(25 °C)", o.Viscosity(25)*1e3, 0.8942, 1e-4)
+	// Inverting at the 25 °C prediction must give 25 °C back; 0.5 mPa·s
+	// would need about 57 °C, beyond the points' reach.
+	if tc, err := o.TemperatureFor(0.8942e-3 / 998); err != nil || math.Abs(tc-25) > 0.01 {
+		t.Errorf("temperature for 0.8942 mPa·s = %v, %v; want 25 °C", tc, err)
+	}
+	if _, err := o.TemperatureFor(0.5e-3 / 998); err == nil {
+		t.Error("0.5 mPa·s: want out of reach")
+	}
 	p, err := o.Properties(45)
 	if err != nil || len(p.Warnings) != 1 {
 		t.Errorf("45 °C (8 °C beyond the points): want a value with one warning, got %v %v", p.Warnings, err)

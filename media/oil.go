@@ -94,3 +94,19 @@ func (o Oil) Properties(tC float64) (Properties, error) {
 	}
 	return p, nil
 }
+
+// TemperatureFor returns the temperature (°C) at which the oil has kinematic
+// viscosity nu (m²/s), by inverting Andrade's law, T = B/(ln(νρ) − A); an
+// *OutOfReachError when that lies more than 10 °C beyond the measured range.
+func (o Oil) TemperatureFor(nu float64) (float64, error) {
+	if !finite(nu) || nu <= 0 {
+		return 0, fmt.Errorf("media: the wanted kinematic viscosity must be a positive number")
+	}
+	tK := o.B / (math.Log(nu*o.Density) - o.A)
+	lo, hi := o.MinC-oilReachC, o.MaxC+oilReachC
+	if !(tK > 0) || tK-ZeroCelsiusK < lo || tK-ZeroCelsiusK > hi {
+		return 0, &OutOfReachError{Fluid: o.Name + fmt.Sprintf(" over %.4g–%.4g °C", lo, hi), Want: nu,
+			Low: o.Viscosity(hi) / o.Density, High: o.Viscosity(lo) / o.Density, TC: math.NaN()}
+	}
+	return tK - ZeroCelsiusK, nil
+}

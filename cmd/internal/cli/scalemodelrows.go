@@ -58,12 +58,28 @@ func (p *scalePlan) evaluate(name string) scaleRow {
 		return row
 	}
 	row.Matches, row.Status = p.status(props.KinematicViscosity)
-	if !row.Matches && !math.IsNaN(p.target) && isGlycerol(name) {
-		if t, err := media.GlycerolTemperatureFor(fraction, p.target); err == nil {
-			row.Status += fmt.Sprintf("; this mixture reaches the target at %s °C", report.Num(t, 3))
+	if !row.Matches && !math.IsNaN(p.target) {
+		if t, ok := p.targetTemperature(name, fraction); ok {
+			row.Status += fmt.Sprintf("; this fluid reaches the target at %s °C", report.Num(t, 3))
 		}
 	}
 	return row
+}
+
+// targetTemperature returns the tank temperature at which a fixed glycerol
+// mixture or the measured oil has the target viscosity, if within its data.
+func (p *scalePlan) targetTemperature(name string, fraction float64) (float64, bool) {
+	var t float64
+	var err error
+	switch {
+	case isGlycerol(name):
+		t, err = media.GlycerolTemperatureFor(fraction, p.target)
+	case strings.EqualFold(strings.TrimSpace(name), fluidOil) && p.oil != nil:
+		t, err = p.oil.TemperatureFor(p.target)
+	default:
+		return 0, false
+	}
+	return t, err == nil
 }
 
 func isGlycerol(name string) bool {
