@@ -194,3 +194,12 @@ func TestScaleModelFixedGlycerolTemperature(t *testing.T) {
 	target := num(t, decode(t, out), "target_nu_m2_s")
 	relNear(t, "ν of 90 % glycerol at the stated temperature", num(t, decode(t, mout), "kinematic_viscosity_m2_s"), target, 0.02)
 }
+
+// The organism's medium warnings are passed on, as calc does: sea water at
+// 45 °C is outside EOS-80's −2 to 40 °C (UNESCO 1981).
+func TestScaleModelOrganismMediumWarning(t *testing.T) {
+	out, errs, code := run(t, "scalemodel", "--length", "1mm", "--speed", "1cm/s", "--scale", "10", "--medium", "seawater", "--temp", "45C", "--fluid", "freshwater")
+	if code != 0 || !strings.Contains(out, "organism medium: sea water: 45 °C is outside") {
+		t.Errorf("exit %d (%s); cautions lack the organism medium's warning:\n%s", code, errs, out)
+	}
+}

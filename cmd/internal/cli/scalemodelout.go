@@ -78,17 +78,23 @@ func (r scaleResult) whatWould() string {
 		report.Num(sMu/sLo, 3), report.Num(sHiMu/sHiRho, 3))
 }
 
+// fluidCautions lists the warnings of the organism's medium and of every
+// candidate fluid, each once, named by its fluid.
 func (r scaleResult) fluidCautions() []string {
 	var out []string
 	seen := map[string]bool{}
-	for _, row := range r.rows {
-		for _, w := range row.Props.Warnings {
-			msg := row.Fluid + ": " + strings.TrimPrefix(w.Message, "medium: ")
+	add := func(who string, ws []media.Warning) {
+		for _, w := range ws {
+			msg := who + ": " + strings.TrimPrefix(w.Message, "medium: ")
 			if !seen[msg] {
 				seen[msg] = true
 				out = append(out, msg)
 			}
 		}
+	}
+	add("organism medium", r.plan.medium.Warnings)
+	for _, row := range r.rows {
+		add(row.Fluid, row.Props.Warnings)
 	}
 	return out
 }
