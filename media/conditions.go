@@ -89,7 +89,10 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 	case "":
 		return Properties{}, fmt.Errorf("media: no medium given; accepted: %s", strings.Join(Kinds, ", "))
 	default:
-		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s, or a medium file (.json)", c.Medium, strings.Join(Kinds, ", "))
+		if p, ok, err := lookupLab(c, brief); ok {
+			return p, err
+		}
+		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s, %s, or a medium file (.json)", c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
 	}
 }
 

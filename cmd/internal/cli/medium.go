@@ -18,7 +18,7 @@ type mediumOptions struct {
 func newMediumCmd(s Streams) *cobra.Command {
 	o := &mediumOptions{}
 	cmd := &cobra.Command{
-		Use:   "medium {air | freshwater | seawater | FILE.json}",
+		Use:   "medium {air | freshwater | seawater | glycerol:<mass fraction> | sucrose:<mass fraction> | FILE.json}",
 		Short: "Density and viscosity of air, fresh water, sea water or a measured fluid",
 		Long: `Print the density, dynamic viscosity and kinematic viscosity of a medium at
 the stated conditions, with the published methods used and a warning for
@@ -28,10 +28,11 @@ measured shear-rate range.
 ` + mediumFlagHelp,
 		Example: `  flowregime medium seawater --temp 12C --salinity 34.5psu --depth 40m
   flowregime medium freshwater --temp 4C --format json
-  flowregime medium air --altitude 2500m --humidity 60%`,
+  flowregime medium air --altitude 2500m --humidity 60%
+  flowregime medium glycerol:85% --temp 22C`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
-				return usagef("medium needs one argument, the medium: %s, or a medium file (.json)", strings.Join(media.Kinds, ", "))
+				return usagef("medium needs one argument, the medium: %s, %s, or a medium file (.json)", strings.Join(media.Kinds, ", "), strings.Join(media.LabKinds, ", "))
 			}
 			return nil
 		},
