@@ -70,13 +70,13 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 		if err != nil {
 			return Properties{}, err
 		}
-		p, err := f.Properties()
+		p, err := f.PropertiesAt(c.TemperatureC)
 		if err != nil {
 			return p, err
 		}
-		for _, v := range []float64{c.TemperatureC, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
+		for _, v := range []float64{c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
 			if !math.IsNaN(v) {
-				p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: temperature, salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
+				p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
 				break
 			}
 		}
