@@ -48,7 +48,9 @@ func targetRates() []float64 {
 	return g
 }
 
-func integrate(f func(float64) float64, a, b float64) float64 { return quad.Fixed(f, a, b, 200, nil, 0) }
+func integrate(f func(float64) float64, a, b float64) float64 {
+	return quad.Fixed(f, a, b, 200, nil, 0)
+}
 
 func readingsFor(geometry Geometry, s sample, rng *rand.Rand) []Reading {
 	noise := func() float64 { return math.Exp(0.02 * rng.NormFloat64()) }
