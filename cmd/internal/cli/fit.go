@@ -311,12 +311,17 @@ func (o *fitOptions) saveMedium(rep media.FitReport) error {
 		}
 		mf.RelaxationTime = &t.SI
 	}
+	return writeMediumFile(o.save, mf)
+}
+
+// writeMediumFile checks a medium file and writes it atomically to path.
+func writeMediumFile(path string, mf media.MediumFile) error {
 	if err := mf.Check(); err != nil {
 		return fmt.Errorf("%s", trimPkg(err))
 	}
-	af, err := createAtomic(o.save)
+	af, err := createAtomic(path)
 	if err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, err)
+		return fmt.Errorf("cannot write %s: %v", path, err)
 	}
 	defer af.abort()
 	e := json.NewEncoder(af)
