@@ -257,6 +257,9 @@ func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 	if o.save != "" && o.density == "" {
 		return usagef("--save needs the fluid's --density, e.g. --density 1020kg/m3")
 	}
+	if o.output != "" && o.output == o.save {
+		return usagef("-o and --save name the same file %s", o.output)
+	}
 	if err := checkOutputs(o.input, o.output, o.save); err != nil {
 		return err
 	}
@@ -284,9 +287,7 @@ func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 		if err != nil {
 			return err
 		}
-		for i := range table.readings {
-			table.readings[i].FallSpeed = d / table.readings[i].FallSpeed
-		}
+		table = table.timesToSpeeds(d)
 	}
 	curve, err := g.Reduce(table.readings, o.window)
 	if err != nil {
@@ -321,6 +322,21 @@ func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 		return exitError{code: ExitRejected, msg: fmt.Sprintf("%d row(s) rejected; %d point(s) reduced", len(rejects), len(curve.Points))}
 	}
 	return nil
+}
+
+// timesToSpeeds turns fall times over distance d into fall speeds,
+// rejecting times that are not positive.
+func (t readingTable) timesToSpeeds(d float64) readingTable {
+	out := readingTable{rejects: t.rejects}
+	for _, r := range t.readings {
+		if !(r.FallSpeed > 0) {
+			out.rejects = append(out.rejects, rowReject{r.Line, fmt.Sprintf("fall time %g s must be positive", r.FallSpeed)})
+			continue
+		}
+		r.FallSpeed = d / r.FallSpeed
+		out.readings = append(out.readings, r)
+	}
+	return out
 }
 
 type reduceResult struct {
