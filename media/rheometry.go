@@ -126,9 +126,19 @@ func trimMedia(err error) string {
 	return m
 }
 
-// judge adds the per-point notes on the size of the correction and the
-// noise of the slope, and a curve-level warning when any point has them.
+// judge rejects points whose values overflowed, adds the per-point notes
+// on the size of the correction and the noise of the slope, and a
+// curve-level warning when any point has them.
 func (c *FlowCurve) judge() {
+	kept := c.Points[:0]
+	for _, p := range c.Points {
+		if !positive(p.ShearRate, p.Stress) {
+			c.Rejected = append(c.Rejected, Rejected{p.Lines, fmt.Sprintf("the shear rate (%g 1/s) or stress (%g Pa) is not a positive finite number: the readings are out of any usable range", p.ShearRate, p.Stress)})
+			continue
+		}
+		kept = append(kept, p)
+	}
+	c.Points = kept
 	large, noisy := 0, 0
 	for i := range c.Points {
 		p := &c.Points[i]
@@ -282,6 +292,7 @@ func (g ConePlate) Reduce(rs []Reading, _ int) (FlowCurve, error) {
 		c.Points = append(c.Points, FlowPoint{Lines: []int{r.Line}, ShearRate: r.AngularSpeed / math.Tan(g.Angle),
 			Stress: 3 * r.Torque / (2 * math.Pi * math.Pow(g.Radius, 3)), Slope: math.NaN(), SlopeSE: math.NaN(), Reynolds: math.NaN()})
 	}
+	c.judge()
 	// Cone-and-plate viscometry of Casson and Herschel–Bulkley fluids
 	// (Tohoku University): first-order expressions err by under 1 % only
 	// up to 2°.

@@ -262,3 +262,15 @@ func countLines(rj []Rejected) int {
 	}
 	return n
 }
+
+// A reading so large that its stress overflows is rejected by line, not
+// passed on as infinity.
+func TestOverflowRejected(t *testing.T) {
+	c, err := ConePlate{Radius: 0.001, Angle: 0.01}.Reduce([]Reading{{Line: 2, AngularSpeed: 1, Torque: 1e300}, {Line: 3, AngularSpeed: 1, Torque: 1e-6}}, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(c.Points) != 1 || len(c.Rejected) != 1 || c.Rejected[0].Lines[0] != 2 {
+		t.Errorf("points %v, rejected %v", c.Points, c.Rejected)
+	}
+}
