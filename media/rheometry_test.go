@@ -274,3 +274,14 @@ func TestOverflowRejected(t *testing.T) {
 		t.Errorf("points %v, rejected %v", c.Points, c.Rejected)
 	}
 }
+
+// The laminar check's Reynolds number, 8ρV̄²/τ_w, equals the Metzner–Reed
+// form for a power-law fluid, Re = ρV^(2−n)D^n/(8^(n−1)((3n+1)/(4n))^n K),
+// as quoted in CHAM's PHOENICS validation case (power-law pipe flow).
+func TestMetznerReed(t *testing.T) {
+	const k, n, rho, d, q = 0.05, 0.7, 1005.0, 0.8e-3, 2e-8
+	v := q / (math.Pi * d * d / 4)
+	tau := k * math.Pow(RabinowitschFactor(n)*CapillaryApparentRate(q, d), n)
+	want := rho * math.Pow(v, 2-n) * math.Pow(d, n) / (math.Pow(8, n-1) * math.Pow(0.75+0.25/n, n) * k)
+	near(t, "Metzner–Reed Re", Capillary{Diameter: d, Length: 0.04, FluidDensity: rho}.metznerReed(q, tau), want, 1e-12)
+}

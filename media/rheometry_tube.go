@@ -106,15 +106,17 @@ func (g Capillary) Reduce(rs []Reading, window int) (FlowCurve, error) {
 		c.Warnings = append(c.Warnings, fmt.Sprintf("%d point(s) have a Reynolds number above 2100, where tube flow may not be laminar and every formula here fails", turbulent))
 	}
 	if g.FluidDensity > 0 {
-		c.Methods = append(c.Methods, "laminar check: Metzner–Reed Reynolds number Re = ρV̄D/(τ_w/γ̇_app) = 8ρV̄²/τ_w below 2100 (Metzner & Reed 1955, AIChE J. 1:434; recalled from memory)")
+		c.Methods = append(c.Methods, "laminar check: Metzner–Reed Reynolds number Re = ρV̄D/(τ_w/γ̇_app) = 8ρV̄²/τ_w below 2100 (Metzner & Reed 1955, AIChE J. 1:434)")
 	}
 	c.judge()
 	return c, nil
 }
 
 // metznerReed is the generalised Reynolds number ρV̄D/μ_app with
-// μ_app = τ_w/γ̇_app, which is 8ρV̄²/τ_w (Metzner & Reed 1955; recalled
-// from memory).
+// μ_app = τ_w/γ̇_app, which is 8ρV̄²/τ_w (Metzner & Reed 1955, AIChE J.
+// 1:434). For a power-law fluid it equals the form
+// ρV̄^(2−n)D^n/(8^(n−1)((3n+1)/(4n))^n K) quoted in CHAM's PHOENICS
+// validation case for power-law pipe flow.
 func (g Capillary) metznerReed(flow, tau float64) float64 {
 	v := flow / (math.Pi * g.Diameter * g.Diameter / 4)
 	return 8 * g.FluidDensity * v * v / tau
