@@ -174,7 +174,7 @@ func (f MediumFile) PropertiesAt(tC float64) (Properties, error) {
 	p.TemperatureC = tC
 	p.DynamicViscosity *= a
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
-	p.Methods = append(p.Methods, fmt.Sprintf("temperature: viscosities and stresses × %.4g from %.3g °C to %.3g °C (%s); flow index and time constants kept; density kept", a, ref, tC, d.Method))
+	p.Methods[0] += fmt.Sprintf("; at %.3g °C every viscosity and stress × %.4g (%s temperature dependence from %.3g °C; flow index, time constants and density kept)", tC, a, d.Method, ref)
 	if lo, hi := d.Range(); tC < lo || tC > hi {
 		p.Warnings = append(p.Warnings, Warning{Code: WarnOutOfRange, Message: fmt.Sprintf("medium: %.3g °C is outside %.3g–%.3g °C, where the file's temperature dependence was measured; the viscosity is extrapolated", tC, lo, hi)})
 	}
