@@ -150,10 +150,10 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 		if err == io.EOF {
 			break
 		}
-		line, _ := cr.FieldPos(0)
 		if err != nil {
-			return nil, fmt.Errorf("line %d: %v", line, err)
+			return nil, err // a csv.ParseError names its line
 		}
+		line, _ := cr.FieldPos(0)
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}

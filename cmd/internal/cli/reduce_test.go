@@ -163,3 +163,25 @@ func TestReduceFallingBallSaves(t *testing.T) {
 		t.Errorf("viscosity %.4g Pa·s, made with 0.85", mu)
 	}
 }
+
+// A table with a broken quote is refused with its line by fit (which
+// panicked on it before: csv.Reader.FieldPos has no record after a parse
+// error) and rejected by line in reduce.
+func TestBrokenQuote(t *testing.T) {
+	dir := t.TempDir()
+	p := filepath.Join(dir, "q.csv")
+	if err := os.WriteFile(p, []byte("shear rate (1/s),shear stress (Pa)\n1,2\n\"3\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if _, stderr, code := run(t, "fit", p); code != 1 || !strings.Contains(stderr, "line 3") {
+		t.Errorf("fit: exit %d, stderr %q", code, stderr)
+	}
+	q := filepath.Join(dir, "r.csv")
+	if err := os.WriteFile(q, []byte("speed (rpm),torque (mN·m)\n1,0.40\n2,0.47\n5,0.58\n\"10,0.69\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, stderr, code := run(t, "reduce", q, "--geometry", "cone-plate", "--radius", "20mm", "--cone-angle", "1deg")
+	if code != ExitRejected || !strings.Contains(stderr, "line 5 rejected: not a valid table row") {
+		t.Errorf("reduce: exit %d, stderr %q", code, stderr)
+	}
+}

@@ -142,7 +142,6 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 		if err == io.EOF {
 			return t, nil
 		}
-		line, _ := cr.FieldPos(0)
 		var pe *csv.ParseError
 		if errors.As(err, &pe) {
 			t.rejects = append(t.rejects, rowReject{pe.StartLine, fmt.Sprintf("not a valid table row: %v", pe.Err)})
@@ -151,6 +150,7 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 		if err != nil {
 			return t, err
 		}
+		line, _ := cr.FieldPos(0)
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}
