@@ -84,6 +84,7 @@ func TestReduceBadInputs(t *testing.T) {
 		{"ball wider than tube", []string{"reduce", goodFile, "--geometry", "falling-ball", "--ball-diameter", "40mm", "--tube-diameter", "30mm", "--ball-density", "7800kg/m3", "--density", "1300kg/m3"}, 2, "narrower than the tube"},
 		{"unknown wall correction", []string{"reduce", goodFile, "--geometry", "falling-ball", "--ball-diameter", "2mm", "--tube-diameter", "30mm", "--ball-density", "7800kg/m3", "--density", "1300kg/m3", "--wall", "none"}, 2, "unknown wall correction"},
 		{"no such file", cup(filepath.Join(dir, "missing.csv")), 1, "cannot read"},
+		{"columns without units", cup(write("nu.csv", "\ufeffspeed,torque\n1,0.4\n2,0.5\n")), 2, `column "speed" has no unit: name it "speed (rpm)"`},
 	}
 	for _, c := range cases {
 		_, stderr, code := run(t, c.args...)

@@ -18,24 +18,25 @@ type readingRole struct {
 	role     string
 	names    []string
 	kind     quantity.Kind
+	unit     string // a usual unit, for messages
 	optional bool
 	set      func(r *media.Reading, v float64)
 }
 
 var (
-	roleSpeed = readingRole{"speed", []string{"speed", "rotation", "rotational speed", "angular speed", "angular velocity", "omega"}, quantity.Rotation, false,
+	roleSpeed = readingRole{"speed", []string{"speed", "rotation", "rotational speed", "angular speed", "angular velocity", "omega"}, quantity.Rotation, "rpm", false,
 		func(r *media.Reading, v float64) { r.AngularSpeed = v }}
-	roleTorque = readingRole{"torque", []string{"torque"}, quantity.Torque, false,
+	roleTorque = readingRole{"torque", []string{"torque"}, quantity.Torque, "mN·m", false,
 		func(r *media.Reading, v float64) { r.Torque = v }}
-	roleFlow = readingRole{"flow", []string{"flow rate", "flow", "volume flow", "volume flow rate", "q"}, quantity.VolumeFlow, false,
+	roleFlow = readingRole{"flow", []string{"flow rate", "flow", "volume flow", "volume flow rate", "q"}, quantity.VolumeFlow, "mL/min", false,
 		func(r *media.Reading, v float64) { r.FlowRate = v }}
-	rolePressure = readingRole{"pressure", []string{"pressure drop", "pressure", "delta p", "dp"}, quantity.Pressure, false,
+	rolePressure = readingRole{"pressure", []string{"pressure drop", "pressure", "delta p", "dp"}, quantity.Pressure, "Pa", false,
 		func(r *media.Reading, v float64) { r.PressureDrop = v }}
-	roleLength = readingRole{"length", []string{"tube length", "capillary length", "length"}, quantity.Length, true,
+	roleLength = readingRole{"length", []string{"tube length", "capillary length", "length"}, quantity.Length, "mm", true,
 		func(r *media.Reading, v float64) { r.TubeLength = v }}
-	roleFallSpeed = readingRole{"speed", []string{"fall speed", "terminal speed", "speed", "velocity"}, quantity.Speed, false,
+	roleFallSpeed = readingRole{"speed", []string{"fall speed", "terminal speed", "speed", "velocity"}, quantity.Speed, "mm/s", false,
 		func(r *media.Reading, v float64) { r.FallSpeed = v }}
-	roleFallTime = readingRole{"time", []string{"fall time", "time"}, quantity.Time, false,
+	roleFallTime = readingRole{"time", []string{"fall time", "time"}, quantity.Time, "s", false,
 		func(r *media.Reading, v float64) { r.FallSpeed = v }} // a time until divided by the fall distance
 )
 
@@ -104,6 +105,9 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 	if err != nil {
 		return t, usagef("cannot read the header: %v", err)
 	}
+	if len(header) > 0 {
+		header[0] = strings.TrimPrefix(header[0], "\ufeff")
+	}
 	col := make([]int, len(roles))
 	unit := make([]string, len(roles))
 	for i := range col {
@@ -134,9 +138,10 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 	}
 	for k, r := range roles {
 		if col[k] < 0 && !r.optional {
-			return t, usagef("no %s column; name one %q (columns: %s)", r.role, r.names[0]+" ("+quantity.Example(r.kind)+")", strings.Join(header, ", "))
+			return t, usagef("no %s column; name one %q (columns: %s)", r.role, r.names[0]+" ("+r.unit+")", strings.Join(header, ", "))
 		}
 	}
+	first := true
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
@@ -154,6 +159,12 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}
+		if first {
+			if err := unitsGiven(rec, header, roles, col, unit); err != nil {
+				return t, err
+			}
+			first = false
+		}
 		rd := media.Reading{Line: line, TubeLength: math.NaN()}
 		if reason := fillReading(&rd, rec, header, roles, col, unit); reason != "" {
 			t.rejects = append(t.rejects, rowReject{line, reason})
@@ -161,6 +172,22 @@ func readReadings(r io.Reader, tsv bool, roles []readingRole, units map[string]s
 		}
 		t.readings = append(t.readings, rd)
 	}
+}
+
+// unitsGiven refuses a table whose column has no unit, neither in its
+// header nor by --unit, when the first row's cell is a bare number: every
+// row would be refused for it.
+func unitsGiven(rec, header []string, roles []readingRole, col []int, unit []string) error {
+	for k, r := range roles {
+		i := col[k]
+		if i < 0 || i >= len(rec) || unit[k] != "" {
+			continue
+		}
+		if _, plain := quantity.PlainNumber(strings.TrimSpace(rec[i])); plain {
+			return usagef("column %q has no unit: name it %q or give --unit %s=%s (accepted: %s)", header[i], r.names[0]+" ("+r.unit+")", r.role, r.unit, strings.Join(quantity.Units(r.kind), ", "))
+		}
+	}
+	return nil
 }
 
 // fillReading sets the reading's fields from the row, or says why it cannot.
