@@ -20,10 +20,11 @@ var GeometryNames = []string{GeometryCouette, GeometryConePlate, GeometryParalle
 
 // Thresholds for the per-point warnings (common practice, no source): a
 // correction that changes a value by more than LargeCorrection, or a local
-// slope whose standard error exceeds NoisySlope, is pointed out.
+// slope whose standard error leaves the corrected value uncertain by more
+// than NoisySlope (relative), is pointed out.
 const (
 	LargeCorrection = 0.25
-	NoisySlope      = 0.1
+	NoisySlope      = 0.05
 )
 
 // DefaultSlopeWindow is how many neighbouring readings the local slope is
@@ -44,15 +45,18 @@ type Reading struct {
 
 // FlowPoint is one point of a reduced flow curve.
 type FlowPoint struct {
-	Lines      []int   // the readings that made it
-	ShearRate  float64 // 1/s, corrected
-	Stress     float64 // Pa, corrected
-	Slope      float64 // local log–log slope the correction used; NaN when none
-	SlopeSE    float64 // standard error of Slope; NaN when unknown
-	Correction float64 // corrected ÷ Newtonian-formula value − 1, of Corrects
-	Corrects   string  // "shear rate", "stress", "viscosity" or "" when nothing is corrected
-	Reynolds   float64 // Reynolds number of the flow in the instrument; NaN when not computed
-	Notes      []string
+	Lines     []int   // the readings that made it
+	ShearRate float64 // 1/s, corrected
+	Stress    float64 // Pa, corrected
+	Slope     float64 // local log–log slope the correction used; NaN when none
+	SlopeSE   float64 // standard error of Slope; NaN when unknown
+	// SlopeSpread is the relative uncertainty of the corrected value that
+	// the slope's standard error causes; NaN when unknown.
+	SlopeSpread float64
+	Correction  float64 // corrected ÷ Newtonian-formula value − 1, of Corrects
+	Corrects    string  // "shear rate", "stress", "viscosity" or "" when nothing is corrected
+	Reynolds    float64 // Reynolds number of the flow in the instrument; NaN when not computed
+	Notes       []string
 }
 
 // Viscosity is the apparent viscosity of the point, Pa·s.
@@ -146,8 +150,8 @@ func (c *FlowCurve) judge() {
 			p.Notes = append(p.Notes, fmt.Sprintf("large correction: %s changed by %+.0f %%", p.Corrects, 100*p.Correction))
 			large++
 		}
-		if p.SlopeSE > NoisySlope {
-			p.Notes = append(p.Notes, fmt.Sprintf("noisy slope %.2f ± %.2f", p.Slope, p.SlopeSE))
+		if p.SlopeSpread > NoisySlope {
+			p.Notes = append(p.Notes, fmt.Sprintf("noisy slope %.3g ± %.2g leaves the %s uncertain by ±%.0f %%", p.Slope, p.SlopeSE, p.Corrects, 100*p.SlopeSpread))
 			noisy++
 		}
 	}
@@ -155,8 +159,22 @@ func (c *FlowCurve) judge() {
 		c.Warnings = append(c.Warnings, fmt.Sprintf("%d point(s) have a correction above %.0f %%: check the geometry and the readings", large, 100*LargeCorrection))
 	}
 	if noisy > 0 {
-		c.Warnings = append(c.Warnings, fmt.Sprintf("%d point(s) have a local slope with standard error above %.2g: the readings are noisy there; more readings or a wider --window steady the slope", noisy, NoisySlope))
+		c.Warnings = append(c.Warnings, fmt.Sprintf("%d point(s) have a local slope so noisy that the corrected value is uncertain by more than %.0f %%: more readings, or a wider --window, steady the slope", noisy, 100*NoisySlope))
 	}
+}
+
+// slopeSpread is half the relative change of a corrected value f(s)
+// between s − se and s + se: the uncertainty the slope's standard error
+// puts on it. It is infinite when either end gives no usable value.
+func slopeSpread(f func(s float64) float64, s, se float64) float64 {
+	if math.IsNaN(se) {
+		return math.NaN()
+	}
+	lo, hi := f(s-se), f(s+se)
+	if !positive(lo, hi) {
+		return math.Inf(1)
+	}
+	return math.Abs(math.Log(hi/lo)) / 2
 }
 
 // keepRising keeps the points; it moves those whose slope is not positive to the
@@ -226,7 +244,8 @@ func (g Couette) Reduce(rs []Reading, window int) (FlowCurve, error) {
 		gn := CouetteNewtonianRate(r.AngularSpeed, alpha)
 		gb := CouettePowerLawRate(r.AngularSpeed, alpha, s[i])
 		pts = append(pts, FlowPoint{Lines: []int{r.Line}, ShearRate: gb, Stress: CouetteBobStress(r.Torque, g.BobRadius, g.BobLength),
-			Slope: s[i], SlopeSE: se[i], Correction: gb/gn - 1, Corrects: "shear rate", Reynolds: math.NaN()})
+			Slope: s[i], SlopeSE: se[i], Correction: gb/gn - 1, Corrects: "shear rate", Reynolds: math.NaN(),
+			SlopeSpread: slopeSpread(func(s float64) float64 { return CouettePowerLawRate(r.AngularSpeed, alpha, s) }, s[i], se[i])})
 	}
 	c.keepRising(pts, "ln torque against ln speed")
 	// Steffe (1996, p. 167), after Yang & Krieger (1978): acceptable for
@@ -290,7 +309,7 @@ func (g ConePlate) Reduce(rs []Reading, _ int) (FlowCurve, error) {
 	c := FlowCurve{Geometry: g.Name(), Methods: []string{"cone and plate: σ = 3M/(2πR³), γ̇ = Ω/tan θ, uniform across the gap (Steffe 1996, §3.3)"}}
 	for _, r := range rotational(rs, &c) {
 		c.Points = append(c.Points, FlowPoint{Lines: []int{r.Line}, ShearRate: r.AngularSpeed / math.Tan(g.Angle),
-			Stress: 3 * r.Torque / (2 * math.Pi * math.Pow(g.Radius, 3)), Slope: math.NaN(), SlopeSE: math.NaN(), Reynolds: math.NaN()})
+			Stress: 3 * r.Torque / (2 * math.Pi * math.Pow(g.Radius, 3)), Slope: math.NaN(), SlopeSE: math.NaN(), SlopeSpread: math.NaN(), Reynolds: math.NaN()})
 	}
 	c.judge()
 	// Cone-and-plate viscometry of Casson and Herschel–Bulkley fluids
@@ -339,7 +358,8 @@ func (g ParallelPlate) Reduce(rs []Reading, window int) (FlowCurve, error) {
 		sig := ParallelPlateRimStress(r.Torque, g.Radius, s[i])
 		newt := 2 * r.Torque / (math.Pi * math.Pow(g.Radius, 3))
 		pts = append(pts, FlowPoint{Lines: []int{r.Line}, ShearRate: r.AngularSpeed * g.Radius / g.Gap, Stress: sig,
-			Slope: s[i], SlopeSE: se[i], Correction: sig/newt - 1, Corrects: "stress", Reynolds: math.NaN()})
+			Slope: s[i], SlopeSE: se[i], Correction: sig/newt - 1, Corrects: "stress", Reynolds: math.NaN(),
+			SlopeSpread: slopeSpread(func(s float64) float64 { return 3 + s }, s[i], se[i])})
 	}
 	c.keepRising(pts, "ln torque against ln speed")
 	c.judge()

@@ -285,3 +285,35 @@ func TestMetznerReed(t *testing.T) {
 	want := rho * math.Pow(v, 2-n) * math.Pow(d, n) / (math.Pow(8, n-1) * math.Pow(0.75+0.25/n, n) * k)
 	near(t, "Metzner–Reed Re", Capillary{Diameter: d, Length: 0.04, FluidDensity: rho}.metznerReed(q, tau), want, 1e-12)
 }
+
+// Readings of a nearly plastic fluid (slope about 0.1) with ±3 % scatter:
+// the shear rate at the bob then depends on the slope almost in proportion
+// (γ̇_b ≈ 2Ω/s when α^(−2/s) is small), so the slope's standard error is
+// carried into a per-point uncertainty and pointed out when it passes 5 %.
+func TestNoisySlopeIsPointedOut(t *testing.T) {
+	g := Couette{BobRadius: 0.010, CupRadius: 0.011, BobLength: 0.040}
+	var rs []Reading
+	for i := 0; i < 8; i++ {
+		om := math.Pow(2, float64(i))
+		m := 1e-3 * math.Pow(om, 0.1) * (1 + 0.03*float64(1-2*(i%2)))
+		rs = append(rs, Reading{Line: i + 2, AngularSpeed: om, Torque: m})
+	}
+	c, err := g.Reduce(rs, DefaultSlopeWindow)
+	if err != nil {
+		t.Fatal(err)
+	}
+	noted := 0
+	for _, p := range c.Points {
+		if p.SlopeSpread > NoisySlope {
+			noted++
+			if len(p.Notes) == 0 || !strings.Contains(strings.Join(p.Notes, ";"), "noisy slope") {
+				t.Errorf("line %d: spread %.2g without a note", p.Lines[0], p.SlopeSpread)
+			}
+		}
+	}
+	if noted == 0 || len(c.Warnings) == 0 {
+		t.Errorf("no noisy point found: %+v", c.Points)
+	}
+	// the spread of the rim-stress factor 3 + s is half ln((3.6)/(3.4)) at s 0.5 ± 0.1
+	near(t, "spread of 3 + s", slopeSpread(func(s float64) float64 { return 3 + s }, 0.5, 0.1), 0.5*math.Log(3.6/3.4), 1e-12)
+}

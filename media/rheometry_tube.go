@@ -91,7 +91,8 @@ func (g Capillary) Reduce(rs []Reading, window int) (FlowCurve, error) {
 	turbulent := 0
 	for i, w := range wps {
 		p := FlowPoint{Lines: w.lines, ShearRate: x[i] * RabinowitschFactor(s[i]), Stress: w.tau, Slope: s[i], SlopeSE: se[i],
-			Correction: RabinowitschFactor(s[i]) - 1, Corrects: "shear rate", Reynolds: math.NaN(), Notes: w.notes}
+			SlopeSpread: slopeSpread(RabinowitschFactor, s[i], se[i]),
+			Correction:  RabinowitschFactor(s[i]) - 1, Corrects: "shear rate", Reynolds: math.NaN(), Notes: w.notes}
 		if g.FluidDensity > 0 {
 			p.Reynolds = g.metznerReed(w.flow, w.tau)
 			if p.Reynolds > 2100 {
@@ -269,7 +270,7 @@ func (g FallingBall) Reduce(rs []Reading, _ int) (FlowCurve, error) {
 		}
 		mu := f * StokesViscosity(g.BallDiameter, g.BallDensity, g.FluidDensity, r.FallSpeed)
 		rate := 3 * r.FallSpeed / g.BallDiameter
-		p := FlowPoint{Lines: []int{r.Line}, ShearRate: rate, Stress: mu * rate, Slope: math.NaN(), SlopeSE: math.NaN(),
+		p := FlowPoint{Lines: []int{r.Line}, ShearRate: rate, Stress: mu * rate, Slope: math.NaN(), SlopeSE: math.NaN(), SlopeSpread: math.NaN(),
 			Correction: f - 1, Corrects: "viscosity", Reynolds: g.FluidDensity * r.FallSpeed * g.BallDiameter / mu}
 		// Oseen's drag, C_D = (24/Re)(1 + 3Re/16), puts the Stokes error
 		// near 2 % at Re = 0.1 (Oseen 1910; recalled from memory).

@@ -452,13 +452,13 @@ func rateRange(pts []media.FlowPoint) (lo, hi float64) {
 
 // curveHeader names the flow-curve columns; 'flowregime fit' reads the
 // shear rate and stress by these names.
-var curveHeader = []string{"line", "shear rate (1/s)", "shear stress (Pa)", "viscosity (Pa·s)", "local slope", "slope standard error", "correction (%)", "corrected", "Reynolds number", "notes"}
+var curveHeader = []string{"line", "shear rate (1/s)", "shear stress (Pa)", "viscosity (Pa·s)", "local slope", "slope standard error", "slope uncertainty (%)", "correction (%)", "corrected", "Reynolds number", "notes"}
 
 func curveRows(c media.FlowCurve) [][]string {
 	var rows [][]string
 	for _, p := range c.Points {
 		rows = append(rows, []string{lineList(p.Lines), report.Num(p.ShearRate, 6), report.Num(p.Stress, 6), report.Num(p.Viscosity(), 6),
-			report.Num(p.Slope, 4), report.Num(p.SlopeSE, 2), report.Num(100*p.Correction, 3), p.Corrects, report.Num(p.Reynolds, 3), strings.Join(p.Notes, "; ")})
+			report.Num(p.Slope, 4), report.Num(p.SlopeSE, 2), report.Num(100*p.SlopeSpread, 2), report.Num(100*p.Correction, 3), p.Corrects, report.Num(p.Reynolds, 3), strings.Join(p.Notes, "; ")})
 	}
 	return rows
 }
@@ -487,16 +487,17 @@ func writeCurveFile(path string, c media.FlowCurve) error {
 }
 
 type reducePointJSON struct {
-	Lines      []int    `json:"lines"`
-	ShearRate  float64  `json:"shear_rate_1_s"`
-	Stress     float64  `json:"shear_stress_Pa"`
-	Viscosity  float64  `json:"viscosity_Pa_s"`
-	Slope      *float64 `json:"local_slope"`
-	SlopeSE    *float64 `json:"slope_standard_error"`
-	Correction float64  `json:"correction_percent"`
-	Corrects   string   `json:"corrected"`
-	Reynolds   *float64 `json:"reynolds_number"`
-	Notes      []string `json:"notes"`
+	Lines       []int    `json:"lines"`
+	ShearRate   float64  `json:"shear_rate_1_s"`
+	Stress      float64  `json:"shear_stress_Pa"`
+	Viscosity   float64  `json:"viscosity_Pa_s"`
+	Slope       *float64 `json:"local_slope"`
+	SlopeSE     *float64 `json:"slope_standard_error"`
+	SlopeSpread *float64 `json:"slope_uncertainty_percent"`
+	Correction  float64  `json:"correction_percent"`
+	Corrects    string   `json:"corrected"`
+	Reynolds    *float64 `json:"reynolds_number"`
+	Notes       []string `json:"notes"`
 }
 
 type rejectJSON struct {
@@ -518,7 +519,7 @@ func (r reduceResult) json() reduceJSON {
 		Warnings: nonNil(append(append([]string{}, r.curve.Warnings...), r.fitNote...))}
 	for _, p := range r.curve.Points {
 		j.Points = append(j.Points, reducePointJSON{Lines: p.Lines, ShearRate: p.ShearRate, Stress: p.Stress, Viscosity: p.Viscosity(),
-			Slope: report.Opt(p.Slope), SlopeSE: report.Opt(p.SlopeSE), Correction: 100 * p.Correction, Corrects: p.Corrects,
+			Slope: report.Opt(p.Slope), SlopeSE: report.Opt(p.SlopeSE), SlopeSpread: report.Opt(100 * p.SlopeSpread), Correction: 100 * p.Correction, Corrects: p.Corrects,
 			Reynolds: report.Opt(p.Reynolds), Notes: nonNil(p.Notes)})
 	}
 	for _, rj := range r.rejects {
@@ -540,7 +541,7 @@ func (r reduceResult) write(w io.Writer, format, saved string) error {
 	}
 	var rows [][]string
 	for _, row := range curveRows(r.curve) {
-		rows = append(rows, []string{row[0], row[1], row[2], row[3], row[4], row[6], row[9]})
+		rows = append(rows, []string{row[0], row[1], row[2], row[3], row[4], row[7], row[10]})
 	}
 	fmt.Fprintf(w, "%s: %d point(s)\n", r.curve.Geometry, len(r.curve.Points))
 	if err := report.Table(w, []string{"line", "shear rate (1/s)", "shear stress (Pa)", "viscosity (Pa·s)", "local slope", "correction (%)", "notes"}, rows); err != nil {
