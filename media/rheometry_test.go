@@ -205,6 +205,8 @@ func TestFallingBallVectors(t *testing.T) {
 		nearAbs(t, "Haberman–Sayre 1/K", 1/HabermanSayreK(v[0]), v[2], 6e-6)
 	}
 	near(t, "VISC-FB-2 μ_Stokes", StokesViscosity(0.002, 7800, 1261, 0.010), 1.4250, 5e-5)
+	// METHODS-LAB §1.5: glycerol μ 1.41 Pa·s gives v∞ = 10.106 mm/s, Re 0.0181.
+	near(t, "§1.5 μ from v∞", StokesViscosity(0.002, 7800, 1261, 0.010106), 1.41, 5e-5)
 	for _, wall := range []string{WallFaxen, WallHabermanSayre} {
 		g := FallingBall{BallDiameter: 0.002, TubeDiameter: 0.040, BallDensity: 7800, FluidDensity: 1261, Wall: wall}
 		c, err := g.Reduce([]Reading{{Line: 2, FallSpeed: 0.010}, {Line: 3, FallSpeed: -1}}, 0)
