@@ -31,10 +31,21 @@ import (
 //	  "relaxation_time_s": 0.5               // optional, for viscoelastic fluids
 //	}
 //
-// Unknown fields are an error, so a misspelt name is not silently ignored.
+// Version 2 adds one optional field, the change of viscosity with
+// temperature (see [TemperatureDependence]); it needs "temperature_C":
+//
+//	"temperature_dependence": {"method": "arrhenius",
+//	    "activation_energy_J_mol": 16500, "range_C": [15, 37]}
+//
+// Files without it are written as version 1, so older readers keep
+// reading them. Unknown fields are an error, so a misspelt name is not
+// silently ignored.
 const (
 	MediumFileFormat  = "flowregime-medium"
 	MediumFileVersion = 1
+	// MediumFileVersionTemperature is the version of files that carry a
+	// temperature dependence, and the newest version read.
+	MediumFileVersionTemperature = 2
 )
 
 // MediumFile is a measured fluid as stored on disk.
@@ -51,6 +62,8 @@ type MediumFile struct {
 	Fit            *FitQuality        `json:"fit,omitempty"`
 	Class          string             `json:"class,omitempty"`
 	RelaxationTime *float64           `json:"relaxation_time_s,omitempty"`
+
+	TemperatureDependence *TemperatureDependence `json:"temperature_dependence,omitempty"`
 }
 
 // FitQuality records how well the model fitted.
@@ -91,14 +104,17 @@ func (f MediumFile) Check() error {
 		return fmt.Errorf("media: not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
 	case f.Version < 1:
 		return fmt.Errorf("media: medium file has no valid \"version\" (want %d)", MediumFileVersion)
-	case f.Version > MediumFileVersion:
-		return fmt.Errorf("media: medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersion)
+	case f.Version > MediumFileVersionTemperature:
+		return fmt.Errorf("media: medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersionTemperature)
 	case !(f.Density > 0) || math.IsInf(f.Density, 0):
 		return fmt.Errorf("media: medium file needs a positive \"density_kg_m3\"")
 	case !(f.ShearRateRange[0] > 0) || !(f.ShearRateRange[1] >= f.ShearRateRange[0]) || math.IsInf(f.ShearRateRange[1], 0):
 		return fmt.Errorf("media: \"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
 	case f.RelaxationTime != nil && !(*f.RelaxationTime > 0):
 		return fmt.Errorf("media: \"relaxation_time_s\" must be positive")
+	}
+	if err := f.checkTemperature(); err != nil {
+		return err
 	}
 	_, err := NewModel(f.Model, f.Parameters)
 	return err
@@ -107,6 +123,20 @@ func (f MediumFile) Check() error {
 // MaxMediumFileBytes is the largest medium file read; real ones are well
 // under 2 kB.
 const MaxMediumFileBytes = 1 << 20
+
+// checkTemperature validates the optional temperature dependence.
+func (f MediumFile) checkTemperature() error {
+	d := f.TemperatureDependence
+	switch {
+	case d == nil:
+		return nil
+	case f.Version < MediumFileVersionTemperature:
+		return fmt.Errorf("media: \"temperature_dependence\" needs \"version\": %d", MediumFileVersionTemperature)
+	case f.TemperatureC == nil || !finite(*f.TemperatureC):
+		return fmt.Errorf("media: \"temperature_dependence\" needs \"temperature_C\", the temperature the model was fitted at")
+	}
+	return d.Check()
+}
 
 // LoadMediumFile reads and checks the medium file at path. Only a regular
 // file of at most MaxMediumFileBytes is read: it is opened without waiting
@@ -206,16 +236,18 @@ func (f MediumFile) Properties() (Properties, error) {
 	return p, nil
 }
 
-// At returns the measured fluid as a medium under conditions c, which
-// cannot change it: a warning says so when c sets any condition.
+// At returns the measured fluid as a medium under conditions c: at c's
+// temperature when the file carries a temperature dependence (a warning
+// says so when it does not); the other conditions cannot change it, and a
+// warning says so when c sets any of them.
 func (f MediumFile) At(c Conditions) (Properties, error) {
-	p, err := f.Properties()
+	p, err := f.PropertiesAt(c.TemperatureC)
 	if err != nil {
 		return p, err
 	}
-	for _, v := range []float64{c.TemperatureC, c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
+	for _, v := range []float64{c.SalinityPractical, c.PressurePa, c.DepthM, c.AltitudeM, c.HumidityPercent} {
 		if !math.IsNaN(v) {
-			p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: temperature, salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
+			p.Warnings = append(p.Warnings, Warning{Code: WarnIgnored, Message: "medium: salinity, depth, pressure, altitude and humidity are ignored for a measured medium, whose properties are fixed by its file"})
 			break
 		}
 	}

@@ -150,10 +150,10 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 		if err == io.EOF {
 			break
 		}
-		line, _ := cr.FieldPos(0)
 		if err != nil {
-			return nil, fmt.Errorf("line %d: %v", line, err)
+			return nil, err // a csv.ParseError names its line
 		}
+		line, _ := cr.FieldPos(0)
 		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
 			continue
 		}
@@ -323,21 +323,26 @@ func (o *fitOptions) saveMedium(rep media.FitReport, s Streams) error {
 		}
 		mf.RelaxationTime = &t.SI
 	}
+	return writeMediumFile(s.outs, o.save, mf)
+}
+
+// writeMediumFile checks a medium file and writes it atomically to path.
+func writeMediumFile(outs *outputSet, path string, mf media.MediumFile) error {
 	if err := mf.Check(); err != nil {
 		return fmt.Errorf("%s", trimPkg(err))
 	}
-	af, err := s.outs.create(o.save)
+	af, err := outs.create(path)
 	if err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, err)
+		return fmt.Errorf("cannot write %s: %v", path, err)
 	}
 	defer af.abort()
 	e := json.NewEncoder(af)
 	e.SetIndent("", "  ")
 	if err := e.Encode(mf); err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, withoutPath(err))
+		return fmt.Errorf("cannot write %s: %v", path, withoutPath(err))
 	}
 	if err := af.commit(); err != nil {
-		return fmt.Errorf("cannot write %s: %v", o.save, withoutPath(err))
+		return fmt.Errorf("cannot write %s: %v", path, withoutPath(err))
 	}
 	return nil
 }

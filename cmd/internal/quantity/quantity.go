@@ -44,6 +44,9 @@ const (
 	Diffusivity             // m²/s
 	Stress                  // Pa (shear stress)
 	Viscosity               // Pa·s
+	Torque                  // N·m
+	Rotation                // angular speed, rad/s; also rpm
+	VolumeFlow              // m³/s
 )
 
 // Value is a parsed quantity in the library's units (see each Kind).
@@ -85,6 +88,31 @@ var units = map[Kind]map[string]conv{
 	Viscosity: {"Pas": {1, 0, ""}, "Pa s": {1, 0, ""}, "Pa·s": {1, 0, ""}, "mPas": {1e-3, 0, ""}, "mPa s": {1e-3, 0, ""}, "mPa·s": {1e-3, 0, ""}, "cP": {1e-3, 0, ""}, "P": {0.1, 0, ""}},
 }
 
+// Viscometer quantities, kept apart so that the tables above stay as they
+// are; init adds them.
+var benchUnits = map[Kind]map[string]conv{
+	Torque: {"N·m": {1, 0, ""}, "Nm": {1, 0, ""}, "mN·m": {1e-3, 0, ""}, "mNm": {1e-3, 0, ""}, "µN·m": {1e-6, 0, ""}, "µNm": {1e-6, 0, ""},
+		"uN·m": {1e-6, 0, ""}, "uNm": {1e-6, 0, ""}, "nN·m": {1e-9, 0, ""}, "nNm": {1e-9, 0, ""}},
+	Rotation: {"rad/s": {1, 0, ""}, "rpm": {2 * math.Pi / 60, 0, ""}, "rev/min": {2 * math.Pi / 60, 0, ""}, "rev/s": {2 * math.Pi, 0, ""}},
+	VolumeFlow: {"m3/s": {1, 0, ""}, "m³/s": {1, 0, ""}, "cm3/s": {1e-6, 0, ""}, "cm³/s": {1e-6, 0, ""}, "mm3/s": {1e-9, 0, ""}, "mm³/s": {1e-9, 0, ""},
+		"L/s": {1e-3, 0, ""}, "L/min": {1e-3 / 60, 0, ""}, "mL/s": {1e-6, 0, ""}, "ml/s": {1e-6, 0, ""}, "mL/min": {1e-6 / 60, 0, ""}, "ml/min": {1e-6 / 60, 0, ""},
+		"µL/s": {1e-9, 0, ""}, "uL/s": {1e-9, 0, ""}, "µL/min": {1e-9 / 60, 0, ""}, "uL/min": {1e-9 / 60, 0, ""}},
+}
+
+var benchNames = map[Kind][2]string{ // name, example
+	Stress: {"shear stress", "2.5Pa"}, Viscosity: {"viscosity", "1.2mPa·s"},
+	Torque: {"torque", "0.35mN·m"}, Rotation: {"angular speed", "60rpm"}, VolumeFlow: {"flow rate", "0.5mL/min"},
+}
+
+func init() {
+	for k, t := range benchUnits {
+		units[k] = t
+	}
+	for k, ne := range benchNames {
+		names[k], examples[k] = ne[0], ne[1]
+	}
+}
+
 // bareOK lists kinds whose bare numbers have a stated meaning.
 var bareOK = map[Kind]bool{Temperature: true, Salinity: true, Humidity: true, Fraction: true, Number: true, Angle: true}
 
@@ -121,7 +149,9 @@ func Units(k Kind) []string {
 		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "%",
 		"µg", "ug", "mg", "g", "kg", "Hz", "kHz", "/s", "1/s", "/min", "1/min", "kg/m3", "kg/m³", "g/cm3", "g/cm³", "g/mL", "g/ml",
 		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹", "deg", "°", "rad",
-		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s", "mPa", "dyn/cm2", "Pa·s", "Pa s", "Pas", "mPa·s", "mPa s", "mPas", "cP", "P"}
+		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s", "mPa", "dyn/cm2", "Pa·s", "Pa s", "Pas", "mPa·s", "mPa s", "mPas", "cP", "P",
+		"N·m", "Nm", "mN·m", "mNm", "µN·m", "µNm", "uN·m", "uNm", "nN·m", "nNm", "rad/s", "rpm", "rev/min", "rev/s",
+		"m3/s", "m³/s", "cm3/s", "cm³/s", "mm3/s", "mm³/s", "L/s", "L/min", "mL/s", "ml/s", "mL/min", "ml/min", "µL/s", "uL/s", "µL/min", "uL/min"}
 	var out []string
 	for _, u := range order {
 		if _, ok := units[k][u]; ok {

@@ -233,3 +233,37 @@ func TestWithUncertainty(t *testing.T) {
 		}
 	}
 }
+
+// Viscometer units by SI definition (BIPM SI Brochure, 9th ed.): one
+// revolution is 2π rad, 1 mL = 1e-6 m³, 1 µL = 1e-9 m³; a bare number is
+// refused for each.
+func TestViscometerUnits(t *testing.T) {
+	cases := []struct {
+		k  Kind
+		in string
+		si float64
+	}{
+		{Torque, "0.35mN·m", 0.35e-3},
+		{Torque, "0.35 mN m", 0.35e-3},
+		{Torque, "12µNm", 12e-6},
+		{Torque, "2 nN·m", 2e-9},
+		{Rotation, "60rpm", 2 * math.Pi},
+		{Rotation, "3 rad/s", 3},
+		{Rotation, "1rev/s", 2 * math.Pi},
+		{VolumeFlow, "0.6mL/min", 1e-8},
+		{VolumeFlow, "1 µL/s", 1e-9},
+		{VolumeFlow, "2cm³/s", 2e-6},
+		{Stress, "2.5Pa", 2.5},
+	}
+	for _, c := range cases {
+		v, err := Parse(c.k, c.in)
+		if err != nil || math.Abs(v.SI-c.si) > 1e-12*c.si {
+			t.Errorf("%q: %v, %v; want %g", c.in, v.SI, err, c.si)
+		}
+	}
+	for _, k := range []Kind{Torque, Rotation, VolumeFlow} {
+		if _, err := Parse(k, "12"); err == nil || !strings.Contains(err.Error(), "for example") {
+			t.Errorf("kind %d: a bare number gave %v", k, err)
+		}
+	}
+}
