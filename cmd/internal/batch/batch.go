@@ -116,17 +116,14 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		header = keys
 		body = io.MultiReader(bytes.NewReader(first), br)
 	default:
-		rec, n, err := readRecord(br)
+		var rest []byte
+		var n int
+		var err error
+		header, headerRaw, n, rest, err = readHeader(br, delim)
 		if err != nil {
 			return sum, err
 		}
-		if blank(string(rec)) {
-			return sum, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
-		}
-		headerRaw = rec
-		if header, err = splitFields(nil, string(rec), delim); err != nil {
-			return sum, fmt.Errorf("line 1 (header): %v", err)
-		}
+		body = io.MultiReader(bytes.NewReader(rest), br)
 		line += n
 	}
 	m, err := newMapping(header, cfg.Columns, cfg.Units)
@@ -156,7 +153,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		switch cfg.OutFormat {
 		case CSV, TSV:
 			var b []byte
-			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil {
+			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil && bytes.IndexByte(headerRaw, '"') < 0 {
 				b = append(b, headerRaw...)
 			} else {
 				for i, h := range header {
@@ -189,7 +186,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		if cfg.Uncertainty {
 			size = uncertainChunk
 		}
-		ck := newChunker(body, cfg.InFormat != JSONL, line, size)
+		ck := newChunker(body, recordRule{quotes: cfg.InFormat != JSONL, delim: delim, fields: len(header)}, line, size)
 		for {
 			c, err := ck.next()
 			if err == io.EOF {
@@ -299,37 +296,39 @@ func (c *countingReader) Read(p []byte) (int, error) {
 	return n, err
 }
 
-// readRecord reads one record (up to an unquoted newline) and returns it
-// without its line ending, with the number of lines it spans.
-func readRecord(br *bufio.Reader) ([]byte, int, error) {
-	var rec []byte
-	in := false
-	lines := 0
+// readHeader reads the header record of a CSV or TSV table (recordRule
+// with any number of fields) and splits it; raw is its text without the
+// line ending, lines the lines it spans, rest the input read past it.
+func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, lines int, rest []byte, err error) {
+	var buf []byte
+	rule := recordRule{quotes: true, delim: delim}
 	for {
-		b, err := br.ReadByte()
-		if err == io.EOF {
-			if len(rec) == 0 && lines == 0 {
-				return nil, 0, fmt.Errorf("the input is empty: a header line is needed")
-			}
-			return bytes.TrimSuffix(rec, []byte{'\r'}), lines + 1, nil
+		s, err := br.ReadSlice('\n')
+		buf = append(buf, s...)
+		final := errors.Is(err, io.EOF)
+		if err != nil && !final && !errors.Is(err, bufio.ErrBufferFull) {
+			return nil, nil, 0, nil, err
 		}
-		if err != nil {
-			return nil, 0, err
+		if final && len(buf) == 0 {
+			return nil, nil, 0, nil, fmt.Errorf("the input is empty: a header line is needed")
 		}
-		if b == '"' {
-			in = !in
-		}
-		if b == '\n' {
-			lines++
-			if !in {
-				return bytes.TrimSuffix(rec, []byte{'\r'}), lines, nil
+		if !errors.Is(err, bufio.ErrBufferFull) {
+			if end, next, ok := rule.recordEnd(string(buf), 0, final); ok {
+				raw, lines, rest = []byte(trimCR(string(buf[:end]))), bytes.Count(buf[:next], []byte{'\n'}), buf[next:]
+				break
 			}
 		}
-		rec = append(rec, b)
-		if len(rec) > maxRecord {
-			return nil, 0, fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)
+		if len(buf) > maxRecord {
+			return nil, nil, 0, nil, fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)
 		}
 	}
+	if blank(string(raw)) {
+		return nil, nil, 0, nil, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
+	}
+	if fields, err = splitFields(nil, string(raw), delim); err != nil {
+		return nil, nil, 0, nil, fmt.Errorf("line 1 (header): %v", err)
+	}
+	return fields, raw, lines, rest, nil
 }
 
 func firstLine(br *bufio.Reader) ([]byte, error) {
