@@ -76,6 +76,13 @@ type result struct {
 	flags                          map[string]int
 }
 
+// HeaderError is a problem with a table's header or its columns: the table
+// cannot be read as asked.
+type HeaderError struct{ Err error }
+
+func (e *HeaderError) Error() string { return e.Err.Error() }
+func (e *HeaderError) Unwrap() error { return e.Err }
+
 // Run reads in, writes rows to out and rejected rows to reject, in input
 // order. It returns an error only for a failure of the whole run (unreadable
 // header, output error, cancellation); row problems are rejects.
@@ -86,9 +93,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		in = &countingReader{r: in, f: cfg.Progress}
 	}
 	br := bufio.NewReaderSize(in, 64<<10)
-	if b, err := br.Peek(3); err == nil && bytes.Equal(b, []byte("\ufeff")) {
-		br.Discard(3)
-	}
+	skipBOM(br)
 	delim := byte(',')
 	if cfg.InFormat == TSV {
 		delim = '\t'
@@ -111,7 +116,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 		keys, _, _, err := parseObject(bytes.TrimSpace(first))
 		if err != nil && len(bytes.TrimSpace(first)) > 0 {
-			return sum, fmt.Errorf("line 1: %v", err)
+			return sum, &HeaderError{fmt.Errorf("line 1: %v", err)}
 		}
 		header = keys
 		body = io.MultiReader(bytes.NewReader(first), br)
@@ -128,7 +133,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	}
 	m, err := newMapping(header, cfg.Columns, cfg.Units)
 	if err != nil {
-		return sum, err
+		return sum, &HeaderError{err}
 	}
 	if m.hasSD() {
 		cfg.Uncertainty = true
@@ -140,10 +145,10 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		cfg.Draws = 10000
 	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
-		return sum, fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")
+		return sum, &HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}
 	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Speed); m.col[inputs.Speed] < 0 && !ok {
-		return sum, fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")
+		return sum, &HeaderError{fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")}
 	}
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string
@@ -310,7 +315,7 @@ func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, line
 			return nil, nil, 0, nil, err
 		}
 		if final && len(buf) == 0 {
-			return nil, nil, 0, nil, fmt.Errorf("the input is empty: a header line is needed")
+			return nil, nil, 0, nil, &HeaderError{errors.New("the input is empty: a header line is needed")}
 		}
 		if !errors.Is(err, bufio.ErrBufferFull) {
 			if end, next, ok := rule.recordEnd(string(buf), 0, final); ok {
@@ -319,14 +324,14 @@ func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, line
 			}
 		}
 		if len(buf) > maxRecord {
-			return nil, nil, 0, nil, fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)
+			return nil, nil, 0, nil, &HeaderError{fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)}
 		}
 	}
 	if blank(string(raw)) {
-		return nil, nil, 0, nil, fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")
+		return nil, nil, 0, nil, &HeaderError{errors.New("the input is empty or starts with a blank line; its first line must be the header")}
 	}
 	if fields, err = splitFields(nil, string(raw), delim); err != nil {
-		return nil, nil, 0, nil, fmt.Errorf("line 1 (header): %v", err)
+		return nil, nil, 0, nil, &HeaderError{fmt.Errorf("line 1 (header): %v", err)}
 	}
 	return fields, raw, lines, rest, nil
 }
@@ -343,7 +348,7 @@ func firstLine(br *bufio.Reader) ([]byte, error) {
 			return nil, err
 		}
 		if len(b) > maxRecord {
-			return nil, fmt.Errorf("line 1 is longer than %d bytes", maxRecord)
+			return nil, &HeaderError{fmt.Errorf("line 1 is longer than %d bytes", maxRecord)}
 		}
 	}
 }

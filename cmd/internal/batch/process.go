@@ -48,7 +48,7 @@ func (p *processor) process(c *chunk) result {
 	row := 0 // within the chunk; the writer adds the rows before it
 	for _, l := range c.overlong {
 		row++
-		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
+		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: errOverlong.Error()})
 		res.read++
 	}
 	out := getBuffer(len(c.data) * p.growth / 4)
@@ -136,7 +136,7 @@ func (p *processor) process(c *chunk) result {
 				return
 			}
 			if err == nil && len(fields) != len(p.m.header) {
-				err = fmt.Errorf("has %d fields, the header has %d", len(fields), len(p.m.header))
+				err = fieldCountError(len(fields), len(p.m.header))
 			}
 			handle(rec, off, fields, nil, nil, err)
 		})

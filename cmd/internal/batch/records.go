@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"bufio"
 	"bytes"
 	"errors"
 	"fmt"
@@ -510,4 +511,84 @@ func appendQuoted(b []byte, s string) []byte {
 		s = s[i+1:]
 	}
 	return append(append(b, s...), '"')
+}
+
+var errOverlong = fmt.Errorf("record longer than %d MiB; not read", maxRecord>>20)
+
+// fieldCountError is the reason for a record whose field count is not the
+// header's.
+func fieldCountError(n, header int) error {
+	return fmt.Errorf("has %d fields, the header has %d", n, header)
+}
+
+// skipBOM drops a UTF-8 byte order mark at the start of the input.
+func skipBOM(br *bufio.Reader) {
+	if b, err := br.Peek(3); err == nil && bytes.Equal(b, []byte("\ufeff")) {
+		br.Discard(3)
+	}
+}
+
+// Record is one record of a table read by Reader.
+type Record struct {
+	Line   int      // line where the record starts
+	Fields []string // as many as the header's; nil when Err is set
+	Text   string   // the record as read; empty for one too long to hold
+	Err    error    // why the record cannot be read (quoting, length, field count)
+}
+
+// Reader reads a CSV or TSV table by the rule batch uses (recordRule): the
+// header, then each record with its line. A record that cannot be read is
+// returned with its reason, and reading goes on; blank lines are skipped.
+type Reader struct {
+	header []string
+	ck     *chunker
+	recs   []Record
+	fields []string
+}
+
+// NewReader reads the header of a CSV (delim ',') or TSV ('\t') table; an
+// error is a header problem or a read failure.
+func NewReader(r io.Reader, delim byte) (*Reader, error) {
+	br := bufio.NewReaderSize(r, 64<<10)
+	skipBOM(br)
+	header, _, n, rest, err := readHeader(br, delim)
+	if err != nil {
+		return nil, err
+	}
+	body := io.MultiReader(bytes.NewReader(rest), br)
+	rule := recordRule{quotes: true, delim: delim, fields: len(header)}
+	return &Reader{header: header, ck: newChunker(body, rule, 1+n, chunkSize)}, nil
+}
+
+// Header returns the header's fields.
+func (r *Reader) Header() []string { return r.header }
+
+// Next returns the next record, io.EOF after the last, or a read failure.
+func (r *Reader) Next() (Record, error) {
+	for len(r.recs) == 0 {
+		c, err := r.ck.next()
+		if err != nil {
+			return Record{}, err
+		}
+		r.recs = r.recs[:0]
+		for _, l := range c.overlong {
+			r.recs = append(r.recs, Record{Line: l, Err: errOverlong})
+		}
+		r.fields = eachCSVRecord(c.data, r.ck.rule, r.fields, func(rec string, fields []string, err error, off int) {
+			if blank(rec) {
+				return
+			}
+			if err == nil && len(fields) != len(r.header) {
+				err = fieldCountError(len(fields), len(r.header))
+			}
+			out := Record{Line: c.firstLine + off, Text: rec, Err: err}
+			if err == nil {
+				out.Fields = append([]string(nil), fields...)
+			}
+			r.recs = append(r.recs, out)
+		})
+	}
+	rec := r.recs[0]
+	r.recs = r.recs[1:]
+	return rec, nil
 }

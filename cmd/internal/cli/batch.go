@@ -3,6 +3,7 @@ package cli
 import (
 	"context"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -273,14 +274,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		if rejW != nil {
 			return rejW.Write([]string{strconv.Itoa(r.Line), strconv.Itoa(r.Row), r.Column, r.Reason, r.Record})
 		}
-		where := fmt.Sprintf("line %d", r.Line)
-		if r.Row > 0 {
-			where += fmt.Sprintf(" (row %d)", r.Row)
-		}
-		if r.Column != "" {
-			where += fmt.Sprintf(", column %q", r.Column)
-		}
-		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s: %s\n", where, r.Reason)
+		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s\n", rejectText(r))
 		return err
 	}
 	if f, ok := s.Err.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {
@@ -290,6 +284,10 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		defer bar.Finish()
 	}
 	sum, err := batch.Run(ctx, in, out, reject, cfg)
+	var he *batch.HeaderError
+	if errors.As(err, &he) {
+		return usageError{fmt.Errorf("batch: %v", err)}
+	}
 	if err != nil {
 		return fmt.Errorf("batch: %v", err)
 	}

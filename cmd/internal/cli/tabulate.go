@@ -3,9 +3,12 @@ package cli
 import (
 	"context"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/report"
@@ -104,7 +107,13 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
-	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec)
+	var mu sync.Mutex
+	reject := func(r batch.Reject) {
+		mu.Lock()
+		defer mu.Unlock()
+		fmt.Fprintf(s.Err, "flowregime: tabulate: rejected %s\n", rejectText(r))
+	}
+	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, reject)
 	if err != nil {
 		return err
 	}
@@ -112,20 +121,21 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	if rejected > 0 {
-		return exitError{code: ExitRejected, msg: fmt.Sprintf("tabulate: %d rows could not be computed and are not in the summary; run batch with --rejects to see them", rejected)}
+		return exitError{code: ExitRejected, msg: fmt.Sprintf("tabulate: %d rows rejected (listed above) and left out of the summary", rejected)}
 	}
 	return nil
 }
 
 // tabulateStream summarises in, running it through batch first unless it
-// already holds batch output.
-func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error)) ([]tabulate.Group, int, error) {
-	sep := ','
+// already holds batch output. Rows that cannot be read or computed go to
+// reject, are counted and left out.
+func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), reject func(batch.Reject)) ([]tabulate.Group, int, error) {
+	sep := byte(',')
 	if cfg.InFormat == batch.TSV {
 		sep = '\t'
 	}
 	var r io.Reader = in
-	rejected := 0
+	var rejected atomic.Int64
 	errc := make(chan error, 1)
 	peek := &peekReader{r: in}
 	head, _ := peek.peekLine()
@@ -134,7 +144,7 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		cfg.OutFormat = batch.CSV
 		sep = ','
 		go func() {
-			_, err := batch.Run(ctx, peek, pw, func(batch.Reject) error { rejected++; return nil }, cfg)
+			_, err := batch.Run(ctx, peek, pw, func(r batch.Reject) error { rejected.Add(1); reject(r); return nil }, cfg)
 			pw.CloseWithError(err)
 			errc <- err
 		}()
@@ -143,28 +153,68 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		r = peek
 		errc <- nil
 	}
-	cr := csv.NewReader(r)
-	cr.Comma = sep
-	cr.FieldsPerRecord = -1
-	header, err := cr.Read()
+	tr, err := batch.NewReader(r, sep)
 	if err != nil {
 		if e := <-errc; e != nil {
-			return nil, 0, fmt.Errorf("tabulate: %v", e)
+			return nil, 0, runError("tabulate", e)
 		}
-		return nil, 0, fmt.Errorf("tabulate: cannot read the header: %v", err)
+		return nil, 0, runError("tabulate", err)
 	}
+	header := tr.Header()
 	sp, err := spec(header)
 	if err != nil {
 		return nil, 0, err
 	}
-	groups, err := tabulate.Tabulate(header, cr.Read, sp)
+	var readErr error
+	next := func() ([]string, error) {
+		for {
+			rec, err := tr.Next()
+			if err != nil {
+				if err != io.EOF {
+					readErr = err
+				}
+				return nil, err
+			}
+			if rec.Err == nil {
+				return rec.Fields, nil
+			}
+			rejected.Add(1)
+			reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
+		}
+	}
+	groups, err := tabulate.Tabulate(header, next, sp)
+	if readErr != nil {
+		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", readErr)
+	}
 	if err != nil {
 		return nil, 0, usageError{fmt.Errorf("tabulate: %v", err)}
 	}
 	if e := <-errc; e != nil {
-		return nil, 0, fmt.Errorf("tabulate: %v", e)
+		return nil, 0, runError("tabulate", e)
 	}
-	return groups, rejected, nil
+	return groups, int(rejected.Load()), nil
+}
+
+// runError is a failure of a whole run: a header problem is a usage error.
+func runError(cmd string, err error) error {
+	err = fmt.Errorf("%s: %w", cmd, err)
+	var he *batch.HeaderError
+	if errors.As(err, &he) {
+		return usageError{err}
+	}
+	return err
+}
+
+// rejectText says where a rejected row is and why, for stderr.
+func rejectText(r batch.Reject) string {
+	where := fmt.Sprintf("line %d", r.Line)
+	if r.Row > 0 {
+		where += fmt.Sprintf(" (row %d)", r.Row)
+	}
+	if r.Column != "" {
+		where += fmt.Sprintf(", column %q", r.Column)
+	}
+	return where + ": " + r.Reason
 }
 
 // peekReader lets the first line be inspected without consuming it.
