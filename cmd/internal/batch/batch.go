@@ -307,6 +307,7 @@ func (c *countingReader) Read(p []byte) (int, error) {
 func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, lines int, rest []byte, err error) {
 	var buf []byte
 	rule := recordRule{quotes: true, delim: delim}
+	checked := 0 // length of buf when the record was last looked for
 	for {
 		s, err := br.ReadSlice('\n')
 		buf = append(buf, s...)
@@ -317,7 +318,10 @@ func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, line
 		if final && len(buf) == 0 {
 			return nil, nil, 0, nil, &HeaderError{errors.New("the input is empty: a header line is needed")}
 		}
-		if !errors.Is(err, bufio.ErrBufferFull) {
+		// Look after each line, but past 64 KiB only every 64 KiB, so that a
+		// long quoted header is not scanned once per line.
+		if final || err == nil && (len(buf) <= 64<<10 || len(buf)-checked >= 64<<10) {
+			checked = len(buf)
 			if end, next, ok := rule.recordEnd(string(buf), 0, final); ok {
 				raw, lines, rest = []byte(trimCR(string(buf[:end]))), bytes.Count(buf[:next], []byte{'\n'}), buf[next:]
 				break
