@@ -385,12 +385,13 @@ func TestUnclosedQuoteCostsItsRowOnly(t *testing.T) {
 }
 
 // A line over the size limit is rejected with its line number wherever it
-// is, the last one too, with or without a final newline, in CSV and JSON
-// Lines; the rows around it are read. The counts come from the test's own
+// is, the last one too, with or without a final newline, in CSV, TSV and
+// JSON Lines; the rows around it are read. The counts come from the test's own
 // input, not from a reader.
 func TestOverlongLineRejected(t *testing.T) {
 	long := strings.Repeat("x", maxRecord+10)
 	csvRow := func(note string) string { return "fish,12,5," + note }
+	tsvRow := func(note string) string { return "fish\t12\t5\t" + note }
 	jsonRow := func(note string) string {
 		return `{"species":"fish","length (mm)":12,"speed (cm/s)":5,"notes":"` + note + `"}`
 	}
@@ -398,7 +399,7 @@ func TestOverlongLineRejected(t *testing.T) {
 		format, header string
 		row            func(string) string
 		rows           int // the first JSON object is a row as well as the keys
-	}{{CSV, "species,length (mm),speed (cm/s),notes", csvRow, 4}, {JSONL, jsonRow("h"), jsonRow, 5}} {
+	}{{CSV, "species,length (mm),speed (cm/s),notes", csvRow, 4}, {TSV, "species\tlength (mm)\tspeed (cm/s)\tnotes", tsvRow, 4}, {JSONL, jsonRow("h"), jsonRow, 5}} {
 		for _, at := range []int{1, 3, 4} { // the overlong row among 4
 			for _, final := range []bool{true, false} {
 				rows := []string{f.header}
