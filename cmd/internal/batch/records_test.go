@@ -444,3 +444,44 @@ func TestHeaderRecord(t *testing.T) {
 		t.Errorf("open quote in the header: %v", err)
 	}
 }
+
+// Reader hands fit and tabulate each record with its line: good rows with
+// their fields, bad ones (open quote, wrong field count, over the size
+// limit) with a reason; blank lines are skipped. The expected lines are
+// counted by hand from the input below.
+func TestReader(t *testing.T) {
+	in := "a,b\n1,2\n\n\"open,3\n4,5\n6\n" + strings.Repeat("z", maxRecord+1) + "\n\"x\ny\",7\n8,9"
+	r, err := NewReader(strings.NewReader(in), ',')
+	if err != nil || !reflect.DeepEqual(r.Header(), []string{"a", "b"}) {
+		t.Fatalf("header %q, %v", r.Header(), err)
+	}
+	type got struct {
+		line   int
+		fields string
+		err    string
+	}
+	want := []got{{2, "1|2", ""}, {4, "", "not closed"}, {5, "4|5", ""}, {6, "", "has 1 fields"}, {7, "", "longer than 8 MiB"}, {8, "x\ny|7", ""}, {10, "8|9", ""}}
+	var all []got
+	for {
+		rec, err := r.Next()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := got{rec.Line, strings.Join(rec.Fields, "|"), ""}
+		if rec.Err != nil {
+			g.err = rec.Err.Error()
+		}
+		all = append(all, g)
+	}
+	if len(all) != len(want) {
+		t.Fatalf("records %+v, want %+v", all, want)
+	}
+	for i, w := range want {
+		if all[i].line != w.line || all[i].fields != w.fields || !strings.Contains(all[i].err, w.err) || (w.err == "") != (all[i].err == "") {
+			t.Errorf("record %d: %+v, want %+v", i, all[i], w)
+		}
+	}
+}
