@@ -104,9 +104,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		in = &countingReader{r: in, f: cfg.Progress}
 	}
 	br := bufio.NewReaderSize(in, 64<<10)
-	if b, err := br.Peek(3); err == nil && bytes.Equal(b, []byte("\ufeff")) {
-		br.Discard(3)
-	}
+	skipBOM(br)
 	delim := byte(',')
 	if cfg.InFormat == TSV {
 		delim = '\t'
@@ -134,17 +132,14 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		header = keys
 		body = io.MultiReader(bytes.NewReader(first), br)
 	default:
-		rec, n, err := readRecord(br)
+		var rest []byte
+		var n int
+		var err error
+		header, headerRaw, n, rest, err = readHeader(br, delim)
 		if err != nil {
 			return sum, err
 		}
-		if blank(string(rec)) {
-			return sum, HeaderError{fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")}
-		}
-		headerRaw = rec
-		if header, err = splitFields(nil, string(rec), delim); err != nil {
-			return sum, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
-		}
+		body = io.MultiReader(bytes.NewReader(rest), br)
 		line += n
 	}
 	m, err := newMapping(header, cfg.Columns, cfg.Units)
@@ -174,7 +169,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		switch cfg.OutFormat {
 		case CSV, TSV:
 			var b []byte
-			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil {
+			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil && bytes.IndexByte(headerRaw, '"') < 0 {
 				b = append(b, headerRaw...)
 			} else {
 				for i, h := range header {
@@ -208,7 +203,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		if cfg.Uncertainty {
 			size = uncertainChunk
 		}
-		ck := newChunker(body, cfg.InFormat != JSONL, line, size)
+		ck := newChunker(body, recordRule{quotes: cfg.InFormat != JSONL, delim: delim, fields: len(header)}, line, size)
 		for {
 			c, err := ck.next()
 			if err == io.EOF {
@@ -354,37 +349,43 @@ func (c *countingReader) Read(p []byte) (int, error) {
 	return n, err
 }
 
-// readRecord reads one record (up to an unquoted newline) and returns it
-// without its line ending, with the number of lines it spans.
-func readRecord(br *bufio.Reader) ([]byte, int, error) {
-	var rec []byte
-	in := false
-	lines := 0
+// readHeader reads the header record of a CSV or TSV table (recordRule
+// with any number of fields) and splits it; raw is its text without the
+// line ending, lines the lines it spans, rest the input read past it.
+func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, lines int, rest []byte, err error) {
+	var buf []byte
+	rule := recordRule{quotes: true, delim: delim}
+	checked := 0 // length of buf when the record was last looked for
 	for {
-		b, err := br.ReadByte()
-		if err == io.EOF {
-			if len(rec) == 0 && lines == 0 {
-				return nil, 0, fmt.Errorf("the input is empty: a header line is needed")
+		s, err := br.ReadSlice('\n')
+		buf = append(buf, s...)
+		final := errors.Is(err, io.EOF)
+		if err != nil && !final && !errors.Is(err, bufio.ErrBufferFull) {
+			return nil, nil, 0, nil, err
+		}
+		if final && len(buf) == 0 {
+			return nil, nil, 0, nil, HeaderError{errors.New("the input is empty: a header line is needed")}
+		}
+		// Look after each line, but past 64 KiB only every 64 KiB, so that a
+		// long quoted header is not scanned once per line.
+		if final || err == nil && (len(buf) <= 64<<10 || len(buf)-checked >= 64<<10) {
+			checked = len(buf)
+			if end, next, ok := rule.recordEnd(string(buf), 0, final); ok {
+				raw, lines, rest = []byte(trimCR(string(buf[:end]))), bytes.Count(buf[:next], []byte{'\n'}), buf[next:]
+				break
 			}
-			return bytes.TrimSuffix(rec, []byte{'\r'}), lines + 1, nil
 		}
-		if err != nil {
-			return nil, 0, err
-		}
-		if b == '"' {
-			in = !in
-		}
-		if b == '\n' {
-			lines++
-			if !in {
-				return bytes.TrimSuffix(rec, []byte{'\r'}), lines, nil
-			}
-		}
-		rec = append(rec, b)
-		if len(rec) > maxRecord {
-			return nil, 0, fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)
+		if len(buf) > maxRecord {
+			return nil, nil, 0, nil, HeaderError{fmt.Errorf("line 1: the header is longer than %d bytes", maxRecord)}
 		}
 	}
+	if blank(string(raw)) {
+		return nil, nil, 0, nil, HeaderError{errors.New("the input is empty or starts with a blank line; its first line must be the header")}
+	}
+	if fields, err = splitFields(nil, string(raw), delim); err != nil {
+		return nil, nil, 0, nil, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
+	}
+	return fields, raw, lines, rest, nil
 }
 
 func firstLine(br *bufio.Reader) ([]byte, error) {
@@ -399,7 +400,7 @@ func firstLine(br *bufio.Reader) ([]byte, error) {
 			return nil, err
 		}
 		if len(b) > maxRecord {
-			return nil, fmt.Errorf("line 1 is longer than %d bytes", maxRecord)
+			return nil, HeaderError{fmt.Errorf("line 1 is longer than %d bytes", maxRecord)}
 		}
 	}
 }

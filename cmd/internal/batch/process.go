@@ -48,7 +48,7 @@ func (p *processor) process(c *chunk) result {
 	row := 0 // within the chunk; the writer adds the rows before it
 	for _, l := range c.overlong {
 		row++
-		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: fmt.Sprintf("record longer than %d MiB; not read", maxRecord>>20)})
+		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: errOverlong.Error()})
 		res.read++
 	}
 	out := getBuffer(len(c.data) * p.growth / 4)
@@ -101,8 +101,8 @@ func (p *processor) process(c *chunk) result {
 		}
 		switch p.cfg.OutFormat {
 		case CSV, TSV:
-			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV {
-				out = append(out, rec...)
+			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV && strings.IndexByte(rec, '"') < 0 {
+				out = append(out, rec...) // a record with quotes is written anew: a stray quote gets quoted
 			} else {
 				for i, f := range fields {
 					if i > 0 {
@@ -121,7 +121,7 @@ func (p *processor) process(c *chunk) result {
 		}
 	}
 	if p.cfg.InFormat == JSONL {
-		eachRecord(c.data, false, func(rec string, off int) {
+		eachRecord(c.data, recordRule{}, func(rec string, off int) {
 			if blank(rec) {
 				res.blank++
 				return
@@ -130,13 +130,13 @@ func (p *processor) process(c *chunk) result {
 			handle(rec, off, fields, keys, raws, err)
 		})
 	} else {
-		p.fields = eachCSVRecord(c.data, p.delim, p.fields, func(rec string, fields []string, err error, off int) {
+		p.fields = eachCSVRecord(c.data, recordRule{quotes: true, delim: p.delim, fields: len(p.m.header)}, p.fields, func(rec string, fields []string, err error, off int) {
 			if blank(rec) {
 				res.blank++
 				return
 			}
 			if err == nil && len(fields) != len(p.m.header) {
-				err = fmt.Errorf("has %d fields, the header has %d", len(fields), len(p.m.header))
+				err = fieldCountError(len(fields), len(p.m.header))
 			}
 			handle(rec, off, fields, nil, nil, err)
 		})

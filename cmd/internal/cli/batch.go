@@ -381,14 +381,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		if rejW != nil {
 			return rejW.Write([]string{strconv.Itoa(r.Line), strconv.Itoa(r.Row), r.Column, r.Reason, r.Record})
 		}
-		where := fmt.Sprintf("line %d", r.Line)
-		if r.Row > 0 {
-			where += fmt.Sprintf(" (row %d)", r.Row)
-		}
-		if r.Column != "" {
-			where += fmt.Sprintf(", column %q", r.Column)
-		}
-		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s: %s\n", report.Printable(where), report.Printable(r.Reason))
+		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s\n", rejectText(r))
 		return err
 	}
 	if f, ok := s.Err.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {

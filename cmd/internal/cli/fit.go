@@ -1,14 +1,15 @@
 package cli
 
 import (
-	"encoding/csv"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
 	"os"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
@@ -106,19 +107,23 @@ func normName(s string) string {
 	return strings.Join(strings.Fields(s), " ")
 }
 
+// readRheometer reads a rheometer table by batch's record rule. A header
+// problem is a usage error; a row that cannot be read or computed stops the
+// fit with its line.
 func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.RheometerPoint, error) {
-	cr := csv.NewReader(r)
+	delim := byte(',')
 	if tsv {
-		cr.Comma = '\t'
+		delim = '\t'
 	}
-	cr.FieldsPerRecord = -1
-	header, err := cr.Read()
-	if err == io.EOF {
-		return nil, usagef("the input is empty: a header line with shear rate and stress or viscosity is needed")
+	tr, err := batch.NewReader(r, delim)
+	var he batch.HeaderError
+	if errors.As(err, &he) {
+		return nil, usagef("%v; a header with shear rate and stress or viscosity is needed", err)
 	}
 	if err != nil {
 		return nil, usagef("cannot read the header: %v", err)
 	}
+	header := tr.Header()
 	col := map[string]int{}
 	unit := map[string]string{}
 	for i, h := range header {
@@ -136,7 +141,7 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 		unit[role] = u
 	}
 	if _, ok := col["rate"]; !ok {
-		return nil, usagef("no shear-rate column; name one \"shear rate (1/s)\" (columns: %s)", strings.Join(header, ", "))
+		return nil, usagef("no shear-rate column; name one \"shear rate (1/s)\" (columns: %s)", strings.Trim(fmt.Sprintf("%q", header), "[]"))
 	}
 	_, hasStress := col["stress"]
 	_, hasVisc := col["viscosity"]
@@ -146,25 +151,21 @@ func readRheometer(r io.Reader, tsv bool, units map[string]string) ([]media.Rheo
 	kinds := map[string]quantity.Kind{"rate": quantity.ShearRate, "stress": quantity.Stress, "viscosity": quantity.Viscosity}
 	var pts []media.RheometerPoint
 	for {
-		rec, err := cr.Read()
+		rec, err := tr.Next()
 		if err == io.EOF {
 			break
 		}
 		if err != nil {
-			return nil, err // a csv.ParseError names its line
+			return nil, fmt.Errorf("cannot read the table: %v", err)
 		}
-		line, _ := cr.FieldPos(0)
-		if len(rec) == 1 && strings.TrimSpace(rec[0]) == "" {
-			continue
+		if rec.Err != nil {
+			return nil, fmt.Errorf("line %d: %v", rec.Line, rec.Err)
 		}
 		get := func(role string) (float64, error) {
 			i := col[role]
-			if i >= len(rec) {
-				return 0, fmt.Errorf("line %d: no value in column %q", line, header[col[role]])
-			}
-			v, err := quantity.ParseDefault(kinds[role], rec[i], unit[role])
+			v, err := quantity.ParseDefault(kinds[role], rec.Fields[i], unit[role])
 			if err != nil {
-				return 0, fmt.Errorf("line %d, column %q: %v", line, header[i], err)
+				return 0, fmt.Errorf("line %d, column %q: %v", rec.Line, header[i], err)
 			}
 			return v.SI, nil
 		}

@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"io"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/report"
@@ -109,7 +111,13 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	defer in.Close()
-	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec)
+	var mu sync.Mutex
+	reject := func(r batch.Reject) {
+		mu.Lock()
+		defer mu.Unlock()
+		fmt.Fprintf(s.Err, "flowregime: tabulate: rejected %s\n", rejectText(r))
+	}
+	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, reject)
 	if err != nil {
 		return err
 	}
@@ -117,21 +125,22 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	if rejected > 0 {
-		return exitError{code: ExitRejected, msg: fmt.Sprintf("tabulate: %d rows could not be computed and are not in the summary; run batch with --rejects to see them", rejected)}
+		return exitError{code: ExitRejected, msg: fmt.Sprintf("tabulate: %d rows rejected (listed above) and left out of the summary", rejected)}
 	}
 	return nil
 }
 
 // tabulateStream summarises in, running it through batch first unless it
-// already holds batch output.
-func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error)) ([]tabulate.Group, int, error) {
-	sep := ','
+// already holds batch output. Rows that cannot be read or computed go to
+// reject, are counted and left out.
+func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), reject func(batch.Reject)) ([]tabulate.Group, int, error) {
+	sep := byte(',')
 	if cfg.InFormat == batch.TSV {
 		sep = '\t'
 	}
 	var r io.Reader = in
 	var pr *io.PipeReader
-	rejected := 0
+	var rejected atomic.Int64
 	errc := make(chan error, 1)
 	peek := &peekReader{r: in}
 	head, _ := peek.peekLine()
@@ -141,7 +150,7 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		cfg.OutFormat = batch.CSV
 		sep = ','
 		go func() {
-			_, err := batch.Run(ctx, peek, pw, func(batch.Reject) error { rejected++; return nil }, cfg)
+			_, err := batch.Run(ctx, peek, pw, func(r batch.Reject) error { rejected.Add(1); reject(r); return nil }, cfg)
 			pw.CloseWithError(err)
 			errc <- err
 		}()
@@ -150,21 +159,39 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		r = peek
 		errc <- nil
 	}
-	cr := csv.NewReader(r)
-	cr.Comma = sep
-	cr.FieldsPerRecord = -1
-	header, err := cr.Read()
+	tr, err := batch.NewReader(r, sep)
 	if err != nil {
 		if e := <-errc; e != nil {
 			return nil, 0, batchFailure("tabulate", e)
 		}
-		return nil, 0, fmt.Errorf("tabulate: cannot read the header: %v", err)
+		return nil, 0, batchFailure("tabulate", err)
 	}
+	header := tr.Header()
 	sp, err := spec(header)
 	if err != nil {
 		return nil, 0, err
 	}
-	groups, err := tabulate.Tabulate(header, cr.Read, sp)
+	var readErr error
+	next := func() ([]string, error) {
+		for {
+			rec, err := tr.Next()
+			if err != nil {
+				if err != io.EOF {
+					readErr = err
+				}
+				return nil, err
+			}
+			if rec.Err == nil {
+				return rec.Fields, nil
+			}
+			rejected.Add(1)
+			reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
+		}
+	}
+	groups, err := tabulate.Tabulate(header, next, sp)
+	if readErr != nil {
+		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", readErr)
+	}
 	if err != nil {
 		if pr != nil {
 			pr.CloseWithError(err) // stops the batch run that feeds it
@@ -174,7 +201,20 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 	if e := <-errc; e != nil {
 		return nil, 0, batchFailure("tabulate", e)
 	}
-	return groups, rejected, nil
+	return groups, int(rejected.Load()), nil
+}
+
+// rejectText says where a rejected row is and why, for stderr, with
+// control characters escaped.
+func rejectText(r batch.Reject) string {
+	where := fmt.Sprintf("line %d", r.Line)
+	if r.Row > 0 {
+		where += fmt.Sprintf(" (row %d)", r.Row)
+	}
+	if r.Column != "" {
+		where += fmt.Sprintf(", column %q", r.Column)
+	}
+	return report.Printable(where) + ": " + report.Printable(r.Reason)
 }
 
 // peekReader lets the first line be inspected without consuming it.
