@@ -132,6 +132,9 @@ type Estimate struct {
 	// [Law.Join]) its two validated ends' forces at this speed, for a rigid
 	// animal body the laminar and turbulent boundary layers; NaN otherwise.
 	Low, High float64
+	// BracketFrom says in words where Low and High come from; empty when
+	// there is no bracket.
+	BracketFrom string
 }
 
 // Law is a drag law: its name, source, published range and the range in
@@ -514,9 +517,11 @@ func (l *Law) estimate(b Body, f Flow) Estimate {
 	case l.Join != nil:
 		lo, hi := l.Join.Lo.force(b, f), l.Join.Hi.force(b, f)
 		e.Low, e.High = math.Min(lo, hi), math.Max(lo, hi)
+		e.BracketFrom = "the two neighbouring laws (see the warning)"
 	case l.altCf != nil: // same area and form factor: scale by the friction
 		a := e.Force * l.altCf(re) * HoernerFormFactor(b.Length, b.Diameter) / cd
 		e.Low, e.High = math.Min(a, e.Force), math.Max(a, e.Force)
+		e.BracketFrom = "turbulent and laminar boundary layers"
 	}
 	return e
 }
