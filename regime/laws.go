@@ -173,10 +173,11 @@ type Law struct {
 //
 // Published data behind the joins: none could be read for aligned bodies.
 // Drag of prolate spheroids at zero incidence at intermediate Re has been
-// computed (Masliyah & Epstein 1970, J. Fluid Mech. 44, 493; Ouchene et al.
-// 2015, Computers & Fluids 113, 53, Re 0.1–290; Sanjeevi, Kuipers & Padding
-// 2018, Int. J. Multiphase Flow 106, 325, with a fitted correlation to Re
-// 2000), and of aligned finite cylinders from creeping flow to Re 400 on the
+// computed (Ouchene et al. 2015, Computers & Fluids 113, 53, Re 0.1–290;
+// Sanjeevi & Padding 2017, J. Fluid Mech. 820, R1, to Re 2000; a fitted
+// correlation by Sanjeevi, Kuipers & Padding 2018, Int. J. Multiphase Flow
+// 106, 325, reference not read; Masliyah & Epstein 1970, recalled), and of
+// aligned finite cylinders from creeping flow to Re 400 on the
 // diameter (Kharrouba, Pierson & Magnaudet 2021, Phys. Rev. Fluids 6,
 // 044308), but only their abstracts could be read, not their numbers or
 // coefficients; Ouchene et al. report that the best published correlations
