@@ -154,6 +154,10 @@ Conventions:
   With --gliding there is no flapping power: the same drags give the sink
   speed and glide ratio.
   'flowregime laws' lists every drag law with its source and range.
+  Where no published law covers the case and two neighbouring laws are
+  joined, or a rigid body's boundary layer may be laminar or turbulent, the
+  drag of both is shown as a bracket (drag_low_N and drag_high_N in CSV and
+  JSON).
   Uncertainty: any value may carry one, 12±1mm, 12+-1mm or 12mm±8%. It is
   propagated by Monte Carlo (--draws, --seed; sizes, speeds and other
   positive quantities drawn log-normally with the given median and relative
