@@ -42,16 +42,29 @@ func TestStokesLimit(t *testing.T) {
 	checkRel(t, "Stokes force", res.Chosen.Force, 6*math.Pi*w.DynamicViscosity*(d/2)*u, 1e-12)
 }
 
-// Standard drag curve of a sphere: readings of the published curve (Lapple &
-// Shepherd 1940; Schlichting 1979, Fig. 1.5), as collected in Clift, Grace &
-// Weber (1978) — values recalled from memory, approximate to about 3–5 %.
+// Standard drag curve of a sphere against published tables.
+//
+// Pruppacher & Klett (1997), Microphysics of Clouds and Precipitation,
+// Table 10.1 (p. 381), C_D of rigid spheres: 4.29 at Re 10, 2.11 at 30,
+// 1.51 at 57, 1.10 at 100 and 0.63 at 300 (read in a public transcription
+// of that table, headed "Table 10.1 p381 Pruppacher and Klett", kept as
+// cloud-drag data by the exojax project). Clift, Grace & Weber's curve
+// (1978, Table 5.2) is within 3.6 % of them (worst at Re 300, 3.1 % at
+// 57), so 4 % is allowed: two independently compiled tables.
+//
+// Readings at Re 0.1, 1, 1e3, 1e4 and 1e5 of the curve (Lapple & Shepherd
+// 1940; Schlichting 1979, Fig. 1.5) are recalled from memory, approximate
+// to about 3–5 %: no published table of them could be read.
 func TestStandardCurveReadings(t *testing.T) {
-	rows := []struct{ re, cd, tol float64 }{
-		{0.1, 242, 0.02}, {1, 27, 0.05}, {10, 4.2, 0.05}, {100, 1.1, 0.05},
-		{1e3, 0.47, 0.05}, {1e4, 0.40, 0.05}, {1e5, 0.48, 0.05},
+	table101 := []struct{ re, cd float64 }{{10, 4.29}, {30, 2.11}, {57, 1.51}, {100, 1.10}, {300, 0.63}}
+	for _, r := range table101 {
+		checkRel(t, fmt.Sprintf("C_D at Re %g against Pruppacher & Klett Table 10.1", r.re), StandardCurveCD(r.re), r.cd, 0.04)
 	}
-	for _, r := range rows {
-		checkRel(t, "C_D standard curve", StandardCurveCD(r.re), r.cd, r.tol)
+	recalled := []struct{ re, cd, tol float64 }{
+		{0.1, 242, 0.02}, {1, 27, 0.05}, {1e3, 0.47, 0.05}, {1e4, 0.40, 0.05}, {1e5, 0.48, 0.05},
+	}
+	for _, r := range recalled {
+		checkRel(t, "C_D standard curve (recalled)", StandardCurveCD(r.re), r.cd, r.tol)
 	}
 	// Clift, Grace & Weber (1978) Table 5.2 branches meet at Re = 1e6:
 	// 0.1·6 − 0.49 = 0.11 and 0.19 − 8e4/1e6 = 0.11.
@@ -145,7 +158,9 @@ func TestSkinFriction(t *testing.T) {
 }
 
 // Hoerner (1965) form factor at fineness 4.5 by hand: 1 + 1.5/4.5^1.5 +
-// 7/4.5³ = 1.2340.
+// 7/4.5³ = 1.2340. This restates Hoerner's formula (recalled from memory of
+// Hoerner 1965, ch. 6): no page printing the formula or a tabulated form
+// factor could be read, so it checks the arithmetic only.
 func TestHoernerFormFactor(t *testing.T) {
 	checkRel(t, "form factor", HoernerFormFactor(4.5, 1), 1+1.5*math.Pow(1/4.5, 1.5)+7/math.Pow(4.5, 3), 1e-12)
 	checkRel(t, "form factor value", HoernerFormFactor(4.5, 1), 1.2340, 1e-4)
@@ -169,6 +184,10 @@ func TestSpheroidArea(t *testing.T) {
 }
 
 // Lamb (1911): C_D = 8π/(Re(2.0022 − ln Re)) with 1/2 − γ + ln 8 = 2.00223.
+// This restates Lamb's formula (recalled from memory of Lamb 1932, §343)
+// with the constant written out: it checks the constant, not the law.
+// Tritton's (1959, J. Fluid Mech. 6, 547) measured C_D at Re 0.5–100 would
+// test it, but only the paper's abstract could be read, not its numbers.
 func TestLambCylinder(t *testing.T) {
 	checkRel(t, "Lamb 0.1", LambCylinderCD(0.1), 8*math.Pi/(0.1*(2.00223-math.Log(0.1))), 1e-5)
 }
@@ -309,20 +328,23 @@ func TestSettleStokesRange(t *testing.T) {
 }
 
 // Gunn & Kinzer (1949), J. Meteorol. 6, 243: terminal speeds of water drops
-// in still air at 1013 hPa, 20 °C: 0.27, 2.06 and 4.03 m/s at 0.1, 0.5 and
-// 1.0 mm (recalled from memory of their table). Rigid spheres on the
-// Clift–Gauvin law match within 10 % up to 1 mm, where drops are still
-// nearly spherical (common practice: 5–10 % between rigid-sphere theory and
-// measured drops).
+// in still air at 1013 hPa, 20 °C: 27, 72, 117, 162, 206, 247, 327 and
+// 403 cm/s at 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.8 and 1.0 mm (their table,
+// read in a public transcription of it in a droplet-coalescence code that
+// cites the paper by its DOI, 10.1175/1520-0469(1949)006<0243:TTVOFF>2.0.CO;2).
+// Rigid spheres match within 10 % up to 1 mm, where drops are still nearly
+// spherical (common practice: 5–10 % between rigid-sphere theory and
+// measured drops); computed here, the worst is 7.2 % low at 0.1 mm, then
+// within 4 %. Beyond 1 mm drops flatten and fall slower than spheres.
 func TestSettleWaterDropsGunnKinzer(t *testing.T) {
 	air, _ := media.Air(media.AirConditions{TemperatureC: 20, PressurePa: 101300, HumidityPercent: 50})
-	rows := []struct{ d, u float64 }{{0.1e-3, 0.27}, {0.5e-3, 2.06}, {1.0e-3, 4.03}}
+	rows := []struct{ d, u float64 }{{0.1e-3, 0.27}, {0.2e-3, 0.72}, {0.3e-3, 1.17}, {0.4e-3, 1.62}, {0.5e-3, 2.06}, {0.6e-3, 2.47}, {0.8e-3, 3.27}, {1.0e-3, 4.03}}
 	for _, r := range rows {
 		s, err := Settle(Particle{Shape: Sphere, Diameter: r.d, Density: 998.2}, air)
 		if err != nil {
 			t.Fatal(err)
 		}
-		checkRel(t, "drop speed", s.Speed, r.u, 0.10)
+		checkRel(t, fmt.Sprintf("drop of %g mm against Gunn & Kinzer", r.d*1e3), s.Speed, r.u, 0.10)
 	}
 }
 
@@ -413,8 +435,12 @@ func TestSphereLawChoice(t *testing.T) {
 	}
 }
 
-// Brenner (1961): for a sphere the general Oseen correction is Oseen's
-// F = 3πμdU (1 + 3Re/16).
+// Brenner (1961): for a sphere the general Oseen correction, written for
+// any shape as F_S(1 + F_S ρ/(16πμ²)), must give Oseen's (1910) published
+// F = 3πμdU (1 + 3Re/16) — the coefficient 3/16 is Oseen's, not computed
+// from the code's formula (recalled from memory of Oseen 1910 and of
+// Happel & Brenner 1965; no tabulated Oseen–Brenner correction for a
+// spheroid could be read).
 func TestOseenBrennerSphere(t *testing.T) {
 	const mu, rho, d, u = 1e-3, 1000.0, 1e-3, 5e-4
 	fs := 3 * math.Pi * mu * d * u

@@ -154,6 +154,10 @@ Conventions:
   With --gliding there is no flapping power: the same drags give the sink
   speed and glide ratio.
   'flowregime laws' lists every drag law with its source and range.
+  Where no published law covers the case and two neighbouring laws are
+  joined, or a rigid body's boundary layer may be laminar or turbulent, the
+  drag of both is shown as a bracket (drag_low_N and drag_high_N in CSV and
+  JSON).
   Uncertainty: any value may carry one, 12±1mm, 12+-1mm or 12mm±8%. It is
   propagated by Monte Carlo (--draws, --seed; sizes, speeds and other
   positive quantities drawn log-normally with the given median and relative
@@ -244,9 +248,9 @@ func runCalc(o *calcOptions, s Streams) error {
 		j.Uncertainty = newUncertaintyJSON(unc)
 		return report.JSON(s.Out, j)
 	case report.FormatCSV:
-		return report.Fields(s.Out, o.format, append(append(calcFields(r), uncertaintyFields(unc)...), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
+		return report.Fields(s.Out, o.format, append(append(calcFields(r, false), uncertaintyFields(unc)...), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
 	}
-	if err := report.Fields(s.Out, o.format, append(calcFields(r), uncertaintyFields(unc)...)); err != nil {
+	if err := report.Fields(s.Out, o.format, append(calcFields(r, true), uncertaintyFields(unc)...)); err != nil {
 		return err
 	}
 	fmt.Fprintln(s.Out, "\nDrag by every law for this shape (chosen law first):")
@@ -257,6 +261,21 @@ func runCalc(o *calcOptions, s Streams) error {
 	report.List(s.Out, "Medium", []string{mediumLine(m)})
 	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
 	return nil
+}
+
+// bracketFields shows the drag's bracket (see [regime.Estimate]), if any:
+// for a table one line "low – high, from …" naming where the ends come from, for
+// CSV the ends as drag_low_N and drag_high_N.
+func bracketFields(e regime.Estimate, table bool) []report.Field {
+	if math.IsNaN(e.Low) || math.IsNaN(e.High) {
+		return nil
+	}
+	if table {
+		return []report.Field{{Key: "drag_bracket_N", Label: "  drag bracket (N)",
+			Value: report.Num(e.Low, 4) + " – " + report.Num(e.High, 4) + ", from " + e.BracketFrom}}
+	}
+	return []report.Field{report.F("drag_low_N", "drag, low end of the bracket (N)", e.Low, 4),
+		report.F("drag_high_N", "drag, high end of the bracket (N)", e.High, 4)}
 }
 
 func estimateRows(d regime.DragResult) [][]string {
@@ -277,7 +296,9 @@ func estimateRows(d regime.DragResult) [][]string {
 	return rows
 }
 
-func calcFields(r regime.Result) []report.Field {
+// calcFields lists the result for a table (table true: the drag's bracket
+// on one line with its origin) or CSV (its two ends as numbers).
+func calcFields(r regime.Result, table bool) []report.Field {
 	fs := []report.Field{
 		report.F("reynolds", "Reynolds number (on the "+reynoldsLength(r)+")", r.Reynolds, 4),
 		{Key: "regime", Label: "flow regime", Value: r.Regime},
@@ -296,6 +317,7 @@ func calcFields(r regime.Result) []report.Field {
 		report.F("drag_coefficient", "drag coefficient", r.Drag.Chosen.Coefficient, 4),
 		report.F("drag_N", "drag (N)", r.Drag.Chosen.Force, 4),
 	)
+	fs = append(fs, bracketFields(r.Drag.Chosen, table)...)
 	fs = append(fs, powerFields(r.Power)...)
 	if !r.Medium.Newtonian() {
 		fs = append(fs, report.F("shear_rate_1_s", "characteristic shear rate (1/s)", r.ShearRate, 4),

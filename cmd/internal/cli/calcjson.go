@@ -110,16 +110,20 @@ func uncertaintyFields(u *regime.Uncertainty) []report.Field {
 }
 
 type dragJSON struct {
-	Law           string         `json:"law"`
-	Source        string         `json:"source"`
-	Coefficient   float64        `json:"coefficient"`
-	ReferenceArea float64        `json:"reference_area_m2"`
-	AreaName      string         `json:"reference_area"`
-	Reynolds      float64        `json:"reynolds"`
-	ReynoldsBasis string         `json:"reynolds_on"`
-	Force         float64        `json:"force_N"`
-	InRange       bool           `json:"in_range"`
-	Estimates     []estimateJSON `json:"estimates"`
+	Law           string  `json:"law"`
+	Source        string  `json:"source"`
+	Coefficient   float64 `json:"coefficient"`
+	ReferenceArea float64 `json:"reference_area_m2"`
+	AreaName      string  `json:"reference_area"`
+	Reynolds      float64 `json:"reynolds"`
+	ReynoldsBasis string  `json:"reynolds_on"`
+	Force         float64 `json:"force_N"`
+	InRange       bool    `json:"in_range"`
+	// The bracket of the drag (see regime.Estimate), absent without one.
+	Low         *float64       `json:"drag_low_N,omitempty"`
+	High        *float64       `json:"drag_high_N,omitempty"`
+	BracketFrom string         `json:"bracket_from,omitempty"`
+	Estimates   []estimateJSON `json:"estimates"`
 }
 
 type estimateJSON struct {
@@ -158,7 +162,8 @@ func newCalcJSON(r regime.Result) calcJSON {
 		BoundaryLayer: r.BoundaryLayer, Strouhal: report.Opt(r.Strouhal), StrouhalBand: r.StrouhalBand,
 		AdvanceRatio: report.Opt(r.AdvanceRatio), ReducedFrequency: report.Opt(r.ReducedFrequency),
 		Drag: dragJSON{Law: c.Law, Source: c.Source, Coefficient: c.Coefficient, ReferenceArea: c.ReferenceArea,
-			AreaName: c.AreaName, Reynolds: c.Reynolds, ReynoldsBasis: c.Basis, Force: c.Force, InRange: c.InRange},
+			AreaName: c.AreaName, Reynolds: c.Reynolds, ReynoldsBasis: c.Basis, Force: c.Force, InRange: c.InRange,
+			Low: report.Opt(c.Low), High: report.Opt(c.High), BracketFrom: c.BracketFrom},
 		Power:     powerJSON{Kind: r.Power.Kind, Total: r.Power.Total},
 		CoastTime: report.Opt(r.CoastTime), CoastDistance: report.Opt(r.CoastDistance),
 		Peclet: report.Opt(r.Peclet), Diffusivity: report.Opt(r.Diffusivity),
