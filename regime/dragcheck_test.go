@@ -7,6 +7,7 @@ package regime
 import (
 	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/flowregime/flowregime/media"
@@ -304,6 +305,27 @@ func TestSpheroidNearSphereLimit(t *testing.T) {
 		}
 		if !warned {
 			t.Errorf("Re %g: %.3g times the sphere's drag with no geometry warning", re, r.Chosen.Force/sphereDrag(re, StandardCurveCD(re)))
+		}
+	}
+}
+
+// The boundary-layer label of a rigid animal body agrees with the drag law
+// chosen for it at every speed: a trout (30 cm × 5 cm) swept from Re 1e3 to
+// 1e6 in 20 °C water is labelled turbulent exactly where its drag comes from
+// the turbulent skin-friction line (the label once said laminar up to 5e5
+// while the drag was turbulent from 1.2e4).
+func TestBoundaryLayerLabelFollowsDrag(t *testing.T) {
+	w := water20(t)
+	nu := w.KinematicViscosity
+	for re := 1e3; re < 1e6; re *= 1.05 {
+		o := NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, re*nu/0.3)
+		r, err := CalcChosen(o, w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		turbulentLaw := strings.Contains(r.Drag.Chosen.Law, "turbulent")
+		if (r.BoundaryLayer == LayerTurbulent) != turbulentLaw {
+			t.Errorf("Re %.4g: label %q but drag law %q", r.Reynolds, r.BoundaryLayer, r.Drag.Chosen.Law)
 		}
 	}
 }

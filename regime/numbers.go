@@ -84,20 +84,20 @@ const (
 	LayerTurbulent = "turbulent"
 )
 
-// TransitionReynolds is the length Reynolds number at which a flat-plate
-// boundary layer is taken to turn turbulent, 5e5 (common practice for low
-// free-stream turbulence; Schlichting 1979, Boundary-Layer Theory, ch. 16,
-// gives 3e5–3e6 depending on disturbances).
-const TransitionReynolds = 5e5
-
-// BoundaryLayer returns "laminar" or "turbulent" for a streamlined body at
-// length Reynolds number re ≥ 1000, and "" below, where a thin boundary
-// layer does not form.
+// BoundaryLayer returns "laminar" or "turbulent" for a rigid animal body
+// (a streamlined spheroid) at length Reynolds number re ≥ 1000, and ""
+// below, where a thin boundary layer does not form. It follows the drag
+// law chosen for such bodies: turbulent from Re 1.2e4, where the laminar
+// and turbulent skin-friction lines meet (see AnimalBodyCf: turbulent
+// layers measured on trout at Re 4e5, Yanase & Saarenrinne 2015), not from
+// the flat-plate 5e5 of low free-stream turbulence (Schlichting 1979,
+// ch. 16). Between the two the drag output carries the laminar value as
+// the other end of a bracket.
 func BoundaryLayer(re float64) string {
 	switch {
 	case re < 1000:
 		return ""
-	case re < TransitionReynolds:
+	case re < bodyTurbulentFrom:
 		return LayerLaminar
 	}
 	return LayerTurbulent
