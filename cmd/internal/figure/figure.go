@@ -64,7 +64,7 @@ func (f *Figure) Size() (w, h vg.Length) {
 	for _, ph := range f.heights {
 		h += ph
 	}
-	return ColumnWidth, h + legendHeight(len(f.legend))
+	return ColumnWidth, h + legendHeight(len(f.legend), legendColumnsFor(f.legend))
 }
 
 // FormatFor returns the figure format for an output file name by its
@@ -122,18 +122,25 @@ func (f *Figure) draw(c vg.CanvasSizer) (err error) {
 		}
 	}()
 	dc := draw.New(c)
-	top := dc.Max.Y
+	pc := dc
+	pc.Min.Y = dc.Max.Y
+	for _, h := range f.heights {
+		pc.Min.Y -= h
+	}
+	// Panels share the left edge of their data areas (plot.Align), so
+	// that stacked panels' x axes line up; they are drawn in equal rows.
+	rows := make([][]*plot.Plot, len(f.panels))
 	for i, p := range f.panels {
-		pc := dc
-		pc.Max.Y = top
-		pc.Min.Y = top - f.heights[i]
-		p.Draw(pc)
-		top = pc.Min.Y
+		rows[i] = []*plot.Plot{p}
+	}
+	cs := plot.Align(rows, draw.Tiles{Rows: len(rows), Cols: 1}, pc)
+	for i, p := range f.panels {
+		p.Draw(cs[i][0])
 	}
 	if len(f.legend) > 0 {
 		lc := dc
-		lc.Max.Y = top
-		drawLegend(lc, f.legend)
+		lc.Max.Y = pc.Min.Y
+		drawLegend(lc, f.legend, legendColumnsFor(f.legend))
 	}
 	return nil
 }
