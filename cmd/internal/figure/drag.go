@@ -104,7 +104,7 @@ func DragFigure(c DragCase) (*Figure, error) {
 			s.re, s.cd = append(s.re, re), append(s.cd, v)
 		}
 	}
-	p := newPanel("", "Reynolds number, Re (on "+choiceName(c.Body)+")", "drag coefficient, C_D (on "+areaName+")")
+	p := newPanel("", "Reynolds number, Re (on "+choiceName(c.Body)+")", "drag coefficient (on "+areaName+")")
 	var all []float64
 	k := 0
 	for _, name := range order {
@@ -140,7 +140,7 @@ func DragFigure(c DragCase) (*Figure, error) {
 			g := groupStyle(1)
 			g.Radius = 3.5
 			addPoints(p, []float64{re}, []float64{cd}, g, true, true)
-			f.legend = append(f.legend, legendEntry{label: fmt.Sprintf("this case: Re %.3g, C_D %.3g", re, cd), glyph: &g})
+			f.legend = append(f.legend, legendEntry{label: fmt.Sprintf("this case: Re %.3g, drag coefficient %.3g", re, cd), glyph: &g})
 		}
 	}
 	setLog(&p.X, dragReLo, dragReHi)

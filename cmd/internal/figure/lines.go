@@ -16,7 +16,7 @@ func addLine(p *plot.Plot, xs, ys []float64, sty draw.LineStyle, logX, logY bool
 		if len(seg) >= 2 {
 			if l, err := plotter.NewLine(seg); err == nil {
 				l.LineStyle = sty
-				p.Add(l)
+				p.Add(clippedLine{l})
 			}
 		}
 		seg = nil
@@ -76,3 +76,11 @@ func setAxis(a *plot.Axis, vs []float64, log bool) error {
 	a.Min, a.Max = lo, hi
 	return nil
 }
+
+// clippedLine is a line that is clipped at the axes and asks for no room
+// beyond them: plotter.Line's glyph boxes at points outside the axis range
+// would shrink the whole data area.
+type clippedLine struct{ *plotter.Line }
+
+// GlyphBoxes implements plot.GlyphBoxer with no boxes.
+func (clippedLine) GlyphBoxes(*plot.Plot) []plot.GlyphBox { return nil }
