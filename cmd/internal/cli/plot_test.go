@@ -111,6 +111,18 @@ func TestPlotRefusals(t *testing.T) {
 		t.Fatal(err)
 	}
 	svg := filepath.Join(dir, "f.svg")
+	// Without --by, a table lacking the taxon column is drawn ungrouped,
+	// and said so; a --by column that is missing is refused.
+	if _, errs, code := run(t, "plot", "regime", onlyBad, "--by", "site", "-o", svg); code != ExitUsage || !strings.Contains(errs, `column "site"`) {
+		t.Errorf("--by site: exit %d, %q", code, errs)
+	}
+	noTaxon := filepath.Join(dir, "notaxon.csv")
+	if err := os.WriteFile(noTaxon, []byte("reynolds,length (mm)\n10,1\n1000,20\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if _, errs, code := run(t, "plot", "regime", noTaxon, "-o", svg); code != 0 || !strings.Contains(errs, "no taxon column") {
+		t.Errorf("no taxon column: exit %d, %q", code, errs)
+	}
 	for _, c := range []struct {
 		args []string
 		msg  string
@@ -124,6 +136,7 @@ func TestPlotRefusals(t *testing.T) {
 		{[]string{"plot", "regime", onlyBad, "-o", svg}, "no row has a Reynolds number", ExitFailure},
 		{[]string{"plot", "regime", filepath.Join(dir, "missing.csv"), "-o", svg}, "cannot read", ExitFailure},
 		{[]string{"plot", "regime", "-o", dir + "/"}, "", ExitUsage},
+		{[]string{"plot", "regime", "--y", "zz", "-o", svg}, `column "zz"`, ExitUsage},
 		{[]string{"plot", "scaling", table, "--fit", "b", "-o", svg}, "write Y=X", ExitUsage},
 		{[]string{"plot", "scaling", onlyBad, "--fit", "reynolds=length", "-o", svg}, "no pair of Reynolds number, Re and length (mm) above zero", ExitFailure},
 		{[]string{"plot", "sweep", table, "--y", "zz", "-o", svg}, `column "zz"`, ExitUsage},
