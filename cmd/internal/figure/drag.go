@@ -2,6 +2,7 @@ package figure
 
 import (
 	"fmt"
+	"image/color"
 	"math"
 
 	"github.com/flowregime/flowregime/regime"
@@ -53,7 +54,7 @@ func frontalArea(b regime.Body) (float64, string) {
 // number on the shape's choice length ([regime.ChoiceLength]), from Re
 // 10⁻³ to 10⁷: each law of the shape (from [regime.Drag]'s estimates)
 // only where it is inside its published range, the law the package
-// chooses as a thick black line, its smooth joins dashed, and the case's
+// chooses as a broad grey band under the laws, its smooth joins dashed, and the case's
 // speed as a marker. Every coefficient is put on one area (frontalArea),
 // C_D = F/(½ρU²A), so that laws on other areas compare.
 func DragFigure(c DragCase) (*Figure, error) {
@@ -105,22 +106,29 @@ func DragFigure(c DragCase) (*Figure, error) {
 		}
 	}
 	p := newPanel("", "Reynolds number, Re (on "+choiceName(c.Body)+")", "drag coefficient (on "+areaName+")")
+	// The chosen law is a broad grey band under the laws, so that the law
+	// it follows stays visible on top of it; the laws take the palette's
+	// colours without black, dashed once the colours repeat.
+	band := lineStyle(color.NRGBA{0xB0, 0xB0, 0xB0, 0xFF}, 4)
+	addLine(p, chosen.re, chosen.cd, band, true, true)
+	f.legend = append(f.legend, legendEntry{label: "law chosen by flowregime (grey band)", line: &band})
 	var all []float64
+	colours := len(palette) - 1 // black is kept for marks
 	k := 0
 	for _, name := range order {
 		s := laws[name]
 		if isJoin(name) || allNaN(s.cd) {
 			continue
 		}
-		sty := lineStyle(colour(k+1), 1)
+		sty := lineStyle(palette[k%colours], 1)
+		if k >= colours {
+			sty.Dashes = []vg.Length{3, 2}
+		}
 		addLine(p, s.re, s.cd, sty, true, true)
 		f.legend = append(f.legend, legendEntry{label: name + " (published range)", line: &sty})
 		all = append(all, s.cd...)
 		k++
 	}
-	thick := lineStyle(colour(len(palette)-1), 0.6)
-	addLine(p, chosen.re, chosen.cd, thick, true, true)
-	f.legend = append([]legendEntry{{label: "law chosen by flowregime", line: &thick}}, f.legend...)
 	if !allNaN(joins.cd) {
 		js := dashed(colour(1), 2)
 		addLine(p, joins.re, joins.cd, js, true, true)
