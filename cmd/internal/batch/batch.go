@@ -29,11 +29,17 @@ const (
 
 // Config says how to read, compute and write.
 type Config struct {
-	InFormat      string            // CSV, TSV or JSONL
-	OutFormat     string            // CSV, TSV, JSONL or Table
-	Columns       map[string]string // quantity → exact header (--column)
-	Units         map[string]string // quantity → unit of its column (--unit)
-	Constants     inputs.Flags      // values for quantities with no column
+	InFormat  string            // CSV, TSV or JSONL
+	OutFormat string            // CSV, TSV, JSONL or Table
+	Columns   map[string]string // quantity → exact header (--column)
+	Units     map[string]string // quantity → unit of its column (--unit)
+	Ignore    []string          // headers left out on purpose (--ignore)
+	Missing   []string          // cell texts meaning "not measured"; nil: inputs.DefaultMissing
+	// Mapped, if set, receives the mapping report (which column became
+	// which quantity in which unit, constants, defaults, unused columns)
+	// once the header is read, before any row is computed.
+	Mapped        func(lines []string)
+	Constants     inputs.Flags // values for quantities with no column
 	DefaultMedium string
 	Names         []string // column names of a headerless input; the output then has no header either
 	Workers       int      // 0 means GOMAXPROCS
@@ -147,9 +153,12 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}
 		line += n
 	}
-	m, err := newMapping(header, cfg.Columns, cfg.Units)
+	if cfg.Missing == nil {
+		cfg.Missing = inputs.DefaultMissing
+	}
+	m, err := readMapping(header, cfg, sampleRows(br, header, delim, cfg.InFormat == JSONL))
 	if err != nil {
-		return sum, HeaderError{err}
+		return sum, err
 	}
 	if m.hasSD() {
 		cfg.Uncertainty = true
@@ -160,11 +169,8 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.Uncertainty && cfg.Method != "linear" && cfg.Draws < 10 {
 		cfg.Draws = 10000
 	}
-	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
-		return sum, HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}
-	}
-	if _, _, _, ok := cfg.Constants.Lookup(inputs.Speed); m.col[inputs.Speed] < 0 && !ok {
-		return sum, HeaderError{fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")}
+	if cfg.Mapped != nil {
+		cfg.Mapped(m.describe(cfg))
 	}
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string

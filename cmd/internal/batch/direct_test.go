@@ -61,7 +61,7 @@ func TestDirectEqualsCells(t *testing.T) {
 			t.Fatal(err)
 		}
 		for ci, consts := range constants {
-			rc := newRowCells(m, consts, "freshwater", false)
+			rc := newRowCells(m, consts, "freshwater", false, inputs.DefaultMissing)
 			if rc.direct == nil {
 				t.Fatalf("header %d, constants %d: no direct reading", hi, ci)
 			}
@@ -114,7 +114,7 @@ func TestDirectDeclines(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if rc := newRowCells(m, tc.consts, "freshwater", false); rc.direct != nil {
+		if rc := newRowCells(m, tc.consts, "freshwater", false, inputs.DefaultMissing); rc.direct != nil {
 			t.Errorf("%q with %v: direct reading accepted", tc.header, tc.consts)
 		}
 	}
@@ -128,7 +128,7 @@ func FuzzDirectEqualsCells(f *testing.F) {
 	if err != nil {
 		f.Fatal(err)
 	}
-	rc := newRowCells(m, inputs.Flags{"salinity": "30"}, "freshwater", false)
+	rc := newRowCells(m, inputs.Flags{"salinity": "30"}, "freshwater", false, inputs.DefaultMissing)
 	f.Add("12.5", "", "", "3", "", "", "", "15", "", "")
 	f.Add("12.5", "2", "rod", "3", "1.2", "30", "air", "15", "", "")
 	f.Add(" 1e3", "0", "SPHERE", "-1", "", "", "seawater", "40", "10", "101")

@@ -109,6 +109,9 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	defer in.Close()
+	if o.explain {
+		return explainBatch(in, cfg, s, "tabulate")
+	}
 	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec)
 	if err != nil {
 		return err
