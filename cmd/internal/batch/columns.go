@@ -319,7 +319,7 @@ func (m *mapping) unitsFromCells(sample [][]string, missing []string) error {
 		}
 		h := strings.TrimSpace(m.header[c])
 		return fmt.Errorf("column %q (%s) has no unit; write it in the header, e.g. %q, or give --unit %s=%s",
-			h, fd.Name, h+" ("+quantity.Units(fd.Kind)[0]+")", fd.Name, exampleUnit(fd.Kind))
+			h, fd.Name, h+" ("+exampleUnit(fd.Kind)+")", fd.Name, exampleUnit(fd.Kind))
 	}
 	return nil
 }
@@ -387,10 +387,13 @@ func (m *mapping) refuseUnmatched() error {
 			m.use[i] = useNone
 		}
 	}
-	if len(bad) > 0 {
-		return fmt.Errorf("column %s looks like a measurement but matches no quantity; map it with --column QUANTITY=HEADER or leave it out with --ignore HEADER ('flowregime columns' lists the spellings)", strings.Join(bad, ", column "))
+	switch len(bad) {
+	case 0:
+		return nil
+	case 1:
+		return fmt.Errorf("column %s looks like a measurement but matches no quantity; map it with --column QUANTITY=%s or leave it out with --ignore %s ('flowregime columns' lists the spellings)", bad[0], bad[0], bad[0])
 	}
-	return nil
+	return fmt.Errorf("columns %s and %s look like measurements but match no quantity; map each with --column QUANTITY=HEADER or leave it out with --ignore HEADER ('flowregime columns' lists the spellings)", strings.Join(bad[:len(bad)-1], ", "), bad[len(bad)-1])
 }
 
 // useNone marks a column that holds no quantity in mapping.use.

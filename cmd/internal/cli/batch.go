@@ -42,8 +42,19 @@ Input columns are carried through unchanged and in order.
 
 Columns are matched to quantities by header, with units taken from the
 header as data sheets write them: "length (mm)", "speed [cm/s]", "temp_C",
-"length_mm". A cell may also carry its own unit ("12 mm"). Override with
---column length="Body length" and --unit length=mm. Quantities:
+"length_mm". A cell may also carry its own unit ("12 mm"). Names are
+compared ignoring case, spacing and punctuation, with the spellings of
+field sheets ("FL (mm)", "Water Temp (°C)", "TBF", "Sal (ppt)"; see
+'flowregime columns'). Override with --column length="Body length" and
+--unit length=mm. A column that reads like a measurement but matches no
+quantity, or a length, speed, mass or frequency column without a unit in
+its header, --unit or its first cells, is refused at the header (exit 2):
+map it with --column, or leave it out with --ignore "Notes". Without -q,
+the mapping (each column's quantity and unit, constants, defaults,
+columns not used) is printed on stderr first; --explain prints it with
+the first rows as read, and computes nothing. A cell reading NA, N/A,
+NaN, -, –, — or ? (--missing) is absent; in the length or speed column
+the row is rejected. Quantities:
   length diameter shape speed frequency amplitude mass span wing_length
   chord wing_area stroke_angle efficiency drag_coefficient area
   induced_factor profile_drag disc diffusivity medium temperature
