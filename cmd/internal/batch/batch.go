@@ -122,7 +122,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		outDelim = '\t'
 	}
 	var header []string
-	var headerRaw []byte
+	var headerRaw, firstRecord []byte
 	var body io.Reader = br
 	line := 1
 	switch {
@@ -137,7 +137,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		if err != nil && len(bytes.TrimSpace(first)) > 0 {
 			return sum, HeaderError{fmt.Errorf("line 1: %v", err)}
 		}
-		header = keys
+		header, firstRecord = keys, first
 		body = io.MultiReader(bytes.NewReader(first), br)
 	default:
 		rec, n, err := readRecord(br)
@@ -156,7 +156,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
-	m, err := readMapping(header, cfg, sampleRows(br, header, delim, cfg.InFormat == JSONL))
+	m, err := readMapping(header, cfg, sampleRows(br, firstRecord, header, delim, cfg.InFormat == JSONL))
 	if err != nil {
 		return sum, err
 	}

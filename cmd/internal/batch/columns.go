@@ -207,12 +207,14 @@ func mapHeader(header []string, r headerRules) (*mapping, error) {
 		}
 		if m.col[f] >= 0 && forced[m.col[f]] {
 			if r.strict {
-				taken = append(taken, fmt.Sprintf("%q (%s comes from %q by --column)", strings.TrimSpace(h), inputs.Fields[f].Name, strings.TrimSpace(header[m.col[f]])))
+				h := strings.TrimSpace(h)
+				taken = append(taken, fmt.Sprintf("column %q also holds %s, which --column takes from %q; leave it out with --ignore %q", h, inputs.Fields[f].Name, strings.TrimSpace(header[m.col[f]]), h))
 			}
 			continue
 		}
 		if m.col[f] >= 0 {
-			return nil, fmt.Errorf("columns %q and %q both hold %s; choose one with --column %s=<header>, or leave one out with --ignore <header>", header[m.col[f]], h, inputs.Fields[f].Name, inputs.Fields[f].Name)
+			first, second := strings.TrimSpace(header[m.col[f]]), strings.TrimSpace(h)
+			return nil, fmt.Errorf("columns %q and %q both hold %s; choose one with --column %s=%q, or leave one out with --ignore %q", first, second, inputs.Fields[f].Name, inputs.Fields[f].Name, first, second)
 		}
 		m.col[f], m.unit[f] = i, unit
 		if unit != "" {
@@ -220,7 +222,7 @@ func mapHeader(header []string, r headerRules) (*mapping, error) {
 		}
 	}
 	if len(taken) > 0 {
-		return nil, fmt.Errorf("column %s; leave it out with --ignore <header>", strings.Join(taken, ", column "))
+		return nil, fmt.Errorf("%s", strings.Join(taken, "; "))
 	}
 	for _, name := range slices.Sorted(maps.Keys(r.units)) {
 		u := r.units[name]

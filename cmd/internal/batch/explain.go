@@ -20,13 +20,14 @@ const (
 )
 
 // sampleRows returns up to sampleRowsMax whole, well-formed, non-blank
-// records from what br holds or can read into its buffer, without
-// consuming them.
-func sampleRows(br *bufio.Reader, header []string, delim byte, jsonl bool) [][]string {
+// records from first (records already read) and what br holds or can
+// read into its buffer, without consuming them.
+func sampleRows(br *bufio.Reader, first []byte, header []string, delim byte, jsonl bool) [][]string {
 	data, _ := br.Peek(min(sampleBytesMax, br.Size()))
 	if i := bytes.LastIndexByte(data, '\n'); i >= 0 && len(data) == br.Size() {
 		data = data[:i+1] // the last record may be cut
 	}
+	data = append(append([]byte(nil), first...), data...)
 	var rows [][]string
 	if jsonl {
 		for _, line := range bytes.Split(data, []byte{'\n'}) {
@@ -243,7 +244,7 @@ func Explain(in io.Reader, cfg Config, rows int) ([]string, error) {
 			return nil, err
 		}
 	}
-	sample := sampleRows(br, header, delim, cfg.InFormat == JSONL && len(cfg.Names) == 0)
+	sample := sampleRows(br, nil, header, delim, cfg.InFormat == JSONL)
 	m, err := readMapping(header, cfg, sample)
 	if err != nil {
 		return nil, err

@@ -96,7 +96,7 @@ func corpusMapping(t *testing.T, data []byte, cfg Config) (*mapping, [][]string,
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
-	sample := sampleRows(br, header, delim, false)
+	sample := sampleRows(br, nil, header, delim, false)
 	m, err := readMapping(header, cfg, sample)
 	return m, sample, err
 }
@@ -277,6 +277,13 @@ func TestUnitlessColumnWithUnitsInCells(t *testing.T) {
 	if r := strings.Join(report, "\n"); !strings.Contains(r, `"Swim Speed" → speed, in the unit each cell gives`) {
 		t.Errorf("report:\n%s", r)
 	}
+	// In JSON Lines the first object is a data row too (a one-line table
+	// was refused before the first line was sampled).
+	cfg.InFormat = JSONL
+	_, rejects, sum = runBatch(t, []byte(`{"FL (mm)": 250, "Swim Speed": "80 cm/s"}`+"\n"), cfg)
+	if sum.Written != 1 || len(rejects) != 0 {
+		t.Errorf("JSON Lines: written %d, rejects %v", sum.Written, rejects)
+	}
 }
 
 // --missing replaces the tokens: with only "NA", a "?" in an optional
@@ -374,5 +381,22 @@ func TestHeaderSpellings(t *testing.T) {
 		if name != c.field || u != c.unit {
 			t.Errorf("splitHeader(%q) = %q, %q; want %q, %q", c.h, name, u, c.field, c.unit)
 		}
+	}
+}
+
+// A second column for a quantity that --column took from another is not
+// left out silently: it is refused until --ignore names it.
+func TestColumnChoiceLeavesNoSilentColumn(t *testing.T) {
+	data := "FL (mm),TL (mm),speed (cm/s)\n250,270,60\n"
+	cfg := corpusConfig("x.csv", "freshwater")
+	cfg.Columns = map[string]string{"length": "FL (mm)"}
+	_, err := Run(context.Background(), strings.NewReader(data), io.Discard, nil, cfg)
+	if err == nil || !strings.Contains(err.Error(), `column "TL (mm)" also holds length, which --column takes from "FL (mm)"; leave it out with --ignore "TL (mm)"`) {
+		t.Errorf("--column without --ignore: %v", err)
+	}
+	cfg.Ignore = []string{"TL (mm)"}
+	out, rejects, _ := runBatch(t, []byte(data), cfg)
+	if len(rejects) != 0 || !strings.Contains(out, "250,270,60,") {
+		t.Errorf("with --ignore: rejects %v, output\n%s", rejects, out)
 	}
 }
