@@ -400,3 +400,28 @@ func TestColumnChoiceLeavesNoSilentColumn(t *testing.T) {
 		t.Errorf("with --ignore: rejects %v, output\n%s", rejects, out)
 	}
 }
+
+// FuzzHeaderMapping: any header and first row is mapped or refused with an
+// error, never a panic, and a mapped header accounts for every column.
+func FuzzHeaderMapping(f *testing.F) {
+	f.Add("FL (mm),Water Temp (°C),Swim Speed,Notes", "250,12,80 cm/s,x")
+	f.Add("Stroke amplitude,length,speed (BL/s),Girth (cm)", "6.5 cm,12 mm,3,4")
+	f.Add("‰,PSU,(mm),[,length sd (%),length (mm) sd", "NA,?,-,–,10%,1")
+	f.Fuzz(func(t *testing.T, header, row string) {
+		h := strings.Split(header, ",")
+		r := strings.Split(row, ",")
+		m, err := mapHeader(h, headerRules{missing: inputs.DefaultMissing, sample: [][]string{r}, strict: true})
+		if err != nil {
+			if strings.Contains(err.Error(), "\n") {
+				t.Fatalf("a header error of more than one line: %q", err)
+			}
+			return
+		}
+		for i := range h {
+			if m.columnUse(i) == "" {
+				t.Fatalf("column %q unaccounted for", h[i])
+			}
+		}
+		m.describe(Config{DefaultMedium: "freshwater", Constants: inputs.Flags{}, Missing: inputs.DefaultMissing})
+	})
+}
