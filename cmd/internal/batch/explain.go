@@ -206,7 +206,10 @@ func (m *mapping) defaults(cfg Config) []string {
 		out = append(out, fmt.Sprintf("salinity %g g/kg in sea water", media.DefaultSalinityGkg)+where(inputs.Salinity))
 	}
 	if water && !constant(inputs.Depth) && !constant(inputs.Pressure) {
-		out = append(out, "water at its surface"+where(inputs.Depth, inputs.Pressure))
+		out = append(out, fmt.Sprintf("water at its surface (%g kPa at altitude 0)", media.StandardPressurePa/1e3)+where(inputs.Depth, inputs.Pressure))
+	}
+	if sea && has(inputs.Depth) && !constant(inputs.Latitude) {
+		out = append(out, fmt.Sprintf("latitude %g° for a depth in sea water", media.DefaultLatitudeDeg)+where(inputs.Latitude))
 	}
 	if !constant(inputs.Altitude) && !constant(inputs.Pressure) {
 		out = append(out, "altitude 0 m"+where(inputs.Altitude))

@@ -45,6 +45,7 @@ func TestMappingReport(t *testing.T) {
 		`flowregime: batch:   "Notes" → not used (no quantity by this name)`,
 		`water temperature 20 °C where "Water Temp (°C)" is blank or missing`,
 		`salinity 35 g/kg in sea water where "Sal (ppt)" is blank or missing`,
+		`water at its surface (101.325 kPa at altitude 0) where "Depth (m)" is blank or missing; latitude 45° for a depth in sea water`,
 		`"NA" marks a missing value, and length is required`,
 	} {
 		if !strings.Contains(errs, want) {
