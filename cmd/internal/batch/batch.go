@@ -121,42 +121,19 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.OutFormat == TSV {
 		outDelim = '\t'
 	}
-	var header []string
-	var headerRaw, firstRecord []byte
+	hl, err := readHeader(br, cfg, delim)
+	if err != nil {
+		return sum, err
+	}
+	header, headerRaw, line := hl.names, hl.raw, 1+hl.lines
 	var body io.Reader = br
-	line := 1
-	switch {
-	case len(cfg.Names) > 0:
-		header = cfg.Names
-	case cfg.InFormat == JSONL:
-		first, err := firstLine(br)
-		if err != nil {
-			return sum, err
-		}
-		keys, _, _, err := parseObject(bytes.TrimSpace(first))
-		if err != nil && len(bytes.TrimSpace(first)) > 0 {
-			return sum, HeaderError{fmt.Errorf("line 1: %v", err)}
-		}
-		header, firstRecord = keys, first
-		body = io.MultiReader(bytes.NewReader(first), br)
-	default:
-		rec, n, err := readRecord(br)
-		if err != nil {
-			return sum, err
-		}
-		if blank(string(rec)) {
-			return sum, HeaderError{fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")}
-		}
-		headerRaw = rec
-		if header, err = splitFields(nil, string(rec), delim); err != nil {
-			return sum, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
-		}
-		line += n
+	if hl.first != nil {
+		body = io.MultiReader(bytes.NewReader(hl.first), br)
 	}
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
-	m, err := readMapping(header, cfg, sampleRows(br, firstRecord, header, delim, cfg.InFormat == JSONL))
+	m, err := readMapping(header, cfg, sampleRows(br, hl.first, header, delim, cfg.InFormat == JSONL))
 	if err != nil {
 		return sum, err
 	}

@@ -240,15 +240,12 @@ func Explain(in io.Reader, cfg Config, rows int) ([]string, error) {
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
-	header := cfg.Names
-	if len(header) == 0 {
-		var err error
-		if header, err = readHeader(br, cfg, delim); err != nil {
-			return nil, err
-		}
+	hl, err := readHeader(br, cfg, delim)
+	if err != nil {
+		return nil, err
 	}
-	sample := sampleRows(br, nil, header, delim, cfg.InFormat == JSONL)
-	m, err := readMapping(header, cfg, sample)
+	sample := sampleRows(br, hl.first, hl.names, delim, cfg.InFormat == JSONL)
+	m, err := readMapping(hl.names, cfg, sample)
 	if err != nil {
 		return nil, err
 	}
@@ -260,32 +257,43 @@ func Explain(in io.Reader, cfg Config, rows int) ([]string, error) {
 	return lines, nil
 }
 
-// readHeader reads the header line of a CSV, TSV or JSON Lines input.
-func readHeader(br *bufio.Reader, cfg Config, delim byte) ([]string, error) {
-	if cfg.InFormat == JSONL {
-		first, err := br.Peek(min(br.Size(), sampleBytesMax))
-		if err != nil && err != io.EOF && err != bufio.ErrBufferFull {
-			return nil, err
-		}
-		line, _, _ := bytes.Cut(first, []byte{'\n'})
-		keys, _, _, err := parseObject(bytes.TrimSpace(line))
+// headerLine is a table's header as read.
+type headerLine struct {
+	names []string
+	raw   []byte // the CSV or TSV header record as written
+	lines int    // lines the header record spans (0 with --names or JSON Lines)
+	first []byte // JSON Lines: the first line, a data row as well as the keys
+}
+
+// readHeader reads the header: --names, the first JSON object's keys, or
+// the first CSV or TSV record.
+func readHeader(br *bufio.Reader, cfg Config, delim byte) (headerLine, error) {
+	switch {
+	case len(cfg.Names) > 0:
+		return headerLine{names: cfg.Names}, nil
+	case cfg.InFormat == JSONL:
+		first, err := firstLine(br)
 		if err != nil {
-			return nil, HeaderError{fmt.Errorf("line 1: %v", err)}
+			return headerLine{}, err
 		}
-		return keys, nil
+		keys, _, _, err := parseObject(bytes.TrimSpace(first))
+		if err != nil && len(bytes.TrimSpace(first)) > 0 {
+			return headerLine{}, HeaderError{fmt.Errorf("line 1: %v", err)}
+		}
+		return headerLine{names: keys, first: first}, nil
 	}
-	rec, _, err := readRecord(br)
+	rec, n, err := readRecord(br)
 	if err != nil {
-		return nil, err
+		return headerLine{}, err
 	}
 	if blank(string(rec)) {
-		return nil, HeaderError{fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")}
+		return headerLine{}, HeaderError{fmt.Errorf("the input is empty or starts with a blank line; its first line must be the header")}
 	}
-	h, err := splitFields(nil, string(rec), delim)
+	names, err := splitFields(nil, string(rec), delim)
 	if err != nil {
-		return nil, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
+		return headerLine{}, HeaderError{fmt.Errorf("line 1 (header): %v", err)}
 	}
-	return h, nil
+	return headerLine{names: names, raw: rec, lines: n}, nil
 }
 
 // readAs shows the values of one row's cells in SI units, or why a cell

@@ -89,10 +89,11 @@ func corpusMapping(t *testing.T, data []byte, cfg Config) (*mapping, [][]string,
 	if cfg.InFormat == TSV {
 		delim = '\t'
 	}
-	header, err := readHeader(br, cfg, delim)
+	hl, err := readHeader(br, cfg, delim)
 	if err != nil {
 		t.Fatal(err)
 	}
+	header := hl.names
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
