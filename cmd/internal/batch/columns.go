@@ -383,6 +383,8 @@ func (m *mapping) refuseUnmatched() error {
 		switch {
 		case strings.Contains(c, "girth") || strings.Contains(c, "circumf"):
 			return fmt.Errorf("column %q is a girth (a circumference), not a diameter: add a diameter column (girth/π) or leave it out with --ignore %q", h, h)
+		case slices.Contains(Computed, h) || slices.Contains(UncertaintyColumns, h):
+			m.use[i] = useComputed
 		case inputs.LooksLikeQuantity(name) || knownUnitOfAnyField(unit):
 			bad = append(bad, fmt.Sprintf("%q", h))
 		default:
@@ -398,8 +400,12 @@ func (m *mapping) refuseUnmatched() error {
 	return fmt.Errorf("columns %s and %s look like measurements but match no quantity; map each with --column QUANTITY=HEADER or leave it out with --ignore HEADER ('flowregime columns' lists the spellings)", strings.Join(bad[:len(bad)-1], ", "), bad[len(bad)-1])
 }
 
-// useNone marks a column that holds no quantity in mapping.use.
-const useNone = "not used"
+// useNone marks a column that holds no quantity in mapping.use, and
+// useComputed one that batch writes (a table that is batch output).
+const (
+	useNone     = "not used"
+	useComputed = "computed"
+)
 
 func fieldNames() string {
 	names := make([]string, len(inputs.Fields))

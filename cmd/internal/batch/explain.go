@@ -124,8 +124,11 @@ func (m *mapping) columnUse(i int) string {
 			return fmt.Sprintf("standard uncertainty of %s, in %s", inputs.Fields[f].Name, u)
 		}
 	}
-	if m.use[i] == useIgnored {
+	switch m.use[i] {
+	case useIgnored:
 		return "not used (--ignore)"
+	case useComputed:
+		return "not used (a column batch computes; it is computed anew)"
 	}
 	return "not used (no quantity by this name)"
 }

@@ -426,3 +426,19 @@ func FuzzHeaderMapping(f *testing.F) {
 		m.describe(Config{DefaultMedium: "freshwater", Constants: inputs.Flags{}, Missing: inputs.DefaultMissing})
 	})
 }
+
+// Batch output read again (as tabulate does with JSON Lines) is not
+// refused for its computed columns, which look like measurements.
+func TestBatchOutputReadsAgain(t *testing.T) {
+	cfg := corpusConfig("x.csv", "freshwater")
+	first, _, _ := runBatch(t, []byte("length (mm),speed (cm/s)\n100,20\n"), cfg)
+	var report []string
+	cfg.Mapped = func(l []string) { report = l }
+	_, rejects, sum := runBatch(t, []byte(first), cfg)
+	if sum.Written != 1 || len(rejects) != 0 {
+		t.Errorf("written %d, rejects %v", sum.Written, rejects)
+	}
+	if r := strings.Join(report, "\n"); !strings.Contains(r, `"drag_N" → not used (a column batch computes; it is computed anew)`) {
+		t.Errorf("report:\n%s", r)
+	}
+}
