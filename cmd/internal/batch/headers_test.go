@@ -442,3 +442,23 @@ func TestBatchOutputReadsAgain(t *testing.T) {
 		t.Errorf("report:\n%s", r)
 	}
 }
+
+// A missing-value token that is a number (a -999 sentinel) is absent in
+// every row, plain-number rows included.
+func TestNumericMissingToken(t *testing.T) {
+	data := []byte("length (mm),speed (cm/s),mass (g),temperature (°C)\n100,20,-999,-999\n-999,20,5,10\n")
+	cfg := corpusConfig("x.csv", "freshwater")
+	cfg.Missing = []string{"-999"}
+	var plain []string
+	out, rejects, _ := runBatch(t, data, cfg)
+	if len(rejects) != 1 || rejects[0].Row != 2 || !strings.Contains(rejects[0].Reason, `"-999" marks a missing value, and length is required`) {
+		t.Errorf("rejects %+v", rejects)
+	}
+	// Row 1 computes as if mass and temperature were blank (20 °C default).
+	plain = strings.Split(out, "\n")
+	blank, _, _ := runBatch(t, []byte("length (mm),speed (cm/s),mass (g),temperature (°C)\n100,20,,\n"), Config{InFormat: CSV, OutFormat: CSV})
+	want := strings.SplitN(strings.Split(blank, "\n")[1], ",", 5)[4]
+	if got := strings.SplitN(plain[1], ",", 5)[4]; got != want {
+		t.Errorf("with -999: %s\nblank:      %s", got, want)
+	}
+}

@@ -51,6 +51,7 @@ type rowCells struct {
 	uncertain bool     // the last row filled has a value with an uncertainty
 	missing   []string // cell texts that mean "not measured"
 	missLen   int      // the longest of them, in bytes
+	missNum   bool     // one of them is a plain number ("-999"): every cell is checked first
 }
 
 // column is how one input column is read.
@@ -66,10 +67,13 @@ func newRowCells(m *mapping, constants inputs.Flags, defaultMedium string, uncer
 	rc := &rowCells{m: m, missing: missing}
 	for _, t := range missing {
 		rc.missLen = max(rc.missLen, len(t))
+		if _, ok := quantity.PlainNumber(t); ok {
+			rc.missNum = true
+		}
 	}
 	rc.cells.Read(constants)
 	var cols []inputs.Column
-	direct := !uncertainty
+	direct := !uncertainty && !rc.missNum // the direct path reads numbers without the missing-value check
 	for f := range inputs.Fields {
 		if m.col[f] >= 0 {
 			cols = append(cols, inputs.Column{Field: f, Col: m.col[f], Conv: m.conv[f]})
@@ -120,6 +124,10 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 			continue
 		}
 		if t == "" {
+			continue
+		}
+		if rc.missNum && rc.isMissing(t) {
+			c.Given[f] = rc.markMissing(f, t)
 			continue
 		}
 		if p.fast {
