@@ -64,6 +64,12 @@ func readMapping(header []string, cfg Config, sample [][]string) (*mapping, erro
 	if err != nil {
 		return nil, HeaderError{err}
 	}
+	for f, fd := range inputs.Fields {
+		if v, ok := cfg.Constants[fd.Name]; ok && m.col[f] >= 0 {
+			h := strings.TrimSpace(m.header[m.col[f]])
+			return nil, HeaderError{fmt.Errorf("--%s %s and column %q both give %s; drop the flag, or leave the column out with --ignore %q", fd.Flag, v, h, fd.Name, h)}
+		}
+	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
 		return nil, HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}
 	}

@@ -462,3 +462,16 @@ func TestNumericMissingToken(t *testing.T) {
 		t.Errorf("with -999: %s\nblank:      %s", got, want)
 	}
 }
+
+// A flag constant for a quantity that a column also gives was dropped
+// without a word (the column won, and its blank cells lost the flag's
+// value); it is refused at the header.
+func TestConstantAndColumnForOneQuantity(t *testing.T) {
+	cfg := corpusConfig("x.csv", "freshwater")
+	cfg.Constants = inputs.Flags{"temperature": "12C"}
+	_, err := Run(context.Background(), strings.NewReader("length (mm),speed (cm/s),Water Temp (°C)\n100,20,\n"), io.Discard, nil, cfg)
+	var he HeaderError
+	if !errors.As(err, &he) || !strings.Contains(err.Error(), `--temp 12C and column "Water Temp (°C)" both give temperature`) {
+		t.Errorf("got %v", err)
+	}
+}
