@@ -29,11 +29,17 @@ const (
 
 // Config says how to read, compute and write.
 type Config struct {
-	InFormat      string            // CSV, TSV or JSONL
-	OutFormat     string            // CSV, TSV, JSONL or Table
-	Columns       map[string]string // quantity → exact header (--column)
-	Units         map[string]string // quantity → unit of its column (--unit)
-	Constants     inputs.Flags      // values for quantities with no column
+	InFormat  string            // CSV, TSV or JSONL
+	OutFormat string            // CSV, TSV, JSONL or Table
+	Columns   map[string]string // quantity → exact header (--column)
+	Units     map[string]string // quantity → unit of its column (--unit)
+	Ignore    []string          // headers left out on purpose (--ignore)
+	Missing   []string          // cell texts meaning "not measured"; nil: inputs.DefaultMissing
+	// Mapped, if set, receives the mapping report (which column became
+	// which quantity in which unit, constants, defaults, unused columns)
+	// once the header is read, before any row is computed.
+	Mapped        func(lines []string)
+	Constants     inputs.Flags // values for quantities with no column
 	DefaultMedium string
 	Names         []string // column names of a headerless input; the output then has no header either
 	Workers       int      // 0 means GOMAXPROCS
@@ -113,38 +119,21 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.OutFormat == TSV {
 		outDelim = '\t'
 	}
-	var header []string
-	var headerRaw []byte
-	var body io.Reader = br
-	line := 1
-	switch {
-	case len(cfg.Names) > 0:
-		header = cfg.Names
-	case cfg.InFormat == JSONL:
-		first, err := firstLine(br)
-		if err != nil {
-			return sum, err
-		}
-		keys, _, _, err := parseObject(bytes.TrimSpace(first))
-		if err != nil && len(bytes.TrimSpace(first)) > 0 {
-			return sum, HeaderError{fmt.Errorf("line 1: %v", err)}
-		}
-		header = keys
-		body = io.MultiReader(bytes.NewReader(first), br)
-	default:
-		var rest []byte
-		var n int
-		var err error
-		header, headerRaw, n, rest, err = readHeader(br, delim)
-		if err != nil {
-			return sum, err
-		}
-		body = io.MultiReader(bytes.NewReader(rest), br)
-		line += n
-	}
-	m, err := newMapping(header, cfg.Columns, cfg.Units)
+	hl, err := readHeader(br, cfg, delim)
 	if err != nil {
-		return sum, HeaderError{err}
+		return sum, err
+	}
+	header, headerRaw, line := hl.names, hl.raw, 1+hl.lines
+	var body io.Reader = br
+	if hl.first != nil {
+		body = io.MultiReader(bytes.NewReader(hl.first), br)
+	}
+	if cfg.Missing == nil {
+		cfg.Missing = inputs.DefaultMissing
+	}
+	m, err := readMapping(header, cfg, sampleRows(br, hl.first, header, delim, cfg.InFormat == JSONL))
+	if err != nil {
+		return sum, err
 	}
 	if m.hasSD() {
 		cfg.Uncertainty = true
@@ -155,11 +144,8 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.Uncertainty && cfg.Method != "linear" && cfg.Draws < 10 {
 		cfg.Draws = 10000
 	}
-	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
-		return sum, HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}
-	}
-	if _, _, _, ok := cfg.Constants.Lookup(inputs.Speed); m.col[inputs.Speed] < 0 && !ok {
-		return sum, HeaderError{fmt.Errorf("no column holds the speed and --speed is not given; name a column speed (e.g. \"speed (cm/s)\") or use --column speed=<header>")}
+	if cfg.Mapped != nil {
+		cfg.Mapped(m.describe(cfg))
 	}
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string
@@ -349,10 +335,10 @@ func (c *countingReader) Read(p []byte) (int, error) {
 	return n, err
 }
 
-// readHeader reads the header record of a CSV or TSV table (recordRule
+// readCSVHeader reads the header record of a CSV or TSV table (recordRule
 // with any number of fields) and splits it; raw is its text without the
 // line ending, lines the lines it spans, rest the input read past it.
-func readHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, lines int, rest []byte, err error) {
+func readCSVHeader(br *bufio.Reader, delim byte) (fields []string, raw []byte, lines int, rest []byte, err error) {
 	var buf []byte
 	rule := recordRule{quotes: true, delim: delim}
 	checked := 0 // length of buf when the record was last looked for

@@ -51,7 +51,7 @@ func rowBench(b *testing.B) ([][]string, *rowCells, *localMedia, *Config) {
 		f, _ := splitFields(nil, string(l), ',')
 		rows = append(rows, f)
 	}
-	return rows, newRowCells(m, inputs.Flags{}, "freshwater", false), newLocalMedia(newMediumCache(newMediumFiles(&Config{})), localSlots), &Config{DefaultMedium: "freshwater"}
+	return rows, newRowCells(m, inputs.Flags{}, "freshwater", false, inputs.DefaultMissing), newLocalMedia(newMediumCache(newMediumFiles(&Config{})), localSlots), &Config{DefaultMedium: "freshwater"}
 }
 
 // BenchmarkRow measures the computation of one row, without reading or

@@ -57,7 +57,7 @@ func TestCorruptFileLosesNoRow(t *testing.T) {
 	if sum.Read != 10 || written+len(rejects) != sum.Read || sum.Written != written || sum.Blank != 1 {
 		t.Errorf("read %d, written %d (summary %d), rejected %d, blank %d", sum.Read, written, sum.Written, len(rejects), sum.Blank)
 	}
-	wantRejected := map[int]string{3: "no number", 4: "no number", 5: "no number", 6: "has 2 fields", 11: "unknown unit", 12: "freezing point", 13: "quoted field"}
+	wantRejected := map[int]string{3: "no number", 4: "marks a missing value, and length is required", 5: "no number", 6: "has 2 fields", 11: "unknown unit", 12: "freezing point", 13: "quoted field"}
 	for _, r := range rejects {
 		want, ok := wantRejected[r.Line]
 		if !ok || !strings.Contains(r.Reason, want) {

@@ -30,7 +30,7 @@ func TestDirectEqualsCells(t *testing.T) {
 	// then a cell that sends its row to the general path.
 	number := func(rng *rand.Rand) string {
 		if rng.IntN(40) == 0 {
-			return []string{"1e400", "12mm", "3±1", "NaN", "\u00a05", "abc", "0x10", "1_0"}[rng.IntN(8)]
+			return []string{"1e400", "12mm", "3±1", "NaN", "\u00a05", "abc", "0x10", "1_0", "NA", "?", "-"}[rng.IntN(11)]
 		}
 		switch rng.IntN(9) {
 		case 0:
@@ -48,9 +48,9 @@ func TestDirectEqualsCells(t *testing.T) {
 		}
 	}
 	texts := map[string][]string{
-		"shape":  {"", "", "sphere", "SPHEROID", "rod", "blob", " cylinder "},
-		"medium": {"", "air", "seawater", "freshwater", " air", "mud", "sea water"},
-		"disc":   {"", "span", "stroke", "wing"},
+		"shape":  {"", "", "sphere", "SPHEROID", "rod", "blob", " cylinder ", "NA", "?"},
+		"medium": {"", "air", "seawater", "freshwater", " air", "mud", "sea water", "n/a", "-"},
+		"disc":   {"", "span", "stroke", "wing", "–"},
 		"notes":  {"", "anything", "±2"},
 	}
 	rng := rand.New(rand.NewPCG(7, 8))
@@ -61,7 +61,7 @@ func TestDirectEqualsCells(t *testing.T) {
 			t.Fatal(err)
 		}
 		for ci, consts := range constants {
-			rc := newRowCells(m, consts, "freshwater", false)
+			rc := newRowCells(m, consts, "freshwater", false, inputs.DefaultMissing)
 			if rc.direct == nil {
 				t.Fatalf("header %d, constants %d: no direct reading", hi, ci)
 			}
@@ -114,7 +114,7 @@ func TestDirectDeclines(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if rc := newRowCells(m, tc.consts, "freshwater", false); rc.direct != nil {
+		if rc := newRowCells(m, tc.consts, "freshwater", false, inputs.DefaultMissing); rc.direct != nil {
 			t.Errorf("%q with %v: direct reading accepted", tc.header, tc.consts)
 		}
 	}
@@ -128,10 +128,11 @@ func FuzzDirectEqualsCells(f *testing.F) {
 	if err != nil {
 		f.Fatal(err)
 	}
-	rc := newRowCells(m, inputs.Flags{"salinity": "30"}, "freshwater", false)
+	rc := newRowCells(m, inputs.Flags{"salinity": "30"}, "freshwater", false, inputs.DefaultMissing)
 	f.Add("12.5", "", "", "3", "", "", "", "15", "", "")
 	f.Add("12.5", "2", "rod", "3", "1.2", "30", "air", "15", "", "")
 	f.Add(" 1e3", "0", "SPHERE", "-1", "", "", "seawater", "40", "10", "101")
+	f.Add("12.5", "NA", "?", "3", "-", "n/a", "–", "NaN", "", "")
 	f.Fuzz(func(t *testing.T, a, b, c, d, e, g, h, i, j, k string) {
 		fields := []string{a, b, c, d, e, g, h, i, j, k}
 		got, ok, gotErr := rc.direct.Row(fields)

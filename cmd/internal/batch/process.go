@@ -62,7 +62,7 @@ func (p *processor) process(c *chunk) result {
 			return
 		}
 		if p.cells == nil {
-			p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty)
+			p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty, p.cfg.Missing)
 		}
 		var seed uint64
 		if p.cfg.Uncertainty {

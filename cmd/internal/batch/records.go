@@ -577,7 +577,7 @@ type Reader struct {
 func NewReader(r io.Reader, delim byte) (*Reader, error) {
 	br := bufio.NewReaderSize(r, 64<<10)
 	skipBOM(br)
-	header, _, n, rest, err := readHeader(br, delim)
+	header, _, n, rest, err := readCSVHeader(br, delim)
 	if err != nil {
 		return nil, err
 	}

@@ -49,6 +49,9 @@ type rowCells struct {
 	plan      []column // the columns that hold inputs
 	constSD   bool     // a flag constant carries an uncertainty
 	uncertain bool     // the last row filled has a value with an uncertainty
+	missing   []string // cell texts that mean "not measured"
+	missLen   int      // the longest of them, in bytes
+	missNum   bool     // one of them is a plain number ("-999"): every cell is checked first
 }
 
 // column is how one input column is read.
@@ -60,11 +63,17 @@ type column struct {
 	full              bool // the cell's Value holds conv's unit and flags, so a plain number sets SI alone
 }
 
-func newRowCells(m *mapping, constants inputs.Flags, defaultMedium string, uncertainty bool) *rowCells {
-	rc := &rowCells{m: m}
+func newRowCells(m *mapping, constants inputs.Flags, defaultMedium string, uncertainty bool, missing []string) *rowCells {
+	rc := &rowCells{m: m, missing: missing}
+	for _, t := range missing {
+		rc.missLen = max(rc.missLen, len(t))
+		if _, ok := quantity.PlainNumber(t); ok {
+			rc.missNum = true
+		}
+	}
 	rc.cells.Read(constants)
 	var cols []inputs.Column
-	direct := !uncertainty
+	direct := !uncertainty && !rc.missNum // the direct path reads numbers without the missing-value check
 	for f := range inputs.Fields {
 		if m.col[f] >= 0 {
 			cols = append(cols, inputs.Column{Field: f, Col: m.col[f], Conv: m.conv[f]})
@@ -73,6 +82,9 @@ func newRowCells(m *mapping, constants inputs.Flags, defaultMedium string, uncer
 	}
 	if direct {
 		rc.direct, _ = inputs.NewDirect(&rc.cells, cols, m.label, defaultMedium)
+		if rc.direct != nil {
+			rc.direct.SetMissing(missing)
+		}
 	}
 	for f := range inputs.Fields {
 		if m.col[f] < 0 && rc.cells.Given[f] && rc.cells.Err[f] == nil && rc.cells.Value[f].SD > 0 {
@@ -102,6 +114,9 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 		if c.Err[f] != nil { // pointer stores only when something changes
 			c.Err[f] = nil
 		}
+		if p.text && rc.isMissing(t) {
+			t, c.Given[f] = "", false
+		}
 		if p.text {
 			if c.Text[f] != t {
 				c.Text[f] = t
@@ -109,6 +124,10 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 			continue
 		}
 		if t == "" {
+			continue
+		}
+		if rc.missNum && rc.isMissing(t) {
+			c.Given[f] = rc.markMissing(f, t)
 			continue
 		}
 		if p.fast {
@@ -122,9 +141,13 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 			}
 		}
 		p.full = false
+		if rc.isMissing(t) {
+			c.Given[f] = rc.markMissing(f, t)
+			continue
+		}
 		c.Value[f], c.Err[f] = quantity.ParseDefault(inputs.Fields[f].Kind, t, rc.m.unit[f])
 		if c.Err[f] == nil && p.sdCol >= 0 && p.sdCol < len(fields) {
-			if sd := strings.TrimSpace(fields[p.sdCol]); sd != "" {
+			if sd := strings.TrimSpace(fields[p.sdCol]); sd != "" && !rc.isMissing(sd) {
 				c.Value[f], c.Err[f] = rc.withSD(f, p.sdCol, c.Value[f], sd)
 			}
 		}
@@ -133,6 +156,22 @@ func (rc *rowCells) fill(fields []string) *inputs.Cells {
 		}
 	}
 	return c
+}
+
+// isMissing reports whether a trimmed, non-blank cell says "not measured".
+func (rc *rowCells) isMissing(t string) bool {
+	return len(t) <= rc.missLen && inputs.Missing(t, rc.missing)
+}
+
+// markMissing handles a cell that says "not measured": an optional
+// field is absent (false), a required one (length, speed) stays given
+// with an error that says so (true).
+func (rc *rowCells) markMissing(f int, t string) bool {
+	if f != inputs.Length && f != inputs.Speed {
+		return false
+	}
+	rc.cells.Err[f] = fmt.Errorf("%q marks a missing value, and %s is required", t, inputs.Fields[f].Name)
+	return true
 }
 
 // withSD adds to v the uncertainty sd from column sdCol: converted from

@@ -25,8 +25,8 @@ import (
 
 type batchOptions struct {
 	input, inFormat, outFormat, output, rejects, names string
-	columns, units                                     []string
-	flaggedOnly, quiet, mediaAnywhere                  bool
+	columns, units, ignore, missing                    []string
+	flaggedOnly, quiet, mediaAnywhere, explain         bool
 	workers                                            int
 	organism                                           organismFlags
 	medium                                             string
@@ -42,8 +42,19 @@ Input columns are carried through unchanged and in order.
 
 Columns are matched to quantities by header, with units taken from the
 header as data sheets write them: "length (mm)", "speed [cm/s]", "temp_C",
-"length_mm". A cell may also carry its own unit ("12 mm"). Override with
---column length="Body length" and --unit length=mm. Quantities:
+"length_mm". A cell may also carry its own unit ("12 mm"). Names are
+compared ignoring case, spacing and punctuation, with the spellings of
+field sheets ("FL (mm)", "Water Temp (°C)", "TBF", "Sal (ppt)"; see
+'flowregime columns'). Override with --column length="Body length" and
+--unit length=mm. A column that reads like a measurement but matches no
+quantity, or a length, speed, mass or frequency column without a unit in
+its header, --unit or its first cells, is refused at the header (exit 2):
+map it with --column, or leave it out with --ignore "Notes". Without -q,
+the mapping (each column's quantity and unit, constants, defaults,
+columns not used) is printed on stderr first; --explain prints it with
+the first rows as read, and computes nothing. A cell reading NA, N/A,
+NaN, -, –, — or ? (--missing) is absent; in the length or speed column
+the row is rejected. Quantities:
   length diameter shape speed frequency amplitude mass span wing_length
   chord wing_area stroke_angle efficiency drag_coefficient area
   induced_factor profile_drag disc diffusivity medium temperature
@@ -123,7 +134,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
 	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
-	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar and no summary")
+	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar, no column report and no summary")
 	o.bindInputs(cmd)
 	o.unc.bind(cmd)
 	return cmd
@@ -136,6 +147,9 @@ func (o *batchOptions) bindInputs(cmd *cobra.Command) {
 	fs.StringVar(&o.inFormat, "input-format", "", "csv, tsv or jsonl (default: from the file's extension, else csv)")
 	fs.StringArrayVar(&o.columns, "column", nil, "quantity=header: take a quantity from this column (repeatable)")
 	fs.StringArrayVar(&o.units, "unit", nil, "quantity=unit: unit of that quantity's column (repeatable)")
+	fs.StringArrayVar(&o.ignore, "ignore", nil, "header of a column to leave out (repeatable), e.g. --ignore \"Notes\"")
+	fs.StringSliceVar(&o.missing, "missing", inputs.DefaultMissing, "comma-separated cell texts that mean not measured (a blank cell always does)")
+	fs.BoolVar(&o.explain, "explain", false, "print how the header and the first rows are read (columns, units, constants, defaults), compute nothing")
 	fs.IntVar(&o.workers, "workers", 0, fmt.Sprintf("parallel workers, 1 to %d (default: number of CPUs)", maxWorkers))
 	fs.BoolVar(&o.mediaAnywhere, "media-anywhere", false, "let medium files named in the table lie outside the table's folder")
 	o.organism.bind(cmd)
@@ -261,6 +275,8 @@ func (o *batchOptions) config() (batch.Config, error) {
 	if cfg.Units, err = keyValues("unit", o.units); err != nil {
 		return cfg, err
 	}
+	cfg.Ignore = o.ignore
+	cfg.Missing = missingTokens(o.missing)
 	if o.names != "" {
 		r := csv.NewReader(strings.NewReader(o.names))
 		if cfg.Names, err = r.Read(); err != nil {
@@ -285,6 +301,27 @@ func (o *batchOptions) config() (batch.Config, error) {
 	}
 
 	return cfg, nil
+}
+
+// missingTokens trims the --missing list and drops empty entries; an
+// empty list (--missing "") leaves only blank cells meaning missing.
+func missingTokens(list []string) []string {
+	out := []string{}
+	for _, t := range list {
+		if t = strings.TrimSpace(t); t != "" {
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// mappingReport prints the mapping report on stderr, each line prefixed.
+func mappingReport(w io.Writer, command string) func([]string) {
+	return func(lines []string) {
+		for _, l := range lines {
+			fmt.Fprintln(w, report.Printable("flowregime: "+command+": "+l))
+		}
+	}
 }
 
 // maxWorkers bounds --workers. Each worker holds chunks of input and output
@@ -359,6 +396,12 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		return err
 	}
 	defer in.Close()
+	if o.explain {
+		return explainBatch(in, cfg, s, "batch")
+	}
+	if !o.quiet {
+		cfg.Mapped = mappingReport(s.Err, "batch")
+	}
 	var out io.Writer = s.Out
 	var outFile, rejFile *atomicFile
 	if o.output != "" {
@@ -416,6 +459,24 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	}
 	if sum.Rejected > 0 {
 		return exitError{code: ExitRejected}
+	}
+	return nil
+}
+
+// explainRows is how many data rows --explain shows as read.
+const explainRows = 3
+
+// explainBatch prints the mapping report and the first rows as read, on
+// the standard output, and computes nothing.
+func explainBatch(in io.Reader, cfg batch.Config, s Streams, command string) error {
+	lines, err := batch.Explain(in, cfg, explainRows)
+	if err != nil {
+		return batchFailure(command, err)
+	}
+	for _, l := range lines {
+		if _, err := fmt.Fprintln(s.Out, report.Printable(l)); err != nil {
+			return err
+		}
 	}
 	return nil
 }

@@ -111,6 +111,9 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	defer in.Close()
+	if o.explain {
+		return explainBatch(in, cfg, s, "tabulate")
+	}
 	var mu sync.Mutex
 	reject := func(r batch.Reject) {
 		mu.Lock()

@@ -32,6 +32,18 @@ type Direct struct {
 	shapeLabel    string
 	labels        [NumFields]string // where each field comes from, for errors
 	defaultMedium string
+	missing       []string // cell texts that mean "not measured" (SetMissing)
+	missLen       int      // the longest of them, in bytes
+}
+
+// SetMissing sets the cell texts that mean "not measured": a text field
+// holding one is absent, as the batch's cells reading takes it. Numeric
+// cells holding one are not plain numbers and go the general way.
+func (d *Direct) SetMissing(tokens []string) {
+	d.missing, d.missLen = tokens, 0
+	for _, t := range tokens {
+		d.missLen = max(d.missLen, len(t))
+	}
 }
 
 type directText struct{ field, col int }
@@ -128,6 +140,9 @@ func (d *Direct) Row(fields []string) (in *Input, ok bool, err error) {
 		text := ""
 		if t.col < len(fields) {
 			text = strings.TrimSpace(fields[t.col])
+		}
+		if text != "" && len(text) <= d.missLen && Missing(text, d.missing) {
+			text = ""
 		}
 		d.setText(t.field, text)
 	}

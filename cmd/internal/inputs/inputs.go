@@ -20,7 +20,7 @@ type Field struct {
 	Flag    string        // the calc flag
 	Kind    quantity.Kind // how numbers are read; Text fields are not numbers
 	Text    bool          // a word, not a number (shape, medium)
-	Aliases []string      // other header names, lower case
+	Aliases []string      // other header names; compared by Compact (case, spacing and punctuation ignored)
 }
 
 // Field indices, in the order of Fields.
@@ -60,18 +60,18 @@ const (
 
 // Fields lists every input in a fixed order.
 var Fields = []Field{
-	{Name: "length", Flag: "length", Kind: quantity.Length, Aliases: []string{"body length", "bl", "size", "total length", "tl", "standard length", "sl", "fork length", "l"}},
-	{Name: "diameter", Flag: "diameter", Kind: quantity.Length, Aliases: []string{"width", "body width", "max diameter", "body diameter"}},
+	{Name: "length", Flag: "length", Kind: quantity.Length, Aliases: []string{"body length", "bl", "size", "body size", "total length", "tl", "standard length", "sl", "fork length", "fl", "l", "len", "snout vent length", "svl", "carapace length", "cl", "mantle length"}},
+	{Name: "diameter", Flag: "diameter", Kind: quantity.Length, Aliases: []string{"width", "body width", "max width", "maximum width", "max diameter", "body diameter", "diam", "dia", "body depth", "max body depth", "maximum body depth", "bd"}},
 	{Name: "shape", Flag: "shape", Text: true, Aliases: []string{"body shape"}},
-	{Name: "speed", Flag: "speed", Kind: quantity.Speed, Aliases: []string{"velocity", "swimming speed", "swim speed", "flight speed", "u"}},
-	{Name: "frequency", Flag: "freq", Kind: quantity.Frequency, Aliases: []string{"freq", "beat frequency", "tailbeat frequency", "tail beat frequency", "wingbeat frequency", "tbf", "wbf", "f"}},
-	{Name: "amplitude", Flag: "amplitude", Kind: quantity.Length, Aliases: []string{"amp", "tail amplitude", "tail beat amplitude", "a"}},
-	{Name: "mass", Flag: "mass", Kind: quantity.Mass, Aliases: []string{"body mass", "weight", "m"}},
-	{Name: "span", Flag: "span", Kind: quantity.Length, Aliases: []string{"wingspan", "wing span", "b"}},
+	{Name: "speed", Flag: "speed", Kind: quantity.Speed, Aliases: []string{"velocity", "swimming speed", "swim speed", "swimming velocity", "swim velocity", "flight speed", "flight velocity", "airspeed", "air speed", "cruising speed", "u"}},
+	{Name: "frequency", Flag: "freq", Kind: quantity.Frequency, Aliases: []string{"freq", "beat frequency", "beat freq", "tailbeat frequency", "tailbeat freq", "wingbeat frequency", "wingbeat freq", "tail wingbeat frequency", "tail wingbeat freq", "finbeat frequency", "finbeat freq", "flukebeat frequency", "stroke frequency", "stroke freq", "flapping frequency", "tbf", "wbf", "fbf", "f"}},
+	{Name: "amplitude", Flag: "amplitude", Kind: quantity.Length, Aliases: []string{"amp", "tail amplitude", "tail amp", "tailbeat amplitude", "tailbeat amp", "fluke amplitude", "fluke amp", "fin amplitude", "fin amp", "heave amplitude", "a"}},
+	{Name: "mass", Flag: "mass", Kind: quantity.Mass, Aliases: []string{"body mass", "weight", "body weight", "wt", "bm", "m"}},
+	{Name: "span", Flag: "span", Kind: quantity.Length, Aliases: []string{"wingspan", "b"}},
 	{Name: "wing_length", Flag: "wing-length", Kind: quantity.Length, Aliases: []string{"wing length"}},
 	{Name: "chord", Flag: "chord", Kind: quantity.Length, Aliases: []string{"mean chord", "wing chord"}},
 	{Name: "wing_area", Flag: "wing-area", Kind: quantity.Area, Aliases: []string{"wing area"}},
-	{Name: "stroke_angle", Flag: "stroke-angle", Kind: quantity.Angle, Aliases: []string{"stroke angle", "stroke amplitude"}},
+	{Name: "stroke_angle", Flag: "stroke-angle", Kind: quantity.Angle, Aliases: []string{"stroke amplitude"}},
 	{Name: "efficiency", Flag: "efficiency", Kind: quantity.Fraction, Aliases: []string{"propulsive efficiency", "eta"}},
 	{Name: "drag_coefficient", Flag: "drag-coefficient", Kind: quantity.Number, Aliases: []string{"drag coefficient", "cd"}},
 	{Name: "area", Flag: "area", Kind: quantity.Area, Aliases: []string{"reference area"}},
@@ -80,12 +80,12 @@ var Fields = []Field{
 	{Name: "disc", Flag: "disc", Text: true},
 	{Name: "diffusivity", Flag: "diffusivity", Kind: quantity.Diffusivity},
 	{Name: "medium", Flag: "medium", Text: true, Aliases: []string{"fluid", "medium file"}},
-	{Name: "temperature", Flag: "temp", Kind: quantity.Temperature, Aliases: []string{"temp", "t", "water temperature", "air temperature", "sst"}},
+	{Name: "temperature", Flag: "temp", Kind: quantity.Temperature, Aliases: []string{"temp", "t", "water temperature", "water temp", "air temperature", "air temp", "sea surface temperature", "sst"}},
 	{Name: "temp_offset", Flag: "temp-offset", Kind: quantity.Temperature, Aliases: []string{"temperature offset"}},
-	{Name: "salinity", Flag: "salinity", Kind: quantity.Salinity, Aliases: []string{"sal"}},
-	{Name: "depth", Flag: "depth", Kind: quantity.Height, Aliases: []string{"water depth"}},
+	{Name: "salinity", Flag: "salinity", Kind: quantity.Salinity, Aliases: []string{"sal", "practical salinity", "sea surface salinity", "sss"}},
+	{Name: "depth", Flag: "depth", Kind: quantity.Height, Aliases: []string{"water depth", "dive depth", "swimming depth"}},
 	{Name: "pressure", Flag: "pressure", Kind: quantity.Pressure, Aliases: []string{"absolute pressure"}},
-	{Name: "altitude", Flag: "altitude", Kind: quantity.Height, Aliases: []string{"elevation", "alt"}},
+	{Name: "altitude", Flag: "altitude", Kind: quantity.Height, Aliases: []string{"elevation", "elev", "alt", "flight altitude"}},
 	{Name: "humidity", Flag: "humidity", Kind: quantity.Humidity, Aliases: []string{"rh", "relative humidity"}},
 	{Name: "latitude", Flag: "latitude", Kind: quantity.Number, Aliases: []string{"lat"}},
 	{Name: "shear_rate", Flag: "shear-rate", Kind: quantity.ShearRate, Aliases: []string{"shear rate"}},

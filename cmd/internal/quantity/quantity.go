@@ -71,7 +71,7 @@ var units = map[Kind]map[string]conv{
 	Temperature: {"C": {1, 0, ""}, "°C": {1, 0, ""}, "degC": {1, 0, ""}, "K": {1, -273.15, ""}, "F": {5.0 / 9, -32 * 5.0 / 9, ""}, "°F": {5.0 / 9, -32 * 5.0 / 9, ""}},
 	Pressure: {"Pa": {1, 0, ""}, "kPa": {1e3, 0, ""}, "hPa": {1e2, 0, ""}, "MPa": {1e6, 0, ""}, "bar": {1e5, 0, ""},
 		"mbar": {1e2, 0, ""}, "dbar": {1e4, 0, ""}, "atm": {101325, 0, ""}},
-	Salinity:  {"psu": {1, 0, ""}, "PSU": {1, 0, ""}, "g/kg": {35.0 / 35.16504, 0, "abs"}, "‰": {35.0 / 35.16504, 0, "abs"}},
+	Salinity:  {"psu": {1, 0, ""}, "PSU": {1, 0, ""}, "g/kg": {35.0 / 35.16504, 0, "abs"}, "‰": {35.0 / 35.16504, 0, "abs"}, "ppt": {35.0 / 35.16504, 0, "abs"}},
 	Humidity:  {"%": {1, 0, ""}},
 	Mass:      {"µg": {1e-9, 0, ""}, "ug": {1e-9, 0, ""}, "mg": {1e-6, 0, ""}, "g": {1e-3, 0, ""}, "kg": {1, 0, ""}},
 	Frequency: {"Hz": {1, 0, ""}, "kHz": {1e3, 0, ""}, "/s": {1, 0, ""}, "1/s": {1, 0, ""}, "/min": {1.0 / 60, 0, ""}, "1/min": {1.0 / 60, 0, ""}},
@@ -146,7 +146,7 @@ func Example(k Kind) string { return examples[k] }
 // Units lists the units accepted for kind k, in a stable order.
 func Units(k Kind) []string {
 	order := []string{"nm", "µm", "um", "mm", "cm", "m", "km", "ft", "µm/s", "um/s", "mm/s", "cm/s", "m/s", "km/h", "kn", "kt", "BL/s",
-		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "%",
+		"C", "°C", "degC", "K", "F", "°F", "Pa", "kPa", "hPa", "MPa", "bar", "mbar", "dbar", "atm", "psu", "PSU", "g/kg", "‰", "ppt", "%",
 		"µg", "ug", "mg", "g", "kg", "Hz", "kHz", "/s", "1/s", "/min", "1/min", "kg/m3", "kg/m³", "g/cm3", "g/cm³", "g/mL", "g/ml",
 		"µm2", "um2", "mm2", "cm2", "m2", "µm²", "mm²", "cm²", "m²", "µs", "us", "ms", "s", "min", "h", "s-1", "s⁻¹", "deg", "°", "rad",
 		"m2/s", "m²/s", "cm2/s", "cm²/s", "mm2/s", "mm²/s", "µm2/s", "µm²/s", "mPa", "dyn/cm2", "Pa·s", "Pa s", "Pas", "mPa·s", "mPa s", "mPas", "cP", "P",
