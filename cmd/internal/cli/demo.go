@@ -69,21 +69,16 @@ func runDemo(s Streams) error {
 		return fmt.Errorf("demo: %v", err)
 	}
 	fmt.Fprintln(w, "Per taxon (flowregime tabulate --by taxon):")
-	h, rows := groupRows(byTaxon, true)
-	if err := report.Table(w, h, rows); err != nil {
+	if err := writeSummaryTable(w, byTaxon); err != nil {
 		return err
 	}
-	fmt.Fprintln(w, "Cells: median [5th–95th percentile].")
 
 	all, err := tabulate.Tabulate(recs[0], rowsIter(recs[1:]), tabulate.Spec{Fits: []tabulate.Pair{{Y: "reynolds", X: "length"}, {Y: "power_W", X: "mass"}}})
 	if err != nil {
 		return fmt.Errorf("demo: %v", err)
 	}
-	fmt.Fprintln(w, "\nAcross the whole survey, log10 y = a + b log10 x (SI units), 95 % intervals:")
-	fh, frows := fitRows(all, true)
-	if err := report.Table(w, fh, frows); err != nil {
-		return err
-	}
+	fmt.Fprintln(w, "\nAcross the whole survey:")
+	writeScalingLaws(w, all, nil)
 
 	col := map[string]int{}
 	for i, h := range recs[0] {

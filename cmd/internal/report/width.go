@@ -2,7 +2,9 @@ package report
 
 import (
 	"bytes"
+	"fmt"
 	"io"
+	"slices"
 	"strings"
 
 	"github.com/mattn/go-runewidth"
@@ -29,9 +31,11 @@ func columnsOf(w io.Writer) int {
 const MinColumns = 20
 
 // fitTable renders the table in the first layout that is at most width
-// columns wide: as it is; with headers broken over lines at their spaces;
-// with cells broken at their spaces too; else vertically, one block of
-// "header  value" lines per row. width ≤ 0 means no limit.
+// columns wide: as it is; with headers broken over lines at their spaces
+// (no narrower than their column's cells); then with the widest column's
+// cells broken at their spaces, one column after another; else
+// vertically, one block of "header  value" lines per row. width ≤ 0 means
+// no limit.
 func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
 	var buf bytes.Buffer
 	if err := render(&buf, headers, rows); err != nil {
@@ -41,23 +45,81 @@ func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
 		_, err := w.Write(buf.Bytes())
 		return err
 	}
-	wrappedHeaders := make([]string, len(headers))
-	for i, h := range headers {
-		wrappedHeaders[i] = wrapWords(h, longestWord(h))
-	}
-	attempts := [][][]string{rows, wrapColumns(rows)}
-	for _, rs := range attempts {
+	cells := rows
+	for {
+		wrapped := make([]string, len(headers))
+		for i, h := range headers {
+			wrapped[i] = wrapWords(h, max(longestWord(h), columnWidth(cells, i)))
+		}
 		buf.Reset()
-		if err := render(&buf, wrappedHeaders, rs); err != nil {
+		if err := render(&buf, wrapped, cells); err != nil {
 			return err
 		}
 		if widest(buf.String()) <= width {
 			_, err := w.Write(buf.Bytes())
 			return err
 		}
+		i := widestBreakable(cells)
+		if i < 0 {
+			break
+		}
+		cells = wrapColumn(cells, i)
 	}
 	_, err := io.WriteString(w, vertical(width, headers, rows))
 	return err
+}
+
+// columnWidth is the display width of column i's widest cell line.
+func columnWidth(rows [][]string, i int) int {
+	most := 0
+	for _, r := range rows {
+		if i < len(r) {
+			most = max(most, widest(r[i]))
+		}
+	}
+	return most
+}
+
+// columnWord is the display width of column i's longest word.
+func columnWord(rows [][]string, i int) int {
+	most := 0
+	for _, r := range rows {
+		if i < len(r) {
+			most = max(most, longestWord(r[i]))
+		}
+	}
+	return most
+}
+
+// widestBreakable is the widest column whose cells can still break at a
+// space, or −1.
+func widestBreakable(rows [][]string) int {
+	best, bestWidth := -1, 0
+	n := 0
+	for _, r := range rows {
+		n = max(n, len(r))
+	}
+	for i := range n {
+		cw := columnWidth(rows, i)
+		if cw > columnWord(rows, i) && cw > bestWidth {
+			best, bestWidth = i, cw
+		}
+	}
+	return best
+}
+
+// wrapColumn breaks column i's cells at their spaces to its longest word,
+// the narrowest it can be without cutting words.
+func wrapColumn(rows [][]string, i int) [][]string {
+	limit := columnWord(rows, i)
+	out := make([][]string, len(rows))
+	for j, r := range rows {
+		out[j] = slices.Clone(r)
+		if i < len(r) {
+			out[j][i] = wrapWords(r[i], limit)
+		}
+	}
+	return out
 }
 
 // widest is the display width of the longest line of s.
@@ -99,25 +161,6 @@ func wrapWords(s string, limit int) string {
 		out = append(out, line)
 	}
 	return strings.Join(out, "\n")
-}
-
-// wrapColumns breaks every cell at its spaces to the longest word of its
-// column, the narrowest a column can be without cutting words.
-func wrapColumns(rows [][]string) [][]string {
-	limits := map[int]int{}
-	for _, r := range rows {
-		for i, c := range r {
-			limits[i] = max(limits[i], longestWord(c))
-		}
-	}
-	out := make([][]string, len(rows))
-	for j, r := range rows {
-		out[j] = make([]string, len(r))
-		for i, c := range r {
-			out[j][i] = wrapWords(c, limits[i])
-		}
-	}
-	return out
 }
 
 // vertical lays each row out as lines of "header  value", the headers
@@ -175,4 +218,29 @@ func cutLines(text string, limit int) []string {
 		out = append(out, line)
 	}
 	return out
+}
+
+// Paragraph writes text as one line, or, when w is [Sized] and the line
+// is too long, broken at spaces to its width: continuation lines keep the
+// text's own leading spaces and add indent.
+func Paragraph(w io.Writer, indent, text string) {
+	text = Printable(text)
+	width := columnsOf(w)
+	if width <= 0 || runewidth.StringWidth(text) <= width {
+		fmt.Fprintln(w, text)
+		return
+	}
+	body := strings.TrimLeft(text, " ")
+	lead := strings.Repeat(" ", len(text)-len(body))
+	room := max(width-len(lead), 1)
+	lines := cutLines(wrapWords(body, room), room)
+	fmt.Fprintln(w, lead+lines[0])
+	rest := strings.Join(lines[1:], " ")
+	if rest == "" {
+		return
+	}
+	room = max(room-runewidth.StringWidth(indent), 1)
+	for _, l := range cutLines(wrapWords(rest, room), room) {
+		fmt.Fprintln(w, lead+indent+l)
+	}
 }
