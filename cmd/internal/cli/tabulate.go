@@ -44,7 +44,7 @@ whether the 95 % interval excludes it. A fit needs 3 rows with both values;
 groups with fewer are named together on one line, as are groups of fewer
 than 3 rows in the summary table (CSV and JSON keep every group).
 
-CSV holds one table: --only summaries (the default, said on stderr) or
+CSV holds one table: --only summaries (the default without --fit) or
 --only fits; with --fit and --format csv, --only is required. JSON holds
 both unless --only says otherwise.
 
@@ -142,8 +142,7 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		return err
 	}
 	if o.format == report.FormatCSV && o.only == "" {
-		fmt.Fprintln(s.Err, "flowregime: tabulate: CSV holds one table: the group summaries are written; --only fits writes the scaling fits")
-		o.only = onlySummaries
+		o.only = onlySummaries // no --fit was given: the default fits stay out of CSV
 	}
 	if err := writeGroups(s.Out, o.format, o.only, groups, refs); err != nil {
 		return err
@@ -231,4 +230,3 @@ func (p *peekReader) Read(b []byte) (int, error) {
 	}
 	return p.r.Read(b)
 }
-

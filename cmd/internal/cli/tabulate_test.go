@@ -18,7 +18,7 @@ func TestTabulateCSVOneTable(t *testing.T) {
 		first  string
 		stderr string
 	}{
-		{[]string{"--format", "csv"}, "group,rows,reynolds_median", "--only fits writes the scaling fits"},
+		{[]string{"--format", "csv"}, "group,rows,reynolds_median", ""},
 		{[]string{"--fit", "power_W=mass", "--format", "csv", "--only", "summaries"}, "group,rows,reynolds_median", ""},
 		{[]string{"--fit", "power_W=mass", "--format", "csv", "--only", "fits"}, "group,y,x,rows,exponent_sma", ""},
 	}
