@@ -48,7 +48,8 @@ func runDemo(s Streams) error {
 		return fmt.Errorf("demo: %v", err)
 	}
 	w := s.Out
-	fmt.Fprintf(w, "Demo survey: %s.\n%d rows read, %d computed, %d rejected.\n\n", demo.Name, sum.Read, sum.Written, rejected)
+	report.Paragraph(w, "", fmt.Sprintf("Demo survey: %s.", demo.Name))
+	fmt.Fprintf(w, "%d rows read, %d computed, %d rejected.\n\n", sum.Read, sum.Written, rejected)
 
 	recs, err := csv.NewReader(bytes.NewReader(out.Bytes())).ReadAll()
 	if err != nil {
@@ -91,7 +92,8 @@ func runDemo(s Streams) error {
 			flagged = append(flagged, []string{r[col["date"]], r[col["site"]], r[col["taxon"]], r[col["reynolds"]], r[col["strouhal"]], f})
 		}
 	}
-	fmt.Fprintln(w, "\nRows whose measurements look wrong (flowregime batch --flagged-only shows all flags):")
+	fmt.Fprintln(w)
+	report.Paragraph(w, "", "Rows whose measurements look wrong (flowregime batch --flagged-only shows all flags):")
 	if err := report.Table(w, []string{"date", "site", "taxon", "Re", "St", "flags"}, flagged); err != nil {
 		return err
 	}
@@ -100,7 +102,7 @@ func runDemo(s Streams) error {
 		keys = append(keys, fmt.Sprintf("%s %d", k, sum.Flags[k]))
 	}
 	sort.Strings(keys)
-	fmt.Fprintf(w, "Flags over the survey: %s.\n", strings.Join(keys, ", "))
+	report.Paragraph(w, "", fmt.Sprintf("Flags over the survey: %s.", strings.Join(keys, ", ")))
 	fmt.Fprintln(w, `
 Next:
   flowregime demo --data > survey.csv

@@ -172,7 +172,7 @@ func List(w io.Writer, title string, items []string) {
 	}
 	fmt.Fprintf(w, "%s:\n", title)
 	for _, s := range items {
-		fmt.Fprintf(w, "  - %s\n", Printable(s))
+		Paragraph(w, "  ", "  - "+s)
 	}
 }
 
