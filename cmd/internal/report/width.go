@@ -33,7 +33,8 @@ const MinColumns = 20
 // fitTable renders the table in the first layout that is at most width
 // columns wide: as it is; with headers broken over lines at their spaces
 // (no narrower than their column's cells); then with the widest column's
-// cells broken at their spaces, one column after another; else
+// cells broken at their spaces, by as much as the table is too wide but
+// not inside a word, one column after another; else
 // vertically, one block of "header  value" lines per row. width ≤ 0 means
 // no limit.
 func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
@@ -45,7 +46,7 @@ func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
 		_, err := w.Write(buf.Bytes())
 		return err
 	}
-	cells := rows
+	cells, limits := rows, map[int]int{}
 	for {
 		wrapped := make([]string, len(headers))
 		for i, h := range headers {
@@ -55,7 +56,8 @@ func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
 		if err := render(&buf, wrapped, cells); err != nil {
 			return err
 		}
-		if widest(buf.String()) <= width {
+		excess := widest(buf.String()) - width
+		if excess <= 0 {
 			_, err := w.Write(buf.Bytes())
 			return err
 		}
@@ -63,7 +65,8 @@ func fitTable(w io.Writer, width int, headers []string, rows [][]string) error {
 		if i < 0 {
 			break
 		}
-		cells = wrapColumn(cells, i)
+		limits[i] = max(columnWord(cells, i), columnWidth(cells, i)-excess)
+		cells = wrapColumns(rows, limits)
 	}
 	_, err := io.WriteString(w, vertical(width, headers, rows))
 	return err
@@ -108,15 +111,16 @@ func widestBreakable(rows [][]string) int {
 	return best
 }
 
-// wrapColumn breaks column i's cells at their spaces to its longest word,
-// the narrowest it can be without cutting words.
-func wrapColumn(rows [][]string, i int) [][]string {
-	limit := columnWord(rows, i)
+// wrapColumns breaks the cells of each column in limits at their spaces
+// to its limit; other columns stay as they are.
+func wrapColumns(rows [][]string, limits map[int]int) [][]string {
 	out := make([][]string, len(rows))
 	for j, r := range rows {
 		out[j] = slices.Clone(r)
-		if i < len(r) {
-			out[j][i] = wrapWords(r[i], limit)
+		for i, limit := range limits {
+			if i < len(r) {
+				out[j][i] = wrapWords(r[i], limit)
+			}
 		}
 	}
 	return out
