@@ -69,7 +69,7 @@ func runDemo(s Streams) error {
 	if err != nil {
 		return fmt.Errorf("demo: %v", err)
 	}
-	fmt.Fprintln(w, "Per taxon (flowregime tabulate --by taxon):")
+	report.Paragraph(w, "", "Per taxon (flowregime tabulate --by taxon):")
 	if err := writeSummaryTable(w, byTaxon); err != nil {
 		return err
 	}

@@ -3,6 +3,7 @@ package cli
 import (
 	"encoding/csv"
 	"encoding/json"
+	"os"
 	"regexp"
 	"strings"
 	"testing"
@@ -109,5 +110,19 @@ func TestTabulateScalingLawWords(t *testing.T) {
 	out, _, code := run(t, "tabulate", lakesideCSV, "--by", "site", "--fit", "mass=length", "--only", "fits")
 	if code != 0 || !strings.Contains(out, "meadow: mass ∝ length^1.91") || !strings.Contains(out, "against isometry (b = 3): outside the 95 % interval of b: b is smaller") {
 		t.Errorf("exit %d:\n%s", code, out)
+	}
+}
+
+// A table with a header and no rows says so (exit 0), rather than printing
+// an empty summary or a heading over nothing.
+func TestTabulateNoRows(t *testing.T) {
+	dir := t.TempDir()
+	path := dir + "/empty.csv"
+	if err := os.WriteFile(path, []byte("length (mm),speed (mm/s)\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, errs, code := run(t, "tabulate", path)
+	if code != 0 || !strings.Contains(out, "No rows to summarise") || strings.Contains(out, "Scaling laws") {
+		t.Errorf("exit %d: %q %q", code, out, errs)
 	}
 }

@@ -88,6 +88,10 @@ func writeGroups(w io.Writer, format, only string, groups []tabulate.Group, refs
 		h, rows := groupRows(groups, false)
 		return report.CSV(w, h, rows)
 	}
+	if len(groups) == 0 {
+		fmt.Fprintln(w, "No rows to summarise: the table has a header and no rows.")
+		return nil
+	}
 	if summaries {
 		if err := writeSummaryTable(w, groups); err != nil {
 			return err
