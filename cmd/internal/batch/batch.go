@@ -250,7 +250,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			putBuffer(pr.out)
 			table = append(table, pr.table...)
 			for runErr == nil && len(table) > TablePage {
-				if runErr = renderPage(w, &table, TablePage); runErr != nil {
+				if runErr = renderPage(sized(w, out), &table, TablePage); runErr != nil {
 					cancel()
 				}
 				pages++
@@ -280,7 +280,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		runErr = ctx.Err()
 	}
 	if runErr == nil && table != nil && (len(table) > 1 || pages == 0) {
-		runErr = renderPage(w, &table, len(table)-1)
+		runErr = renderPage(sized(w, out), &table, len(table)-1)
 	}
 	if err := w.Flush(); err != nil && runErr == nil {
 		runErr = err

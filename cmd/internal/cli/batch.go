@@ -28,6 +28,7 @@ type batchOptions struct {
 	columns, units, ignore, missing                    []string
 	flaggedOnly, quiet, mediaAnywhere, explain         bool
 	workers                                            int
+	firstLine                                          int // line of the original file the input's first line is (shards)
 	organism                                           organismFlags
 	medium                                             string
 	flags                                              mediumFlags
@@ -105,7 +106,10 @@ flagged uncertainty-ignored.
 For parallel engines: with --names "a,b,c" the input has no header line and
 the output has none either, so shards of a file processed separately and
 concatenated equal the whole file's output. JSON Lines output never has a
-header.`
+header. --first-line N tells a shard that its first line is line N of the
+original file, so that rejects name the original file's lines (their row
+numbers stay counted within the shard). A shard cut by lines must not cut
+a quoted cell that spans lines.`
 
 func newBatchCmd(s Streams) *cobra.Command {
 	o := &batchOptions{}
@@ -115,7 +119,8 @@ func newBatchCmd(s Streams) *cobra.Command {
 		Long:  batchHelp + "\n\n" + estimateNotice,
 		Example: `  flowregime batch survey.csv -o results.csv --rejects rejects.csv
   flowregime batch tags.tsv --medium seawater --temp 8C --format jsonl
-  tail -n +2 survey.csv | parallel --pipe -k flowregime batch - --names "$(head -1 survey.csv)" --quiet`,
+  export NAMES="$(head -1 survey.csv)"
+  tail -n +2 survey.csv | parallel --pipe -N 100000 -k 'flowregime batch - --names "$NAMES" --first-line $(( ({#}-1)*100000 + 2 )) -q'`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
 				return usagef("batch needs one argument: a file, or - for standard input")
@@ -133,6 +138,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 	fs.StringVarP(&o.output, "output", "o", "", "output file (written atomically); default stdout")
 	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
 	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
+	fs.IntVar(&o.firstLine, "first-line", 1, "number rejects' lines from N: the input is a shard whose first line is line N of the original file")
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
 	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar, no column report and no summary")
 	o.bindInputs(cmd)
@@ -387,6 +393,9 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
+	if o.firstLine < 1 {
+		return usagef("--first-line %d: give the line number (1 or more) of the original file where this input starts", o.firstLine)
+	}
 	if err := checkOutputs(o.inputFiles(s), o.outputFiles(s)); err != nil {
 		return err
 	}
@@ -421,6 +430,7 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		rejW.Write([]string{"line", "row", "column", "reason", "record"})
 	}
 	reject := func(r batch.Reject) error {
+		r.Line += o.firstLine - 1
 		if rejW != nil {
 			return rejW.Write([]string{strconv.Itoa(r.Line), strconv.Itoa(r.Row), r.Column, r.Reason, r.Record})
 		}

@@ -257,7 +257,7 @@ func runCalc(o *calcOptions, s Streams) error {
 	if err := report.Table(s.Out, []string{"law", "Re", "Re on", "C_D", "reference area (m²)", "drag (N)", "in range"}, estimateRows(r.Drag)); err != nil {
 		return err
 	}
-	fmt.Fprintf(s.Out, "C_D of %s is on the %s.\n", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName)
+	report.Paragraph(s.Out, "", fmt.Sprintf("C_D of %s is on the %s.", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName))
 	report.List(s.Out, "Medium", []string{mediumLine(m)})
 	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
 	return nil

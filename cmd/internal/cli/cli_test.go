@@ -432,3 +432,30 @@ func TestTabulateJSON(t *testing.T) {
 		}
 	}
 }
+
+// A grain held by a yield stress is reported as held with exit 0, not as a
+// non-finite drag coefficient. The estuary-mud fixture's Herschel–Bulkley
+// fit gives τ_y ≈ 12 Pa; a 1 mm quartz grain (2650 kg/m³) then has
+// Y_g = 3τ_y/(d Δρ g) ≈ 2.7, above Beris et al.'s (1985) critical 0.143.
+func TestSettleHeldByYieldStress(t *testing.T) {
+	dir := t.TempDir()
+	mud := filepath.Join(dir, "mud.json")
+	if _, errs, code := run(t, "fit", "../../../testdata/rheology/mud_herschel_bulkley.csv", "--density", "1300kg/m3", "--save", mud); code != ExitOK {
+		t.Fatalf("fit: exit %d: %s", code, errs)
+	}
+	out, errs, code := run(t, "settle", "--medium", mud, "--diameter", "1mm", "--density", "2.65g/cm3", "--format", "json")
+	if code != ExitOK {
+		t.Fatalf("settle: exit %d: %s", code, errs)
+	}
+	var r struct {
+		Speed     float64 `json:"terminal_speed_m_s"`
+		Direction string  `json:"direction"`
+		Y         float64 `json:"yield_parameter"`
+	}
+	if err := json.Unmarshal([]byte(out), &r); err != nil {
+		t.Fatal(err)
+	}
+	if r.Direction != "held" || r.Speed != 0 || !(r.Y > 0.143) {
+		t.Errorf("got %+v, want held with Y_g above 0.143", r)
+	}
+}

@@ -48,7 +48,8 @@ func runDemo(s Streams) error {
 		return fmt.Errorf("demo: %v", err)
 	}
 	w := s.Out
-	fmt.Fprintf(w, "Demo survey: %s.\n%d rows read, %d computed, %d rejected.\n\n", demo.Name, sum.Read, sum.Written, rejected)
+	report.Paragraph(w, "", fmt.Sprintf("Demo survey: %s.", demo.Name))
+	fmt.Fprintf(w, "%d rows read, %d computed, %d rejected.\n\n", sum.Read, sum.Written, rejected)
 
 	recs, err := csv.NewReader(bytes.NewReader(out.Bytes())).ReadAll()
 	if err != nil {
@@ -68,22 +69,17 @@ func runDemo(s Streams) error {
 	if err != nil {
 		return fmt.Errorf("demo: %v", err)
 	}
-	fmt.Fprintln(w, "Per taxon (flowregime tabulate --by taxon):")
-	h, rows := groupRows(byTaxon, true)
-	if err := report.Table(w, h, rows); err != nil {
+	report.Paragraph(w, "", "Per taxon (flowregime tabulate --by taxon):")
+	if err := writeSummaryTable(w, byTaxon); err != nil {
 		return err
 	}
-	fmt.Fprintln(w, "Cells: median [5th–95th percentile].")
 
 	all, err := tabulate.Tabulate(recs[0], rowsIter(recs[1:]), tabulate.Spec{Fits: []tabulate.Pair{{Y: "reynolds", X: "length"}, {Y: "power_W", X: "mass"}}})
 	if err != nil {
 		return fmt.Errorf("demo: %v", err)
 	}
-	fmt.Fprintln(w, "\nAcross the whole survey, log10 y = a + b log10 x (SI units), 95 % intervals:")
-	fh, frows := fitRows(all, true)
-	if err := report.Table(w, fh, frows); err != nil {
-		return err
-	}
+	fmt.Fprintln(w, "\nAcross the whole survey:")
+	writeScalingLaws(w, all, nil)
 
 	col := map[string]int{}
 	for i, h := range recs[0] {
@@ -96,7 +92,8 @@ func runDemo(s Streams) error {
 			flagged = append(flagged, []string{r[col["date"]], r[col["site"]], r[col["taxon"]], r[col["reynolds"]], r[col["strouhal"]], f})
 		}
 	}
-	fmt.Fprintln(w, "\nRows whose measurements look wrong (flowregime batch --flagged-only shows all flags):")
+	fmt.Fprintln(w)
+	report.Paragraph(w, "", "Rows whose measurements look wrong (flowregime batch --flagged-only shows all flags):")
 	if err := report.Table(w, []string{"date", "site", "taxon", "Re", "St", "flags"}, flagged); err != nil {
 		return err
 	}
@@ -105,7 +102,7 @@ func runDemo(s Streams) error {
 		keys = append(keys, fmt.Sprintf("%s %d", k, sum.Flags[k]))
 	}
 	sort.Strings(keys)
-	fmt.Fprintf(w, "Flags over the survey: %s.\n", strings.Join(keys, ", "))
+	report.Paragraph(w, "", fmt.Sprintf("Flags over the survey: %s.", strings.Join(keys, ", ")))
 	fmt.Fprintln(w, `
 Next:
   flowregime demo --data > survey.csv

@@ -267,7 +267,7 @@ func runFit(o *fitOptions, s Streams) error {
 		return err
 	}
 	fmt.Fprintf(s.Out, "Class: %s\n", rep.Class)
-	fmt.Fprintf(s.Out, "Class rule: %s\n", rep.Rule)
+	report.Paragraph(s.Out, "  ", "Class rule: "+rep.Rule)
 	report.List(s.Out, "Evidence", rep.Evidence)
 	var ws []string
 	ws = append(ws, rep.Warnings...)

@@ -18,6 +18,7 @@ var update = flag.Bool("update", false, "rewrite the golden files")
 // the sourced package tests. Run with -update to rewrite them, then review
 // the diff.
 func TestGolden(t *testing.T) {
+	t.Setenv("COLUMNS", "") // golden tables are the unfitted ones
 	root, _ := filepath.Abs("../../..")
 	dirs, err := filepath.Glob(filepath.Join(root, "testdata/golden/*"))
 	if err != nil || len(dirs) == 0 {

@@ -41,7 +41,7 @@ func newLawsCmd(s Streams) *cobra.Command {
 			if err := report.Table(s.Out, headers, rows); err != nil {
 				return err
 			}
-			fmt.Fprintln(s.Out, `"chosen when" is in Re on the diameter for spheres and cylinders, on the length otherwise.`)
+			report.Paragraph(s.Out, "", `"chosen when" is in Re on the diameter for spheres and cylinders, on the length otherwise.`)
 			return nil
 		},
 	}

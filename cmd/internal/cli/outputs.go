@@ -103,8 +103,9 @@ func stdFile(v any) *os.File {
 // no command can end in success with its output lost (a full disk, a closed
 // pipe).
 type checkedWriter struct {
-	w   io.Writer
-	err error
+	w       io.Writer
+	err     error
+	columns int // the width tables are fitted to (see bindWidth)
 }
 
 func (c *checkedWriter) Write(p []byte) (int, error) {

@@ -178,7 +178,8 @@ func writePowerCurve(pc regime.PowerCurve, format string, drawn bool, s Streams)
 		"profile power: " + pc.ProfileMethod,
 	})
 	if !drawn {
-		fmt.Fprintln(s.Out, "\nDraw the curve with -o curve.svg (or .png, .pdf); --format csv gives every speed with its parts.")
+		fmt.Fprintln(s.Out)
+		report.Paragraph(s.Out, "", "Draw the curve with -o curve.svg (or .png, .pdf); --format csv gives every speed with its parts.")
 	}
 	report.List(s.Out, "Warnings", warningTexts(pc.Warnings))
 	return nil

@@ -88,6 +88,7 @@ really lives in, and what drag and power follow from the law that fits.
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
 		return usageError{fmt.Errorf("%v (see 'flowregime %s --help')", err, c.Name())}
 	})
+	bindWidth(root, s)
 	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newScaleModelCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s), newTabulateCmd(s), newDemoCmd(s), newFitCmd(s), newSweepCmd(s), newPowerCurveCmd(s), newReduceCmd(s))
 	root.AddCommand(newPlotCmd(s))
 	root.AddCommand(newColumnsCmd(s))

@@ -161,7 +161,7 @@ func settleFields(r regime.Settling) []report.Field {
 		{Key: "direction", Label: "direction", Value: r.Direction},
 		report.F("reynolds", "Reynolds number (on the "+r.Basis+")", r.Reynolds, 4),
 		{Key: "drag_law", Label: "drag law", Value: r.Law},
-		report.F("drag_coefficient", "drag coefficient (frontal area of the "+r.Basis+")", r.Coefficient, 4),
+		report.Maybe("drag_coefficient", "drag coefficient (frontal area of the "+r.Basis+")", r.Coefficient, 4), // NaN when held
 		report.F("drag_N", "drag = buoyant weight (N)", r.Force, 4),
 		report.F("stokes_speed_m_s", "Stokes' law speed, for comparison (m/s)", r.StokesSpeed, 4),
 		report.F("archimedes", "Archimedes number", r.Archimedes, 4),

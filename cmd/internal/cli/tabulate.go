@@ -17,9 +17,11 @@ import (
 
 type tabulateOptions struct {
 	batchOptions
-	by     string
-	fits   []string
-	format string
+	by      string
+	fits    []string
+	expects []string
+	only    string
+	format  string
 }
 
 func newTabulateCmd(s Streams) *cobra.Command {
@@ -30,17 +32,31 @@ func newTabulateCmd(s Streams) *cobra.Command {
 		Long: `Summarise a survey per group (--by species,site): the count, the median and
 5th–95th percentiles (empirical quantiles) of the Reynolds number, Strouhal
 number, drag (N) and power (W), the share of rows in each flow regime, and
-scaling fits of log10 y on log10 x (--fit y=x, repeatable) by ordinary least
-squares and standardised major axis (Warton et al. 2006, Biol. Rev. 81), each
-slope with its 95 % confidence interval. x and y are computed columns
-(reynolds, strouhal, drag_N, power_W) or input quantities (length, mass, …),
-read in SI units from their columns.
+scaling laws y = a·x^b (--fit y=x, repeatable), fitted on log10 y against
+log10 x by standardised major axis and by ordinary least squares (Warton et
+al. 2006, Biol. Rev. 81), the exponent b and log10 a each with its 95 %
+confidence interval. x and y are computed columns (reynolds, strouhal,
+drag_N, power_W) or input quantities (length, mass, …), read in SI units
+from their columns.
+
+Each exponent is compared with a reference: --expect power_W=mass:0.75
+(repeatable; fractions such as 2/3 are fine), else isometry where both are
+geometric (length 1, area 2, mass 3 powers of length), and the output says
+whether the 95 % interval excludes it. A fit needs 3 rows with both values;
+groups with fewer are named together on one line, as are groups of fewer
+than 3 rows in the summary table (CSV and JSON keep every group).
+
+CSV holds one table: --only summaries (the default without --fit) or
+--only fits; with --fit and --format csv, --only is required. JSON holds
+both unless --only says otherwise.
 
 The input is either batch output or a survey table, which is then run
 through batch first with the same flags. Groups are held in memory, at
 most 100000 of them (more, as with --by on a row id, is refused: a
 summary is for groups of many rows).`,
 		Example: `  flowregime tabulate survey.csv --by taxon --fit power_W=mass --fit reynolds=length
+  flowregime tabulate survey.csv --by taxon --fit power_W=mass --expect power_W=mass:0.75
+  flowregime tabulate survey.csv --by taxon --format csv --only fits > fits.csv
   flowregime batch survey.csv -q | flowregime tabulate - --by site --format json`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
@@ -53,11 +69,16 @@ summary is for groups of many rows).`,
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
 			}
+			if err := o.checkOnly(cmd.Flags().Changed("fit")); err != nil {
+				return err
+			}
 			return runTabulate(cmd.Context(), o, s)
 		},
 	}
 	cmd.Flags().StringVar(&o.by, "by", "", "comma-separated columns to group by (default: one group)")
 	cmd.Flags().StringArrayVar(&o.fits, "fit", nil, "y=x: scaling fit of y against x in log–log space (default reynolds=length, and power_W=mass with a mass column)")
+	cmd.Flags().StringArrayVar(&o.expects, "expect", nil, "y=x:b: compare the fitted exponent of y against x with b (repeatable; default: isometry where y and x are lengths, areas or mass)")
+	cmd.Flags().StringVar(&o.only, "only", "", "write only the group summaries or only the scaling fits: summaries or fits (CSV holds one of them)")
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
 	o.bindInputs(cmd)
 	return cmd
@@ -103,6 +124,10 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
+	refs, err := o.references()
+	if err != nil {
+		return err
+	}
 	if err := checkOutputs(o.inputFiles(s), []namedFile{{what: "the standard output", file: stdFile(s.Out)}}); err != nil {
 		return err
 	}
@@ -124,7 +149,13 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
-	if err := writeGroups(s.Out, o.format, groups); err != nil {
+	if err := checkExpects(refs, groups); err != nil {
+		return err
+	}
+	if o.format == report.FormatCSV && o.only == "" {
+		o.only = onlySummaries // no --fit was given: the default fits stay out of CSV
+	}
+	if err := writeGroups(s.Out, o.format, o.only, groups, refs); err != nil {
 		return err
 	}
 	if rejected > 0 {
@@ -241,160 +272,4 @@ func (p *peekReader) Read(b []byte) (int, error) {
 		return n, nil
 	}
 	return p.r.Read(b)
-}
-
-func writeGroups(w io.Writer, format string, groups []tabulate.Group) error {
-	switch format {
-	case report.FormatJSON:
-		return report.JSON(w, groupsJSON(groups))
-	case report.FormatCSV:
-		h, rows := groupRows(groups, false)
-		if err := report.CSV(w, h, rows); err != nil {
-			return err
-		}
-		fh, frows := fitRows(groups, false)
-		if len(frows) == 0 {
-			return nil
-		}
-		fmt.Fprintln(w)
-		return report.CSV(w, fh, frows)
-	}
-	h, rows := groupRows(groups, true)
-	if err := report.Table(w, h, rows); err != nil {
-		return err
-	}
-	fmt.Fprintln(w, "Cells: median [5th–95th percentile].")
-	fh, frows := fitRows(groups, true)
-	if len(frows) > 0 {
-		fmt.Fprintln(w, "\nScaling fits, log10 y = a + b log10 x (x and y in SI units); 95 % intervals:")
-		if err := report.Table(w, fh, frows); err != nil {
-			return err
-		}
-	}
-	return nil
-}
-
-func groupName(g tabulate.Group) string {
-	if len(g.Key) == 0 {
-		return "all"
-	}
-	return strings.Join(g.Key, " / ")
-}
-
-var metricLabels = map[string]string{"reynolds": "Re", "strouhal": "St", "drag_N": "drag (N)", "power_W": "power (W)"}
-
-func groupRows(groups []tabulate.Group, human bool) ([]string, [][]string) {
-	var h []string
-	if human {
-		h = []string{"group", "rows"}
-		for _, m := range tabulate.Metrics {
-			h = append(h, metricLabels[m])
-		}
-		h = append(h, "viscous (%)", "intermediate (%)", "inertial (%)")
-	} else {
-		h = []string{"group", "rows"}
-		for _, m := range tabulate.Metrics {
-			h = append(h, m+"_median", m+"_p5", m+"_p95")
-		}
-		h = append(h, "share_viscous", "share_intermediate", "share_inertial")
-	}
-	var rows [][]string
-	for _, g := range groups {
-		r := []string{groupName(g), fmt.Sprint(g.N)}
-		for _, m := range tabulate.Metrics {
-			st := g.Stats[m]
-			if human {
-				cell := ""
-				if st.N > 0 {
-					cell = fmt.Sprintf("%s [%s–%s]", report.Num(st.Median, 3), report.Num(st.P5, 3), report.Num(st.P95, 3))
-				}
-				r = append(r, cell)
-			} else {
-				r = append(r, report.Num(st.Median, 6), report.Num(st.P5, 6), report.Num(st.P95, 6))
-			}
-		}
-		for _, name := range []string{"viscous", "intermediate", "inertial"} {
-			if human {
-				r = append(r, report.Num(100*g.Regimes[name], 3))
-			} else {
-				r = append(r, report.Num(g.Regimes[name], 4))
-			}
-		}
-		rows = append(rows, r)
-	}
-	return h, rows
-}
-
-func fitRows(groups []tabulate.Group, human bool) ([]string, [][]string) {
-	h := []string{"group", "y", "x", "n", "ols_slope", "ols_low95", "ols_high95", "sma_slope", "sma_low95", "sma_high95", "r_squared"}
-	if human {
-		h = []string{"group", "y against x", "n", "OLS slope [95 %]", "SMA slope [95 %]", "r²"}
-	}
-	var rows [][]string
-	for _, g := range groups {
-		for _, f := range g.Fits {
-			if human {
-				ols, sma := "too few points", ""
-				if f.OLSSlope == f.OLSSlope {
-					ols = fmt.Sprintf("%s [%s, %s]", report.Num(f.OLSSlope, 3), report.Num(f.OLSLow, 3), report.Num(f.OLSHigh, 3))
-					sma = fmt.Sprintf("%s [%s, %s]", report.Num(f.SMASlope, 3), report.Num(f.SMALow, 3), report.Num(f.SMAHigh, 3))
-				}
-				rows = append(rows, []string{groupName(g), f.Y + " against " + f.X, fmt.Sprint(f.N), ols, sma, report.Num(f.R2, 3)})
-				continue
-			}
-			rows = append(rows, []string{groupName(g), f.Y, f.X, fmt.Sprint(f.N), report.Num(f.OLSSlope, 6), report.Num(f.OLSLow, 6),
-				report.Num(f.OLSHigh, 6), report.Num(f.SMASlope, 6), report.Num(f.SMALow, 6), report.Num(f.SMAHigh, 6), report.Num(f.R2, 6)})
-		}
-	}
-	return h, rows
-}
-
-type statJSON struct {
-	N      int      `json:"n"`
-	Median *float64 `json:"median"`
-	P5     *float64 `json:"p5"`
-	P95    *float64 `json:"p95"`
-}
-
-type scalingJSON struct {
-	Y            string   `json:"y"`
-	X            string   `json:"x"`
-	N            int      `json:"n"`
-	OLSSlope     *float64 `json:"ols_slope"`
-	OLSLow       *float64 `json:"ols_low95"`
-	OLSHigh      *float64 `json:"ols_high95"`
-	OLSIntercept *float64 `json:"ols_intercept"`
-	SMASlope     *float64 `json:"sma_slope"`
-	SMALow       *float64 `json:"sma_low95"`
-	SMAHigh      *float64 `json:"sma_high95"`
-	SMAIntercept *float64 `json:"sma_intercept"`
-	R2           *float64 `json:"r_squared"`
-}
-
-type groupJSON struct {
-	Group   []string            `json:"group"`
-	Rows    int                 `json:"rows"`
-	Stats   map[string]statJSON `json:"statistics"`
-	Regimes map[string]float64  `json:"regime_share"`
-	Fits    []scalingJSON       `json:"fits"`
-}
-
-func groupsJSON(groups []tabulate.Group) []groupJSON {
-	out := []groupJSON{}
-	for _, g := range groups {
-		gj := groupJSON{Group: g.Key, Rows: g.N, Stats: map[string]statJSON{}, Regimes: g.Regimes, Fits: []scalingJSON{}}
-		if gj.Group == nil {
-			gj.Group = []string{}
-		}
-		for m, st := range g.Stats {
-			gj.Stats[m] = statJSON{N: st.N, Median: report.Opt(st.Median), P5: report.Opt(st.P5), P95: report.Opt(st.P95)}
-		}
-		for _, f := range g.Fits {
-			gj.Fits = append(gj.Fits, scalingJSON{Y: f.Y, X: f.X, N: f.N, OLSSlope: report.Opt(f.OLSSlope), OLSLow: report.Opt(f.OLSLow),
-				OLSHigh: report.Opt(f.OLSHigh), OLSIntercept: report.Opt(f.OLSIntercept), SMASlope: report.Opt(f.SMASlope),
-				SMALow: report.Opt(f.SMALow), SMAHigh: report.Opt(f.SMAHigh), SMAIntercept: report.Opt(f.SMAIntercept), R2: report.Opt(f.R2)})
-		}
-		out = append(out, gj)
-	}
-	return out
 }

@@ -59,11 +59,33 @@ func checkFinite(headers []string, rows [][]string) error {
 // Table writes an aligned table with the given headers, which should carry
 // units, e.g. "density (kg/m³)". Headers and cells are printed as given,
 // but for control characters other than line breaks, which are escaped
-// (see [Printable]).
+// (see [Printable]). When w is [Sized], the table is fitted to its width
+// (see fitTable).
 func Table(w io.Writer, headers []string, rows [][]string) error {
+	return TableWidth(w, columnsOf(w), headers, rows)
+}
+
+// TableWidth is [Table] fitted to width columns (0: no limit).
+func TableWidth(w io.Writer, width int, headers []string, rows [][]string) error {
 	if err := checkFinite(headers, rows); err != nil {
 		return err
 	}
+	h := make([]string, len(headers))
+	for i, s := range headers {
+		h[i] = printableCell(s)
+	}
+	clean := make([][]string, len(rows))
+	for j, r := range rows {
+		clean[j] = make([]string, len(r))
+		for i, c := range r {
+			clean[j][i] = printableCell(c)
+		}
+	}
+	return fitTable(w, width, h, clean)
+}
+
+// render writes one aligned table of already printable cells.
+func render(w io.Writer, headers []string, rows [][]string) error {
 	t := tablewriter.NewTable(w,
 		tablewriter.WithHeaderAutoFormat(tw.Off),
 		tablewriter.WithHeaderAlignment(tw.AlignLeft),
@@ -71,15 +93,11 @@ func Table(w io.Writer, headers []string, rows [][]string) error {
 	)
 	h := make([]any, len(headers))
 	for i, s := range headers {
-		h[i] = printableCell(s)
+		h[i] = s
 	}
 	t.Header(h...)
 	for _, r := range rows {
-		clean := make([]string, len(r)) // the table keeps the rows until Render
-		for i, c := range r {
-			clean[i] = printableCell(c)
-		}
-		if err := t.Append(clean); err != nil {
+		if err := t.Append(r); err != nil {
 			return err
 		}
 	}
@@ -154,7 +172,7 @@ func List(w io.Writer, title string, items []string) {
 	}
 	fmt.Fprintf(w, "%s:\n", title)
 	for _, s := range items {
-		fmt.Fprintf(w, "  - %s\n", Printable(s))
+		Paragraph(w, "  ", "  - "+s)
 	}
 }
 

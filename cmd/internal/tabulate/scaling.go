@@ -7,16 +7,17 @@ import (
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
-// Fit is a straight-line fit of log10 y on log10 x: the scaling exponent
-// (slope) by ordinary least squares and by standardised major axis, each with
-// its 95 % confidence interval.
+// Fit is a straight-line fit of log10 y on log10 x, the scaling law
+// y = a x^b: the exponent b (slope) and log10 a (intercept) by ordinary
+// least squares and by standardised major axis, each with its 95 %
+// confidence interval.
 type Fit struct {
-	N                         int
-	OLSSlope, OLSLow, OLSHigh float64
-	OLSIntercept              float64
-	SMASlope, SMALow, SMAHigh float64
-	SMAIntercept              float64
-	R2                        float64
+	N                                               int
+	OLSSlope, OLSLow, OLSHigh                       float64
+	OLSIntercept, OLSInterceptLow, OLSInterceptHigh float64
+	SMASlope, SMALow, SMAHigh                       float64
+	SMAIntercept, SMAInterceptLow, SMAInterceptHigh float64
+	R2                                              float64
 }
 
 // ScalingFit fits log10(y) against log10(x) over the pairs where both are
@@ -39,7 +40,8 @@ func ScalingFit(x, y []float64) Fit {
 		}
 	}
 	nan := math.NaN()
-	f := Fit{N: len(lx), OLSSlope: nan, OLSLow: nan, OLSHigh: nan, OLSIntercept: nan, SMASlope: nan, SMALow: nan, SMAHigh: nan, SMAIntercept: nan, R2: nan}
+	f := Fit{N: len(lx), OLSSlope: nan, OLSLow: nan, OLSHigh: nan, OLSIntercept: nan, OLSInterceptLow: nan, OLSInterceptHigh: nan,
+		SMASlope: nan, SMALow: nan, SMAHigh: nan, SMAIntercept: nan, SMAInterceptLow: nan, SMAInterceptHigh: nan, R2: nan}
 	if f.N < 3 {
 		return f
 	}
@@ -65,5 +67,23 @@ func ScalingFit(x, y []float64) Fit {
 	lo, hi := f.SMASlope*(math.Sqrt(b+1)-math.Sqrt(b)), f.SMASlope*(math.Sqrt(b+1)+math.Sqrt(b))
 	f.SMALow, f.SMAHigh = math.Min(lo, hi), math.Max(lo, hi)
 	f.SMAIntercept = stat.Mean(ly, nil) - f.SMASlope*stat.Mean(lx, nil)
+
+	mx := stat.Mean(lx, nil)
+	sxx := sx * sx * (n - 1)
+	olsSE := math.Sqrt(residualVariance(lx, ly, f.OLSIntercept, f.OLSSlope) * (1/n + mx*mx/sxx))
+	f.OLSInterceptLow, f.OLSInterceptHigh = f.OLSIntercept-t*olsSE, f.OLSIntercept+t*olsSE
+	varB := f.SMASlope * f.SMASlope * (1 - r*r) / (n - 2)
+	smaSE := math.Sqrt(residualVariance(lx, ly, f.SMAIntercept, f.SMASlope)/n + mx*mx*varB)
+	f.SMAInterceptLow, f.SMAInterceptHigh = f.SMAIntercept-t*smaSE, f.SMAIntercept+t*smaSE
 	return f
+}
+
+// residualVariance is Σ(y − a − b x)²/(n − 2).
+func residualVariance(x, y []float64, a, b float64) float64 {
+	ss := 0.0
+	for i := range x {
+		e := y[i] - a - b*x[i]
+		ss += e * e
+	}
+	return ss / float64(len(x)-2)
 }
