@@ -1,0 +1,249 @@
+package surveypage
+
+import (
+	"slices"
+	"sort"
+	"strings"
+
+	"github.com/flowregime/flowregime/media"
+	"github.com/flowregime/flowregime/regime"
+)
+
+// Collector gathers from batch output rows, one at a time, what the page
+// lists: the flagged rows, the flags, the drag laws, power kinds and media
+// used. It holds at most MaxListed rows and one count per distinct law,
+// kind, medium and flag, so that a survey of any length fits in memory.
+type Collector struct {
+	col        map[string]int // computed column → index
+	ident      []int
+	medium     int // the medium column, −1 for none
+	defMedium  string
+	written    int
+	flaggedN   int
+	flagged    []Flagged
+	flaggedOut []int // output row (1-based) of each listed flagged row
+	flags      map[string]int
+	laws       map[string]int
+	powers     map[string]int
+	media      map[string]int
+}
+
+// maxMedia bounds the distinct media counted by name; further names are
+// counted together.
+const maxMedia = 50
+
+// otherMedia names the media beyond maxMedia.
+const otherMedia = "other media named in the table"
+
+// NewCollector reads the batch output header. ident names the input
+// columns that identify a row in the flagged list; mediumCol is the input
+// column holding the medium ("" for none, when defMedium applies to all).
+func NewCollector(header, ident []string, mediumCol, defMedium string) *Collector {
+	c := &Collector{col: map[string]int{}, medium: -1, defMedium: defMedium,
+		flags: map[string]int{}, laws: map[string]int{}, powers: map[string]int{}, media: map[string]int{}}
+	for i, h := range header {
+		if _, seen := c.col[h]; !seen {
+			c.col[h] = i
+		}
+	}
+	for _, id := range ident {
+		c.ident = append(c.ident, slices.Index(header, id))
+	}
+	if mediumCol != "" {
+		c.medium = slices.Index(header, mediumCol)
+	}
+	return c
+}
+
+func (c *Collector) cell(row []string, name string) string {
+	if i, ok := c.col[name]; ok && i < len(row) {
+		return row[i]
+	}
+	return ""
+}
+
+// Observe takes one output row.
+func (c *Collector) Observe(row []string) {
+	c.written++
+	count(c.laws, c.cell(row, "drag_law"))
+	count(c.powers, c.cell(row, "power_kind"))
+	c.countMedium(row)
+	f := c.cell(row, "flags")
+	if f == "" {
+		return
+	}
+	c.flaggedN++
+	codes := strings.Split(f, ";")
+	for _, code := range codes {
+		count(c.flags, code)
+	}
+	if len(c.flagged) == MaxListed {
+		return
+	}
+	fl := Flagged{Re: c.cell(row, "reynolds"), St: c.cell(row, "strouhal"), Flags: codes}
+	for _, i := range c.ident {
+		v := ""
+		if i >= 0 && i < len(row) {
+			v = row[i]
+		}
+		fl.Ident = append(fl.Ident, v)
+	}
+	c.flagged = append(c.flagged, fl)
+	c.flaggedOut = append(c.flaggedOut, c.written)
+}
+
+func (c *Collector) countMedium(row []string) {
+	m := c.defMedium
+	if c.medium >= 0 && c.medium < len(row) && strings.TrimSpace(row[c.medium]) != "" {
+		m = strings.TrimSpace(row[c.medium])
+	}
+	if _, ok := c.media[m]; !ok && len(c.media) >= maxMedia {
+		m = otherMedia
+	}
+	c.media[m]++
+}
+
+func count(m map[string]int, k string) {
+	if k != "" {
+		m[k]++
+	}
+}
+
+// Written is the number of rows observed.
+func (c *Collector) Written() int { return c.written }
+
+// FlaggedCount is the number of rows with flags.
+func (c *Collector) FlaggedCount() int { return c.flaggedN }
+
+// Flagged returns the listed flagged rows with their input row numbers,
+// found from the rows rejected (rejectedRows, the data rows batch did not
+// write, in any order): the k-th row written is the k-th data row not
+// rejected.
+func (c *Collector) Flagged(rejectedRows []int) []Flagged {
+	rej := slices.Clone(rejectedRows)
+	sort.Ints(rej)
+	out := slices.Clone(c.flagged)
+	j := 0
+	for i, k := range c.flaggedOut {
+		// Data row r has r − (rejects ≤ r) rows written up to it; find
+		// the r where that reaches k.
+		r := k + j
+		for j < len(rej) && rej[j] <= r {
+			j++
+			r = k + j
+		}
+		out[i].Row = r
+	}
+	return out
+}
+
+// FlagKeys returns each flag met, with its meaning and count, most
+// frequent first.
+func (c *Collector) FlagKeys() []FlagKey {
+	var keys []FlagKey
+	for code, n := range c.flags {
+		keys = append(keys, FlagKey{Code: code, Meaning: flagMeaning(code), Count: n})
+	}
+	sort.Slice(keys, func(i, j int) bool {
+		if keys[i].Count != keys[j].Count {
+			return keys[i].Count > keys[j].Count
+		}
+		return keys[i].Code < keys[j].Code
+	})
+	return keys
+}
+
+// flagMeanings say in plain words what each flag of batch means (as its
+// help states them).
+var flagMeanings = map[string]string{
+	regime.WarnStrouhal:      "Strouhal number outside 0.05–1, where swimming and flying animals are not found: check frequency, amplitude and speed",
+	regime.WarnSpeed:         "speed in body lengths per second beyond what organisms of that size are known to reach",
+	regime.WarnLawOutOfRange: "a drag correlation used outside its published range of Reynolds number",
+	media.WarnOutOfRange:     "a medium condition (temperature, salinity, pressure, …) outside a method's published range",
+	regime.WarnInconsistent:  "inputs that do not fit together, such as an amplitude larger than the body or a wingspan without a mass",
+	regime.WarnModel:         "the case lies where the model is a join or a bracket between validated laws, not a published law",
+	regime.WarnDragCrisis:    "near the drag crisis, where the drag of a bluff body drops steeply with Re and depends on surface roughness",
+	regime.WarnGeometry:      "a body shape outside the geometry the drag law was made for",
+	"uncertainty-ignored":    "a cell gives an uncertainty (±) but uncertainty was not propagated",
+}
+
+func flagMeaning(code string) string {
+	if m, ok := flagMeanings[code]; ok {
+		return m
+	}
+	return "see 'flowregime batch --help'"
+}
+
+// Methods lists the methods used: the drag laws, power kinds and media
+// met in the rows with their sources and counts, then the survey-wide
+// methods (regimes, summaries, fits).
+func (c *Collector) Methods() []Method {
+	var ms []Method
+	for _, name := range sortedKeys(c.laws) {
+		ms = append(ms, Method{What: "drag: " + name, Method: lawSource(name), Rows: c.laws[name]})
+	}
+	for _, kind := range sortedKeys(c.powers) {
+		ms = append(ms, Method{What: "power: " + kind, Method: powerMethods[kind], Rows: c.powers[kind]})
+	}
+	for _, m := range sortedKeys(c.media) {
+		ms = append(ms, Method{What: "medium: " + m, Method: mediumMethods(m), Rows: c.media[m]})
+	}
+	return append(ms, surveyMethods...)
+}
+
+func sortedKeys(m map[string]int) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	return keys
+}
+
+// lawSource returns the source of the drag law of that name in the
+// registry (all of them, where laws of several shapes share the name).
+func lawSource(name string) string {
+	var srcs []string
+	for _, l := range regime.Laws {
+		if l.Name == name && !slices.Contains(srcs, l.Source) {
+			srcs = append(srcs, l.Source)
+		}
+	}
+	if len(srcs) == 0 {
+		return "see 'flowregime laws'"
+	}
+	return strings.Join(srcs, "; ")
+}
+
+// powerMethods say how each kind of power is found (as regime.Calc
+// documents it).
+var powerMethods = map[string]string{
+	regime.PowerTowing:   "drag × speed: the power to tow the rigid body, efficiency 1",
+	regime.PowerSwimming: "drag × speed ÷ the efficiency given",
+	regime.PowerFlight:   "induced power by actuator disc (Rankine–Froude for hovering, Glauert in forward flight) + body drag × speed with a body drag coefficient of at least 0.1 on the frontal area + profile power by Pennycuick's ratio 8.4/AR, or blade element with a given profile-drag coefficient (Pennycuick 2008, Modelling the Flying Bird)",
+	regime.PowerGliding:  "no flapping work: weight × sink speed (Pennycuick 2008)",
+}
+
+// mediumMethods returns the methods of a built-in medium at its default
+// conditions, or says where to see those of a file or lab fluid.
+func mediumMethods(name string) string {
+	if name == otherMedia {
+		return "see 'flowregime medium NAME' for each"
+	}
+	if media.IsMediumFile(name) {
+		return "a measured flow curve fitted with 'flowregime fit'; see 'flowregime medium " + name + "'"
+	}
+	p, err := media.Lookup(media.Unset(name))
+	if err != nil || len(p.Methods) == 0 {
+		return "see 'flowregime medium " + name + "'"
+	}
+	return strings.Join(p.Methods, "; ")
+}
+
+// surveyMethods are used for every survey.
+var surveyMethods = []Method{
+	{What: "flow regime", Method: "viscous below Re 1, intermediate from 1 to 1000, inertial from 1000 (on the body length; common practice, no single source)"},
+	{What: "cruising Strouhal band", Method: "0.2–0.4 (Taylor, Nudds & Thomas 2003, Nature 425, 707–711)"},
+	{What: "group summaries", Method: "median and 5th–95th percentiles by the empirical quantile (gonum stat.Quantile, Empirical)"},
+	{What: "scaling fits", Method: "log10 y on log10 x by ordinary least squares and standardised major axis with 95 % intervals (Warton, Wright, Falster & Westoby 2006, Biol. Rev. 81, 259–291, Table 4)"},
+}

@@ -1,0 +1,133 @@
+// Package surveypage writes the survey report: one self-contained HTML
+// file (inline CSS and figures, no scripts, nothing fetched from a network)
+// that says what was computed from which columns, what was rejected and
+// why, where the rows sit in the flow regimes, the per-group summaries and
+// scaling fits, the flagged rows, the methods with their sources and the
+// cautions. Every text is escaped by html/template.
+package surveypage
+
+import (
+	_ "embed"
+	"encoding/base64"
+	"html/template"
+	"io"
+	"strconv"
+	"strings"
+)
+
+// Page is everything the report shows.
+type Page struct {
+	Title   string
+	Input   string // the survey as named on the command line
+	Command string // the command line that produced the page
+	Version string
+
+	Counts   Counts
+	Columns  []Column  // what was read from each input column
+	Assumed  []Assumed // constants and defaults for quantities without a column
+	Rejects  []Reject  // the first MaxListed rejected rows
+	Regimes  []Share   // regime shares per group
+	GroupBy  string    // the grouping columns, "" for one group
+	Groups   Table     // per-group summaries
+	Fits     Table     // scaling fits
+	Figures  []Figure  // regime map, scaling fits
+	Flagged  []Flagged // the first MaxListed flagged rows
+	Ident    []string  // the columns that identify a flagged row
+	FlagKeys []FlagKey // each flag met, its meaning and count
+	Methods  []Method  // methods used, with sources
+	Cautions []string
+}
+
+// MaxListed bounds the rejected and the flagged rows listed in the page;
+// the counts are always complete and the page says how many are left out.
+const MaxListed = 500
+
+// Counts are the run's totals.
+type Counts struct {
+	Read, Computed, Rejected, Blank, Flagged int
+}
+
+// RejectsLeftOut and FlaggedLeftOut count the rows not listed.
+func (p Page) RejectsLeftOut() int { return p.Counts.Rejected - len(p.Rejects) }
+
+// FlaggedLeftOut counts the flagged rows not listed.
+func (p Page) FlaggedLeftOut() int { return p.Counts.Flagged - len(p.Flagged) }
+
+// Column is one input column and what was read from it.
+type Column struct {
+	Name        string
+	Quantity    string // "" when carried through unread
+	Unit        string // "" when each cell gives its own
+	Uncertainty bool
+}
+
+// Assumed is a value in force for a quantity that has no column.
+type Assumed struct {
+	Quantity, Value, Origin string
+}
+
+// Reject is a row that could not be computed.
+type Reject struct {
+	Line, Row      int
+	Column, Reason string
+}
+
+// Share is one group's share of rows in each regime, in per cent.
+type Share struct {
+	Group                           string
+	N                               int
+	Viscous, Intermediate, Inertial float64
+}
+
+// Table is a header and rows of text.
+type Table struct {
+	Head []string
+	Rows [][]string
+}
+
+// Figure is an SVG figure with its caption.
+type Figure struct {
+	ID      string // anchor in the page
+	Title   string
+	Caption string
+	SVG     []byte
+}
+
+// Src is the figure as a data URI, so that the page needs no other file.
+// An SVG shown through an image cannot run scripts or fetch anything.
+func (f Figure) Src() template.URL {
+	return template.URL("data:image/svg+xml;base64," + base64.StdEncoding.EncodeToString(f.SVG))
+}
+
+// Flagged is a row with flags.
+type Flagged struct {
+	Row   int      // data row of the input, 1-based
+	Ident []string // identifying cells (the columns in FlaggedIdent)
+	Re    string
+	St    string
+	Flags []string
+}
+
+// FlagKey is one flag, what it means and how many rows carry it.
+type FlagKey struct {
+	Code, Meaning string
+	Count         int
+}
+
+// Method is a method used and its source.
+type Method struct {
+	What, Method string
+	Rows         int // rows it served, 0 when not counted per row
+}
+
+//go:embed page.html.tmpl
+var pageTemplate string
+
+var tmpl = template.Must(template.New("page").Funcs(template.FuncMap{
+	"join": strings.Join,
+	"add":  func(a, b float64) float64 { return a + b },
+	"pct":  func(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) },
+}).Parse(pageTemplate))
+
+// Write writes the page as HTML.
+func Write(w io.Writer, p Page) error { return tmpl.Execute(w, p) }
