@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/surveypage"
 	"github.com/flowregime/flowregime/cmd/internal/tabulate"
 	"github.com/spf13/cobra"
@@ -245,7 +246,8 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 	}
 	p.Counts = surveypage.Counts{Read: run.sum.Read, Computed: run.sum.Written, Rejected: run.sum.Rejected, Blank: run.sum.Blank}
 	for _, c := range run.columns {
-		p.Columns = append(p.Columns, surveypage.Column{Name: c.Column, Quantity: c.Quantity, Unit: c.Unit, Uncertainty: c.Uncertainty})
+		p.Columns = append(p.Columns, surveypage.Column{Name: c.Column, Quantity: c.Quantity, Unit: c.Unit, Uncertainty: c.Uncertainty,
+			Word: c.Quantity != "" && inputs.Fields[inputs.Index(c.Quantity)].Text})
 	}
 	p.Assumed = assumedValues(run.columns, cfg)
 	for _, r := range run.rejects {

@@ -59,6 +59,18 @@ type Column struct {
 	Quantity    string // "" when carried through unread
 	Unit        string // "" when each cell gives its own
 	Uncertainty bool
+	Word        bool // a quantity written as a word (medium, shape), without a unit
+}
+
+// UnitInCells reports whether any column read takes its unit from each
+// cell.
+func (p Page) UnitInCells() bool {
+	for _, c := range p.Columns {
+		if c.Quantity != "" && !c.Word && c.Unit == "" {
+			return true
+		}
+	}
+	return false
 }
 
 // Assumed is a value in force for a quantity that has no column.
