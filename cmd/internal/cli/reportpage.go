@@ -179,7 +179,10 @@ func (o *reportOptions) summarise(r io.Reader, cfg batch.Config, run *reportRun)
 	if err != nil {
 		return err
 	}
-	run.coll = surveypage.NewCollector(header, identColumns(run.columns, sp.By), mediumColumn(run.columns), cfg.DefaultMedium)
+	lengthCol, lengthUnit := quantityColumn(run.columns, "length")
+	mediumCol, _ := quantityColumn(run.columns, "medium")
+	run.coll = surveypage.NewCollector(header, surveypage.Setup{Ident: identColumns(run.columns, sp.By), By: sp.By,
+		MediumColumn: mediumCol, DefaultMedium: cfg.DefaultMedium, LengthColumn: lengthCol, LengthUnit: lengthUnit})
 	next := func() ([]string, error) {
 		row, err := cr.Read()
 		if err == nil {
@@ -224,13 +227,14 @@ func identColumns(cols []batch.ColumnUse, by []string) []string {
 	return ident
 }
 
-func mediumColumn(cols []batch.ColumnUse) string {
+// quantityColumn returns the column holding a quantity and its unit.
+func quantityColumn(cols []batch.ColumnUse, quantity string) (column, unit string) {
 	for _, c := range cols {
-		if c.Quantity == "medium" && !c.Uncertainty {
-			return c.Column
+		if c.Quantity == quantity && !c.Uncertainty {
+			return c.Column, c.Unit
 		}
 	}
-	return ""
+	return "", ""
 }
 
 // page puts a run into the page's terms.

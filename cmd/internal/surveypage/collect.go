@@ -1,10 +1,14 @@
 package surveypage
 
 import (
+	"math"
+	"math/rand/v2"
 	"slices"
 	"sort"
+	"strconv"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
 )
@@ -26,6 +30,32 @@ type Collector struct {
 	laws       map[string]int
 	powers     map[string]int
 	media      map[string]int
+	by         []int
+	length     int // the length column, −1 for none
+	lengthUnit string
+	points     []Point
+	sample     *rand.Rand
+}
+
+// Point is a computed row on the regime map.
+type Point struct {
+	Group        string
+	Re, LengthMM float64
+}
+
+// MaxPoints bounds the rows drawn on the regime map; a larger survey is
+// drawn as a uniform random sample of this many rows (reservoir sampling
+// with a fixed seed, so the same survey gives the same page).
+const MaxPoints = 5000
+
+// Setup says which input columns the collector reads.
+type Setup struct {
+	Ident         []string // columns that identify a flagged row
+	By            []string // grouping columns
+	MediumColumn  string   // "" for none
+	DefaultMedium string   // the medium of rows without one
+	LengthColumn  string   // "" for none
+	LengthUnit    string   // its unit from the header, "" when cells give theirs
 }
 
 // maxMedia bounds the distinct media counted by name; further names are
@@ -35,22 +65,27 @@ const maxMedia = 50
 // otherMedia names the media beyond maxMedia.
 const otherMedia = "other media named in the table"
 
-// NewCollector reads the batch output header. ident names the input
-// columns that identify a row in the flagged list; mediumCol is the input
-// column holding the medium ("" for none, when defMedium applies to all).
-func NewCollector(header, ident []string, mediumCol, defMedium string) *Collector {
-	c := &Collector{col: map[string]int{}, medium: -1, defMedium: defMedium,
-		flags: map[string]int{}, laws: map[string]int{}, powers: map[string]int{}, media: map[string]int{}}
+// NewCollector reads the batch output header.
+func NewCollector(header []string, st Setup) *Collector {
+	c := &Collector{col: map[string]int{}, medium: -1, defMedium: st.DefaultMedium,
+		flags: map[string]int{}, laws: map[string]int{}, powers: map[string]int{}, media: map[string]int{},
+		length: -1, lengthUnit: st.LengthUnit, sample: rand.New(rand.NewPCG(1, 2))}
 	for i, h := range header {
 		if _, seen := c.col[h]; !seen {
 			c.col[h] = i
 		}
 	}
-	for _, id := range ident {
+	for _, id := range st.Ident {
 		c.ident = append(c.ident, slices.Index(header, id))
 	}
-	if mediumCol != "" {
-		c.medium = slices.Index(header, mediumCol)
+	for _, b := range st.By {
+		c.by = append(c.by, slices.Index(header, b))
+	}
+	if st.MediumColumn != "" {
+		c.medium = slices.Index(header, st.MediumColumn)
+	}
+	if st.LengthColumn != "" {
+		c.length = slices.Index(header, st.LengthColumn)
 	}
 	return c
 }
@@ -68,6 +103,7 @@ func (c *Collector) Observe(row []string) {
 	count(c.laws, c.cell(row, "drag_law"))
 	count(c.powers, c.cell(row, "power_kind"))
 	c.countMedium(row)
+	c.samplePoint(row)
 	f := c.cell(row, "flags")
 	if f == "" {
 		return
@@ -91,6 +127,50 @@ func (c *Collector) Observe(row []string) {
 	c.flagged = append(c.flagged, fl)
 	c.flaggedOut = append(c.flaggedOut, c.written)
 }
+
+// samplePoint keeps the row for the regime map: all of the first
+// MaxPoints rows, then each later row in place of a random one with
+// probability MaxPoints/rows (Vitter 1985, Random sampling with a
+// reservoir, ACM TOMS 11, 37–57, algorithm R).
+func (c *Collector) samplePoint(row []string) {
+	slot := len(c.points)
+	if slot == MaxPoints {
+		if slot = c.sample.IntN(c.written); slot >= MaxPoints {
+			return
+		}
+	}
+	pt := Point{Group: c.group(row), Re: math.NaN(), LengthMM: math.NaN()}
+	if v, err := strconv.ParseFloat(c.cell(row, "reynolds"), 64); err == nil {
+		pt.Re = v
+	}
+	if c.length >= 0 && c.length < len(row) {
+		if v, err := quantity.ParseDefault(quantity.Length, strings.TrimSpace(row[c.length]), c.lengthUnit); err == nil {
+			pt.LengthMM = v.SI * 1000
+		}
+	}
+	if slot == len(c.points) {
+		c.points = append(c.points, pt)
+	} else {
+		c.points[slot] = pt
+	}
+}
+
+// group is the row's group as the summaries name it.
+func (c *Collector) group(row []string) string {
+	if len(c.by) == 0 {
+		return "all"
+	}
+	key := make([]string, len(c.by))
+	for i, b := range c.by {
+		if b >= 0 && b < len(row) {
+			key[i] = row[b]
+		}
+	}
+	return strings.Join(key, " / ")
+}
+
+// Points returns the rows kept for the regime map.
+func (c *Collector) Points() []Point { return c.points }
 
 func (c *Collector) countMedium(row []string) {
 	m := c.defMedium
