@@ -258,8 +258,8 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 		p.Rejects = append(p.Rejects, surveypage.Reject{Line: r.Line, Row: r.Row, Column: r.Column, Reason: r.Reason})
 	}
 	if run.coll != nil {
-		p.Counts.Flagged = run.coll.FlaggedCount()
-		p.Flagged = run.coll.Flagged(run.rejRows)
+		p.Counts.Suspect, p.Counts.Limits = run.coll.FlaggedCounts()
+		p.Suspect, p.Limits = run.coll.Flagged(run.rejRows)
 		p.FlagKeys = run.coll.FlagKeys()
 		p.Methods = run.coll.Methods()
 	}

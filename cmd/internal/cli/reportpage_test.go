@@ -174,10 +174,15 @@ func TestReportPageStructure(t *testing.T) {
 		}
 	}
 
-	// Counts: data rows of the file, 2 of them uncomputable.
+	// Counts: data rows of the file, 2 of them uncomputable; the flagged
+	// rows of each kind as many as listed.
+	suspect, limits := doc.byID(t, "suspect-table").bodyRows(), doc.byID(t, "limit-table").bodyRows()
+	if len(suspect) == 0 || len(limits) == 0 {
+		t.Fatal("no flagged row listed; the demo survey has rows of both kinds")
+	}
 	dataRows := len(recs) - 1
 	counts := doc.byID(t, "counts").find("b")
-	want := []int{dataRows, dataRows - 2, 2}
+	want := []int{dataRows, dataRows - 2, 2, len(suspect), len(limits)} // fewer than MaxListed of each
 	for i, w := range want {
 		if got, _ := strconv.Atoi(counts[i].text.String()); got != w {
 			t.Errorf("count %d = %s, want %d", i, counts[i].text.String(), w)
@@ -229,7 +234,7 @@ func TestReportPageStructure(t *testing.T) {
 	// Each regime row's shares add up to 100 %.
 	for _, r := range doc.byID(t, "regime-table").bodyRows() {
 		sum := 0.0
-		for _, c := range r[2:5] {
+		for _, c := range r[3:6] {
 			v, err := strconv.ParseFloat(strings.TrimSuffix(c, " %"), 64)
 			if err != nil {
 				t.Fatalf("share %q: %v", c, err)
@@ -243,10 +248,7 @@ func TestReportPageStructure(t *testing.T) {
 
 	// Flagged rows: each row number leads to the survey row with the same
 	// taxon, site and date (the rejects before it counted in).
-	flagged := doc.byID(t, "flagged-table").bodyRows()
-	if len(flagged) == 0 {
-		t.Fatal("no flagged row listed; the demo survey has flagged rows")
-	}
+	flagged := append(suspect, limits...)
 	for _, f := range flagged {
 		row, err := strconv.Atoi(f[0])
 		if err != nil || row < 1 || row >= len(recs) {

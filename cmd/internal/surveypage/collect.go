@@ -23,9 +23,8 @@ type Collector struct {
 	medium     int // the medium column, −1 for none
 	defMedium  string
 	written    int
-	flaggedN   int
-	flagged    []Flagged
-	flaggedOut []int // output row (1-based) of each listed flagged row
+	suspect    flagList // rows whose inputs look wrong
+	limits     flagList // rows with only method-limit flags
 	flags      map[string]int
 	laws       map[string]int
 	powers     map[string]int
@@ -108,12 +107,16 @@ func (c *Collector) Observe(row []string) {
 	if f == "" {
 		return
 	}
-	c.flaggedN++
 	codes := strings.Split(f, ";")
+	list := &c.limits
 	for _, code := range codes {
 		count(c.flags, code)
+		if inputFlags[code] {
+			list = &c.suspect
+		}
 	}
-	if len(c.flagged) == MaxListed {
+	list.n++
+	if len(list.rows) == MaxListed {
 		return
 	}
 	fl := Flagged{Re: c.cell(row, "reynolds"), St: c.cell(row, "strouhal"), Flags: codes}
@@ -124,9 +127,20 @@ func (c *Collector) Observe(row []string) {
 		}
 		fl.Ident = append(fl.Ident, v)
 	}
-	c.flagged = append(c.flagged, fl)
-	c.flaggedOut = append(c.flaggedOut, c.written)
+	list.rows = append(list.rows, fl)
+	list.out = append(list.out, c.written)
 }
+
+// flagList holds the first MaxListed flagged rows of one kind.
+type flagList struct {
+	n    int       // rows of this kind
+	rows []Flagged // the first MaxListed
+	out  []int     // output row (1-based) of each
+}
+
+// inputFlags are the flags that say an input looks wrong, as opposed to a
+// method used near or beyond its limits.
+var inputFlags = map[string]bool{regime.WarnStrouhal: true, regime.WarnSpeed: true, regime.WarnInconsistent: true, "uncertainty-ignored": true}
 
 // samplePoint keeps the row for the regime map: all of the first
 // MaxPoints rows, then each later row in place of a random one with
@@ -192,19 +206,25 @@ func count(m map[string]int, k string) {
 // Written is the number of rows observed.
 func (c *Collector) Written() int { return c.written }
 
-// FlaggedCount is the number of rows with flags.
-func (c *Collector) FlaggedCount() int { return c.flaggedN }
+// FlaggedCounts returns the number of rows with a flag that says an input
+// looks wrong, and of rows with only method-limit flags.
+func (c *Collector) FlaggedCounts() (suspect, limits int) { return c.suspect.n, c.limits.n }
 
-// Flagged returns the listed flagged rows with their input row numbers,
-// found from the rows rejected (rejectedRows, the data rows batch did not
-// write, in any order): the k-th row written is the k-th data row not
-// rejected.
-func (c *Collector) Flagged(rejectedRows []int) []Flagged {
+// Flagged returns the listed rows whose inputs look wrong and those at a
+// method's limit, with their input row numbers found from the rows
+// rejected (rejectedRows, the data rows batch did not write, in any
+// order): the k-th row written is the k-th data row not rejected.
+func (c *Collector) Flagged(rejectedRows []int) (suspect, limits []Flagged) {
 	rej := slices.Clone(rejectedRows)
 	sort.Ints(rej)
-	out := slices.Clone(c.flagged)
+	return c.suspect.numbered(rej), c.limits.numbered(rej)
+}
+
+// numbered returns the rows with their data row numbers; rej is sorted.
+func (l flagList) numbered(rej []int) []Flagged {
+	out := slices.Clone(l.rows)
 	j := 0
-	for i, k := range c.flaggedOut {
+	for i, k := range l.out {
 		// Data row r has r − (rejects ≤ r) rows written up to it; find
 		// the r where that reaches k.
 		r := k + j

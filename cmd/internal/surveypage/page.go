@@ -31,7 +31,8 @@ type Page struct {
 	Groups   Table     // per-group summaries
 	Fits     Table     // scaling fits
 	Figures  []Figure  // regime map, scaling fits
-	Flagged  []Flagged // the first MaxListed flagged rows
+	Suspect  []Flagged // the first MaxListed rows whose inputs look wrong
+	Limits   []Flagged // the first MaxListed rows with only method-limit flags
 	Ident    []string  // the columns that identify a flagged row
 	FlagKeys []FlagKey // each flag met, its meaning and count
 	Methods  []Method  // methods used, with sources
@@ -44,14 +45,21 @@ const MaxListed = 500
 
 // Counts are the run's totals.
 type Counts struct {
-	Read, Computed, Rejected, Blank, Flagged int
+	Read, Computed, Rejected, Blank int
+	Suspect, Limits                 int // rows flagged: inputs that look wrong; only method limits
 }
 
-// RejectsLeftOut and FlaggedLeftOut count the rows not listed.
+// Flagged is the number of rows with any flag.
+func (c Counts) Flagged() int { return c.Suspect + c.Limits }
+
+// RejectsLeftOut counts the rejected rows not listed.
 func (p Page) RejectsLeftOut() int { return p.Counts.Rejected - len(p.Rejects) }
 
-// FlaggedLeftOut counts the flagged rows not listed.
-func (p Page) FlaggedLeftOut() int { return p.Counts.Flagged - len(p.Flagged) }
+// SuspectLeftOut and LimitsLeftOut count the flagged rows not listed.
+func (p Page) SuspectLeftOut() int { return p.Counts.Suspect - len(p.Suspect) }
+
+// LimitsLeftOut counts the rows at a method's limit not listed.
+func (p Page) LimitsLeftOut() int { return p.Counts.Limits - len(p.Limits) }
 
 // Column is one input column and what was read from it.
 type Column struct {
@@ -114,7 +122,7 @@ func (f Figure) Src() template.URL {
 // Flagged is a row with flags.
 type Flagged struct {
 	Row   int      // data row of the input, 1-based
-	Ident []string // identifying cells (the columns in FlaggedIdent)
+	Ident []string // identifying cells (the columns in Page.Ident)
 	Re    string
 	St    string
 	Flags []string
@@ -132,13 +140,24 @@ type Method struct {
 	Rows         int // rows it served, 0 when not counted per row
 }
 
+// flagTable is one table of flagged rows.
+type flagTable struct {
+	ID             string
+	Ident          []string
+	Rows           []Flagged
+	Total, LeftOut int
+}
+
 //go:embed page.html.tmpl
 var pageTemplate string
 
 var tmpl = template.Must(template.New("page").Funcs(template.FuncMap{
 	"join": strings.Join,
 	"add":  func(a, b float64) float64 { return a + b },
-	"pct":  func(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) },
+	"flagTable": func(id string, ident []string, rows []Flagged, total, leftOut int) flagTable {
+		return flagTable{ID: id, Ident: ident, Rows: rows, Total: total, LeftOut: leftOut}
+	},
+	"pct": func(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) },
 }).Parse(pageTemplate))
 
 // Write writes the page as HTML.
