@@ -16,6 +16,7 @@ import (
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/surveypage"
 	"github.com/flowregime/flowregime/cmd/internal/tabulate"
+	"github.com/flowregime/flowregime/regime"
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 )
@@ -271,9 +272,19 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 		p.Regimes = append(p.Regimes, surveypage.Share{Group: groupName(g), N: g.N,
 			Viscous: 100 * g.Regimes["viscous"], Intermediate: 100 * g.Regimes["intermediate"], Inertial: 100 * g.Regimes["inertial"]})
 	}
-	p.Groups.Head, p.Groups.Rows = groupRows(run.groups, true)
+	p.Groups.Head, p.Groups.Rows = withoutShares(groupRows(run.groups, true))
 	p.Fits.Head, p.Fits.Rows = fitRows(run.groups, true)
 	return p
+}
+
+// withoutShares drops the regime shares from the group summaries: the page
+// shows them in the regime table.
+func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
+	n := len(regime.Regimes)
+	for i := range rows {
+		rows[i] = rows[i][:len(rows[i])-n]
+	}
+	return head[:len(head)-n], rows
 }
 
 func splitBy(by string) []string {
