@@ -89,6 +89,7 @@ really lives in, and what drag and power follow from the law that fits.
 		return usageError{fmt.Errorf("%v (see 'flowregime %s --help')", err, c.Name())}
 	})
 	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newScaleModelCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s), newTabulateCmd(s), newDemoCmd(s), newFitCmd(s), newSweepCmd(s), newPowerCurveCmd(s))
+	root.AddCommand(newPlotCmd(s))
 	root.AddCommand(newReportCmd(s))
 	return root
 }
