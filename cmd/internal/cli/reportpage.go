@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/figure"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/surveypage"
 	"github.com/flowregime/flowregime/cmd/internal/tabulate"
@@ -274,7 +275,37 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 	}
 	p.Groups.Head, p.Groups.Rows = withoutShares(groupRows(run.groups, true))
 	p.Fits.Head, p.Fits.Rows = fitRows(run.groups, true)
+	if run.coll != nil {
+		p.Figures = append(p.Figures, regimeMapFigure(run.coll.Points(), run.sum.Written))
+	}
 	return p
+}
+
+// regimeMapFigure draws the computed rows (or the sample of them the
+// collector kept) on the regime map; a map that cannot be drawn becomes a
+// figure without a picture whose caption says why.
+func regimeMapFigure(pts []surveypage.Point, computed int) surveypage.Figure {
+	fig := surveypage.Figure{ID: "regime-map", Title: "Regime map",
+		Caption: "Each computed row at its Reynolds number (on the body length) and body length, over the viscous, intermediate and inertial ranges of Re."}
+	if len(pts) < computed {
+		fig.Caption += fmt.Sprintf(" A random sample of %d of the %d computed rows is drawn (the same sample every time).", len(pts), computed)
+	}
+	rp := make([]figure.RegimePoint, len(pts))
+	for i, pt := range pts {
+		rp[i] = figure.RegimePoint{Group: pt.Group, Reynolds: pt.Re, Y: pt.LengthMM}
+	}
+	f, err := figure.RegimeMapFigure(rp, figure.RegimeOptions{YLabel: "body length (mm)"})
+	if err == nil {
+		fig.SVG, err = f.SVG()
+	}
+	if err != nil {
+		fig.Caption = "No regime map could be drawn: " + strings.TrimPrefix(err.Error(), "regime map: ") + "."
+		return fig
+	}
+	for _, n := range f.Notes {
+		fig.Caption += " " + strings.ToUpper(n[:1]) + n[1:] + "."
+	}
+	return fig
 }
 
 // withoutShares drops the regime shares from the group summaries: the page

@@ -154,6 +154,13 @@ var pageTemplate string
 var tmpl = template.Must(template.New("page").Funcs(template.FuncMap{
 	"join": strings.Join,
 	"add":  func(a, b float64) float64 { return a + b },
+	// parts splits a summary cell "median [low–high]" where it may wrap.
+	"parts": func(cell string) []string {
+		if a, b, ok := strings.Cut(cell, " ["); ok {
+			return []string{a, "[" + b}
+		}
+		return []string{cell}
+	},
 	"flagTable": func(id string, ident []string, rows []Flagged, total, leftOut int) flagTable {
 		return flagTable{ID: id, Ident: ident, Rows: rows, Total: total, LeftOut: leftOut}
 	},
