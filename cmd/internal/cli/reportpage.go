@@ -63,7 +63,11 @@ of tabulate.`,
 			o.args = append([]string{"report"}, args...)
 			cmd.Flags().Visit(func(f *pflag.Flag) {
 				for _, v := range flagValues(f) {
-					o.args = append(o.args, "--"+f.Name+"="+v)
+					if f.Shorthand != "" {
+						o.args = append(o.args, "-"+f.Shorthand, v)
+					} else {
+						o.args = append(o.args, "--"+f.Name+"="+v)
+					}
 				}
 			})
 			return runReport(cmd.Context(), o, s)

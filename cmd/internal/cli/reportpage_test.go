@@ -2,6 +2,7 @@ package cli
 
 import (
 	"bytes"
+	"encoding/base64"
 	"encoding/csv"
 	"encoding/xml"
 	"io"
@@ -260,6 +261,39 @@ func TestReportPageStructure(t *testing.T) {
 		}
 	}
 
+	// The regime map: one figure, an SVG inside the page, with the bands
+	// named, the axes labelled with units and each taxon in the legend
+	// with its number of computed rows.
+	figs := doc.find("figure")
+	if len(figs) != 1 {
+		t.Fatalf("%d figures, want 1 (the regime map)", len(figs))
+	}
+	src := figs[0].find("img")[0].attr["src"]
+	b64, ok := strings.CutPrefix(src, "data:image/svg+xml;base64,")
+	if !ok {
+		t.Fatalf("the figure is not an SVG data URI: %.40s", src)
+	}
+	svg, err := base64.StdEncoding.DecodeString(b64)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mapText := parseXHTML(t, svg).text.String()
+	perTaxon := map[string]int{}
+	for _, r := range recs[1:] {
+		if r[3] != "lava" && r[7] != "-5" {
+			perTaxon[r[2]]++
+		}
+	}
+	wantText := []string{"viscous", "intermediate", "inertial", "Reynolds number, Re", "body length (mm)"}
+	for taxon, n := range perTaxon {
+		wantText = append(wantText, taxon+" ("+strconv.Itoa(n)+")")
+	}
+	for _, w := range wantText {
+		if !strings.Contains(mapText, w) {
+			t.Errorf("the regime map lacks %q", w)
+		}
+	}
+
 	// Provenance: the command as run.
 	if cmd := doc.byID(t, "provenance").find("code")[0].text.String(); !strings.Contains(cmd, "flowregime report") || !strings.Contains(cmd, "--by=taxon") {
 		t.Errorf("command line %q", cmd)
@@ -311,5 +345,35 @@ func TestReportPageRefusals(t *testing.T) {
 			}
 			t.Errorf("%s: the folder holds %v; a temporary file was left", c.name, names)
 		}
+	}
+}
+
+// A survey larger than the regime map holds is drawn as a sample of
+// surveypage.MaxPoints rows, said so in the caption; the same survey gives
+// the same page byte for byte.
+func TestReportPageSampleAndRepeatable(t *testing.T) {
+	dir := t.TempDir()
+	header, body, _ := strings.Cut(string(demo.Survey), "\n")
+	survey := filepath.Join(dir, "big.csv")
+	if err := os.WriteFile(survey, []byte(header+"\n"+strings.Repeat(body, 20)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	rows := 20 * strings.Count(body, "\n")
+	var pages [2][]byte
+	page := filepath.Join(dir, "page.html")
+	for i := range pages {
+		if _, errs, code := run(t, "report", survey, "-o", page); code != 0 {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		pages[i], _ = os.ReadFile(page)
+	}
+	if !bytes.Equal(pages[0], pages[1]) {
+		t.Errorf("two runs on the same survey gave different pages")
+	}
+	doc := parseXHTML(t, pages[0])
+	caption := doc.byID(t, "regime-map").find("figcaption")[0].text.String()
+	want := "A random sample of 5000 of the " + strconv.Itoa(rows) + " computed rows"
+	if !strings.Contains(caption, want) {
+		t.Errorf("caption %q lacks %q", caption, want)
 	}
 }
