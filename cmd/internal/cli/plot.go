@@ -25,7 +25,7 @@ func (f *figureOutput) bind(cmd *cobra.Command) {
 }
 
 // format checks the output name and returns the figure format.
-func (f *figureOutput) format() (string, error) {
+func (f *figureOutput) figureFormat() (string, error) {
 	if f.out == "" {
 		return "", usagef("-o: name the figure file (.svg, .png or .pdf)")
 	}
@@ -51,6 +51,7 @@ standard error says how many and why.`,
 		},
 	}
 	cmd.AddCommand(newPlotRegimeCmd(s))
+	cmd.AddCommand(plotKinds(s)...)
 	return cmd
 }
 
@@ -99,7 +100,7 @@ intermediate and inertial (Re ≥ 1000) ranges are shaded and named; with
   flowregime plot regime --y length -o demo-regime.png`,
 		Args: cobra.MaximumNArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			format, err := o.format()
+			format, err := o.figureFormat()
 			if err != nil {
 				return err
 			}

@@ -12,6 +12,7 @@ import (
 	"fmt"
 	"image/color"
 	"io"
+	"math"
 	"path/filepath"
 	"strings"
 
@@ -33,6 +34,12 @@ const (
 // ColumnWidth is a journal's single-column width (8.5 cm); every figure is
 // drawn at this width so that its text stays readable when printed there.
 const ColumnWidth = 8.5 * vg.Centimeter
+
+// yLabelRoom is the room left of the panels for the y axis labels.
+const yLabelRoom = vg.Length(15)
+
+// xLabelRoom is the room below a panel for its x axis label.
+const xLabelRoom = vg.Length(12)
 
 // PNGDPI is the resolution of PNG output, enough for print at column width.
 const PNGDPI = 300
@@ -64,7 +71,7 @@ func (f *Figure) Size() (w, h vg.Length) {
 	for _, ph := range f.heights {
 		h += ph
 	}
-	return ColumnWidth, h + legendHeight(len(f.legend))
+	return ColumnWidth, h + legendHeight(len(f.legend), legendColumnsFor(f.legend))
 }
 
 // FormatFor returns the figure format for an output file name by its
@@ -122,18 +129,52 @@ func (f *Figure) draw(c vg.CanvasSizer) (err error) {
 		}
 	}()
 	dc := draw.New(c)
-	top := dc.Max.Y
+	pc := dc
+	pc.Min.Y = dc.Max.Y
+	for _, h := range f.heights {
+		pc.Min.Y -= h
+	}
+	// Panels share the left edge of their data areas (plot.Align), so
+	// that stacked panels' x axes line up; they are drawn in equal rows.
+	// The axis labels are drawn here, not by gonum/plot, which centres a
+	// label's room at the linear midpoint of a log axis and so shrinks
+	// the data area under a long label.
+	rows := make([][]*plot.Plot, len(f.panels))
+	xl, yl := make([]string, len(f.panels)), make([]string, len(f.panels))
 	for i, p := range f.panels {
-		pc := dc
-		pc.Max.Y = top
-		pc.Min.Y = top - f.heights[i]
-		p.Draw(pc)
-		top = pc.Min.Y
+		rows[i] = []*plot.Plot{p}
+		xl[i], p.X.Label.Text = p.X.Label.Text, ""
+		yl[i], p.Y.Label.Text = p.Y.Label.Text, ""
+	}
+	defer func() {
+		for i, p := range f.panels {
+			p.X.Label.Text, p.Y.Label.Text = xl[i], yl[i]
+		}
+	}()
+	pc.Min.X += yLabelRoom
+	pc.Max.X -= 8 // room for the last x tick label
+	pc.Max.Y -= 4
+	cs := plot.Align(rows, draw.Tiles{Rows: len(rows), Cols: 1}, pc)
+	ysty := textStyle(labelSize, color.Black)
+	ysty.Rotation, ysty.XAlign, ysty.YAlign = math.Pi/2, draw.XCenter, draw.YTop
+	xsty := textStyle(labelSize, color.Black)
+	xsty.XAlign = draw.XCenter
+	for i, p := range f.panels {
+		c := cs[i][0]
+		if xl[i] != "" {
+			c.Min.Y += xLabelRoom
+		}
+		p.Draw(c)
+		da := p.DataCanvas(c)
+		dc.FillText(ysty, vg.Point{X: dc.Min.X + 1, Y: (da.Min.Y + da.Max.Y) / 2}, yl[i])
+		if xl[i] != "" {
+			dc.FillText(xsty, vg.Point{X: (da.Min.X + da.Max.X) / 2, Y: c.Min.Y - xLabelRoom + 2}, xl[i])
+		}
 	}
 	if len(f.legend) > 0 {
 		lc := dc
-		lc.Max.Y = top
-		drawLegend(lc, f.legend)
+		lc.Max.Y = pc.Min.Y
+		drawLegend(lc, f.legend, legendColumnsFor(f.legend))
 	}
 	return nil
 }

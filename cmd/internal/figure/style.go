@@ -3,6 +3,7 @@ package figure
 import (
 	"image/color"
 	"math"
+	"unicode/utf8"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
@@ -181,27 +182,37 @@ type legendEntry struct {
 	fill  color.Color // a shaded area
 }
 
-const (
-	legendRow     = vg.Length(9)
-	legendColumns = 2
-)
+// legendRow is the height of one legend line.
+const legendRow = vg.Length(9)
 
-// legendHeight is the height a legend of n entries takes below the panels.
-func legendHeight(n int) vg.Length {
+// legendColumnsFor puts short entries in two columns and long ones, which
+// would run into each other at column width, in one.
+func legendColumnsFor(es []legendEntry) int {
+	for _, e := range es {
+		if utf8.RuneCountInString(e.label) > 24 {
+			return 1
+		}
+	}
+	return 2
+}
+
+// legendHeight is the height a legend of n entries in cols columns takes
+// below the panels.
+func legendHeight(n, cols int) vg.Length {
 	if n == 0 {
 		return 0
 	}
-	rows := (n + legendColumns - 1) / legendColumns
+	rows := (n + cols - 1) / cols
 	return vg.Length(rows)*legendRow + 6
 }
 
 // drawLegend draws the entries in columns, filling rows left to right.
-func drawLegend(c draw.Canvas, es []legendEntry) {
+func drawLegend(c draw.Canvas, es []legendEntry, cols int) {
 	sty := textStyle(legendSize, color.Black)
-	colW := (c.Max.X - c.Min.X - 12) / legendColumns
+	colW := (c.Max.X - c.Min.X - 12) / vg.Length(cols)
 	for i, e := range es {
-		x := c.Min.X + 12 + vg.Length(i%legendColumns)*colW
-		y := c.Max.Y - 4 - vg.Length(i/legendColumns)*legendRow - legendRow/2
+		x := c.Min.X + 12 + vg.Length(i%cols)*colW
+		y := c.Max.Y - 4 - vg.Length(i/cols)*legendRow - legendRow/2
 		switch {
 		case e.glyph != nil:
 			c.DrawGlyphNoClip(*e.glyph, vg.Point{X: x + 6, Y: y})

@@ -202,3 +202,6 @@ func positive(xs, ys []float64, logX, logY bool) []int {
 
 // nan marks a value that is missing.
 var nan = math.NaN()
+
+// errNoFinite says an axis has no number to show.
+var errNoFinite = errors.New("no finite value to draw")
