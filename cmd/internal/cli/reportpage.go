@@ -7,9 +7,11 @@ import (
 	"fmt"
 	"io"
 	"maps"
+	"math"
 	"path/filepath"
 	"runtime/debug"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
@@ -91,6 +93,32 @@ type reportRun struct {
 	groups  []tabulate.Group
 	coll    *surveypage.Collector
 	columns []batch.ColumnUse
+	fits    []fitPairs
+}
+
+// fitPairs are the values of one --fit pair over the whole survey, in the
+// columns' own units, for its figure.
+type fitPairs struct {
+	pair           tabulate.Pair
+	xcol, ycol     int
+	xlabel, ylabel string
+	x, y           []float64
+}
+
+// add reads the pair from an output row; a cell that is not a plain
+// number is NaN, which the figure leaves out and counts.
+func (f *fitPairs) add(row []string) {
+	f.x = append(f.x, cellNumber(row, f.xcol))
+	f.y = append(f.y, cellNumber(row, f.ycol))
+}
+
+func cellNumber(row []string, col int) float64 {
+	if col < len(row) {
+		if v, err := strconv.ParseFloat(strings.TrimSpace(row[col]), 64); err == nil {
+			return v
+		}
+	}
+	return math.NaN()
 }
 
 func runReport(ctx context.Context, o *reportOptions, s Streams) error {
@@ -189,10 +217,21 @@ func (o *reportOptions) summarise(r io.Reader, cfg batch.Config, run *reportRun)
 	mediumCol, _ := quantityColumn(run.columns, "medium")
 	run.coll = surveypage.NewCollector(header, surveypage.Setup{Ident: identColumns(run.columns, sp.By), By: sp.By,
 		MediumColumn: mediumCol, DefaultMedium: cfg.DefaultMedium, LengthColumn: lengthCol, LengthUnit: lengthUnit})
+	table := &figure.Table{Header: header}
+	for _, p := range sp.Fits {
+		xc, xerr := table.Column(p.X)
+		yc, yerr := table.Column(p.Y)
+		if xerr == nil && yerr == nil { // else tabulate names the missing column
+			run.fits = append(run.fits, fitPairs{pair: p, xcol: xc, ycol: yc, xlabel: columnLabel(header[xc]), ylabel: columnLabel(header[yc])})
+		}
+	}
 	next := func() ([]string, error) {
 		row, err := cr.Read()
 		if err == nil {
 			run.coll.Observe(row)
+			for i := range run.fits {
+				run.fits[i].add(row)
+			}
 		}
 		return row, err
 	}
@@ -282,6 +321,9 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 	if run.coll != nil {
 		p.Figures = append(p.Figures, regimeMapFigure(run.coll.Points(), run.sum.Written))
 	}
+	for i, f := range run.fits {
+		p.Figures = append(p.Figures, scalingFigure(fmt.Sprintf("fit-%d", i+1), f))
+	}
 	return p
 }
 
@@ -320,6 +362,35 @@ func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
 		rows[i] = rows[i][:len(rows[i])-n]
 	}
 	return head[:len(head)-n], rows
+}
+
+// scalingFigure draws one fit over the whole survey: at most
+// surveypage.MaxPoints pairs (every k-th, when there are more), the lines
+// of the fit of all pairs.
+func scalingFigure(id string, f fitPairs) surveypage.Figure {
+	fig := surveypage.Figure{ID: id, Title: f.ylabel + " against " + f.xlabel,
+		Caption: "Every computed row, log–log, with the ordinary least squares (OLS) and standardised major axis (SMA) lines fitted over the whole survey and the bands of their exponents' 95 % intervals; per-group fits are in the table above."}
+	sc := figure.Scaling{X: f.x, Y: f.y, XLabel: f.xlabel, YLabel: f.ylabel, Fit: tabulate.ScalingFit(f.x, f.y)}
+	if n := len(f.x); n > surveypage.MaxPoints {
+		k := (n + surveypage.MaxPoints - 1) / surveypage.MaxPoints
+		sc.X, sc.Y = nil, nil
+		for i := 0; i < n; i += k {
+			sc.X, sc.Y = append(sc.X, f.x[i]), append(sc.Y, f.y[i])
+		}
+		fig.Caption += fmt.Sprintf(" Every %d-th of the %d rows is drawn (%d points); the lines are fitted to all.", k, n, len(sc.X))
+	}
+	fg, err := figure.ScalingFigure(sc)
+	if err == nil {
+		fig.SVG, err = fg.SVG()
+	}
+	if err != nil {
+		fig.Caption = "No figure could be drawn for " + f.pair.Y + " against " + f.pair.X + ": " + strings.TrimPrefix(err.Error(), "scaling figure: ") + "."
+		return fig
+	}
+	for _, n := range fg.Notes {
+		fig.Caption += " " + strings.ToUpper(n[:1]) + n[1:] + "."
+	}
+	return fig
 }
 
 func splitBy(by string) []string {

@@ -261,23 +261,36 @@ func TestReportPageStructure(t *testing.T) {
 		}
 	}
 
-	// The regime map: one figure, an SVG inside the page, with the bands
-	// named, the axes labelled with units and each taxon in the legend
-	// with its number of computed rows.
+	// Figures: the regime map and one per default fit (reynolds=length,
+	// power_W=mass: the survey has a mass column), each an SVG inside the
+	// page. The map names its bands, labels its axes with units and lists
+	// each taxon with its number of computed rows; each fit's figure
+	// labels its axes.
 	figs := doc.find("figure")
-	if len(figs) != 1 {
-		t.Fatalf("%d figures, want 1 (the regime map)", len(figs))
+	if len(figs) != 3 {
+		t.Fatalf("%d figures, want 3 (the regime map and two fits)", len(figs))
 	}
-	src := figs[0].find("img")[0].attr["src"]
-	b64, ok := strings.CutPrefix(src, "data:image/svg+xml;base64,")
-	if !ok {
-		t.Fatalf("the figure is not an SVG data URI: %.40s", src)
+	svgText := func(fig *node) string {
+		src := fig.find("img")[0].attr["src"]
+		b64, ok := strings.CutPrefix(src, "data:image/svg+xml;base64,")
+		if !ok {
+			t.Fatalf("figure %s is not an SVG data URI: %.40s", fig.attr["id"], src)
+		}
+		svg, err := base64.StdEncoding.DecodeString(b64)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return parseXHTML(t, svg).text.String()
 	}
-	svg, err := base64.StdEncoding.DecodeString(b64)
-	if err != nil {
-		t.Fatal(err)
+	for i, labels := range [][]string{{"Reynolds number, Re", "length (mm)"}, {"power (W)", "mass (g)"}} {
+		text := svgText(figs[i+1])
+		for _, l := range labels {
+			if !strings.Contains(text, l) {
+				t.Errorf("figure %s lacks the label %q", figs[i+1].attr["id"], l)
+			}
+		}
 	}
-	mapText := parseXHTML(t, svg).text.String()
+	mapText := svgText(doc.byID(t, "regime-map"))
 	perTaxon := map[string]int{}
 	for _, r := range recs[1:] {
 		if r[3] != "lava" && r[7] != "-5" {
