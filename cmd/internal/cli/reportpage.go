@@ -17,6 +17,7 @@ import (
 	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"github.com/flowregime/flowregime/cmd/internal/figure"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/surveypage"
 	"github.com/flowregime/flowregime/cmd/internal/tabulate"
 	"github.com/flowregime/flowregime/regime"
@@ -96,29 +97,63 @@ type reportRun struct {
 	fits    []fitPairs
 }
 
-// fitPairs are the values of one --fit pair over the whole survey, in the
-// columns' own units, for its figure.
+// fitPairs are the values of one --fit pair over the whole survey, in SI
+// units as tabulate fits them, for its figure.
 type fitPairs struct {
-	pair           tabulate.Pair
-	xcol, ycol     int
-	xlabel, ylabel string
-	x, y           []float64
+	pair   tabulate.Pair
+	x, y   scalingColumn
+	xs, ys []float64
 }
 
-// add reads the pair from an output row; a cell that is not a plain
-// number is NaN, which the figure leaves out and counts.
-func (f *fitPairs) add(row []string) {
-	f.x = append(f.x, cellNumber(row, f.xcol))
-	f.y = append(f.y, cellNumber(row, f.ycol))
+// scalingColumn is where one side of a fit is read: a computed column (a
+// plain number) or an input quantity (converted to SI from its column's
+// unit or the cell's).
+type scalingColumn struct {
+	col   int
+	kind  quantity.Kind
+	unit  string
+	si    bool
+	label string
 }
 
-func cellNumber(row []string, col int) float64 {
-	if col < len(row) {
-		if v, err := strconv.ParseFloat(strings.TrimSpace(row[col]), 64); err == nil {
-			return v
+// newScalingColumn finds name as tabulate does: a column of that name, else
+// the column batch reads that quantity from.
+func newScalingColumn(header []string, cols []batch.ColumnUse, name string) (scalingColumn, bool) {
+	if i := slices.Index(header, name); i >= 0 {
+		return scalingColumn{col: i, label: columnLabel(name)}, true
+	}
+	f := inputs.Index(name)
+	for i, c := range cols {
+		if f >= 0 && c.Quantity == name && !c.Uncertainty && !inputs.Fields[f].Text {
+			k := inputs.Fields[f].Kind
+			return scalingColumn{col: i, kind: k, unit: c.Unit, si: true, label: name + " (" + quantity.SIUnit(k) + ")"}, true
 		}
 	}
+	return scalingColumn{}, false
+}
+
+// value reads the column from a row; a cell that cannot be read is NaN,
+// which the figure leaves out and counts.
+func (c scalingColumn) value(row []string) float64 {
+	if c.col >= len(row) {
+		return math.NaN()
+	}
+	cell := strings.TrimSpace(row[c.col])
+	if c.si {
+		if v, err := quantity.ParseDefault(c.kind, cell, c.unit); err == nil {
+			return v.SI
+		}
+		return math.NaN()
+	}
+	if v, err := strconv.ParseFloat(cell, 64); err == nil {
+		return v
+	}
 	return math.NaN()
+}
+
+func (f *fitPairs) add(row []string) {
+	f.xs = append(f.xs, f.x.value(row))
+	f.ys = append(f.ys, f.y.value(row))
 }
 
 func runReport(ctx context.Context, o *reportOptions, s Streams) error {
@@ -150,7 +185,7 @@ func runReport(ctx context.Context, o *reportOptions, s Streams) error {
 		return err
 	}
 	if run.sum.Rejected > 0 {
-		return exitError{code: ExitRejected, msg: fmt.Sprintf("report: %d rows could not be computed; the page lists them", run.sum.Rejected)}
+		return exitError{code: ExitRejected, msg: fmt.Sprintf("report: %d %s could not be computed; the page lists them", run.sum.Rejected, plural(run.sum.Rejected, "row", "rows"))}
 	}
 	return nil
 }
@@ -217,12 +252,11 @@ func (o *reportOptions) summarise(r io.Reader, cfg batch.Config, run *reportRun)
 	mediumCol, _ := quantityColumn(run.columns, "medium")
 	run.coll = surveypage.NewCollector(header, surveypage.Setup{Ident: identColumns(run.columns, sp.By), By: sp.By,
 		MediumColumn: mediumCol, DefaultMedium: cfg.DefaultMedium, LengthColumn: lengthCol, LengthUnit: lengthUnit})
-	table := &figure.Table{Header: header}
 	for _, p := range sp.Fits {
-		xc, xerr := table.Column(p.X)
-		yc, yerr := table.Column(p.Y)
-		if xerr == nil && yerr == nil { // else tabulate names the missing column
-			run.fits = append(run.fits, fitPairs{pair: p, xcol: xc, ycol: yc, xlabel: columnLabel(header[xc]), ylabel: columnLabel(header[yc])})
+		x, okx := newScalingColumn(header, run.columns, p.X)
+		y, oky := newScalingColumn(header, run.columns, p.Y)
+		if okx && oky { // else tabulate names the missing column
+			run.fits = append(run.fits, fitPairs{pair: p, x: x, y: y})
 		}
 	}
 	next := func() ([]string, error) {
@@ -333,6 +367,10 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 func regimeMapFigure(pts []surveypage.Point, computed int) surveypage.Figure {
 	fig := surveypage.Figure{ID: "regime-map", Title: "Regime map",
 		Caption: "Each computed row at its Reynolds number (on the body length) and body length, over the viscous, intermediate and inertial ranges of Re."}
+	if computed == 0 {
+		fig.Caption = "No row was computed: there is nothing to draw."
+		return fig
+	}
 	if len(pts) < computed {
 		fig.Caption += fmt.Sprintf(" A random sample of %d of the %d computed rows is drawn (the same sample every time).", len(pts), computed)
 	}
@@ -354,6 +392,13 @@ func regimeMapFigure(pts []surveypage.Point, computed int) surveypage.Figure {
 	return fig
 }
 
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
+
 // withoutShares drops the regime shares from the group summaries: the page
 // shows them in the regime table.
 func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
@@ -368,14 +413,18 @@ func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
 // surveypage.MaxPoints pairs (every k-th, when there are more), the lines
 // of the fit of all pairs.
 func scalingFigure(id string, f fitPairs) surveypage.Figure {
-	fig := surveypage.Figure{ID: id, Title: f.ylabel + " against " + f.xlabel,
+	fig := surveypage.Figure{ID: id, Title: f.y.label + " against " + f.x.label,
 		Caption: "Every computed row, log–log, with the ordinary least squares (OLS) and standardised major axis (SMA) lines fitted over the whole survey and the bands of their exponents' 95 % intervals; per-group fits are in the table above."}
-	sc := figure.Scaling{X: f.x, Y: f.y, XLabel: f.xlabel, YLabel: f.ylabel, Fit: tabulate.ScalingFit(f.x, f.y)}
-	if n := len(f.x); n > surveypage.MaxPoints {
+	if len(f.xs) == 0 {
+		fig.Caption = "No row was computed: there is nothing to draw."
+		return fig
+	}
+	sc := figure.Scaling{X: f.xs, Y: f.ys, XLabel: f.x.label, YLabel: f.y.label, Fit: tabulate.ScalingFit(f.xs, f.ys)}
+	if n := len(f.xs); n > surveypage.MaxPoints {
 		k := (n + surveypage.MaxPoints - 1) / surveypage.MaxPoints
 		sc.X, sc.Y = nil, nil
 		for i := 0; i < n; i += k {
-			sc.X, sc.Y = append(sc.X, f.x[i]), append(sc.Y, f.y[i])
+			sc.X, sc.Y = append(sc.X, f.xs[i]), append(sc.Y, f.ys[i])
 		}
 		fig.Caption += fmt.Sprintf(" Every %d-th of the %d rows is drawn (%d points); the lines are fitted to all.", k, n, len(sc.X))
 	}

@@ -282,7 +282,7 @@ func TestReportPageStructure(t *testing.T) {
 		}
 		return parseXHTML(t, svg).text.String()
 	}
-	for i, labels := range [][]string{{"Reynolds number, Re", "length (mm)"}, {"power (W)", "mass (g)"}} {
+	for i, labels := range [][]string{{"Reynolds number, Re", "length (m)"}, {"power (W)", "mass (kg)"}} {
 		text := svgText(figs[i+1])
 		for _, l := range labels {
 			if !strings.Contains(text, l) {
