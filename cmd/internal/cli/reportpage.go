@@ -356,7 +356,7 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 		p.Figures = append(p.Figures, regimeMapFigure(run.coll.Points(), run.sum.Written))
 	}
 	for i, f := range run.fits {
-		p.Figures = append(p.Figures, scalingFigure(fmt.Sprintf("fit-%d", i+1), f))
+		p.Figures = append(p.Figures, scalingFigure(fmt.Sprintf("fit-%d", i+1), f, o.by != ""))
 	}
 	return p
 }
@@ -412,9 +412,12 @@ func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
 // scalingFigure draws one fit over the whole survey: at most
 // surveypage.MaxPoints pairs (every k-th, when there are more), the lines
 // of the fit of all pairs.
-func scalingFigure(id string, f fitPairs) surveypage.Figure {
+func scalingFigure(id string, f fitPairs, grouped bool) surveypage.Figure {
 	fig := surveypage.Figure{ID: id, Title: f.y.label + " against " + f.x.label,
-		Caption: "Every computed row, log–log, with the ordinary least squares (OLS) and standardised major axis (SMA) lines fitted over the whole survey and the bands of their exponents' 95 % intervals; per-group fits are in the table above."}
+		Caption: "The computed rows, log–log, with the ordinary least squares (OLS) and standardised major axis (SMA) lines fitted over the whole survey and the bands of their exponents' 95 % intervals."}
+	if grouped {
+		fig.Caption += " Per-group fits are in the table above."
+	}
 	if len(f.xs) == 0 {
 		fig.Caption = "No row was computed: there is nothing to draw."
 		return fig
