@@ -337,7 +337,7 @@ func mediumMethods(name string) string {
 	if err != nil || len(p.Methods) == 0 {
 		return "see 'flowregime medium " + name + "'"
 	}
-	return strings.Join(p.Methods, "; ")
+	return "as described at the medium's default conditions (each row used its own): " + strings.Join(p.Methods, "; ")
 }
 
 // surveyMethods are used for every survey.
