@@ -104,7 +104,7 @@ intermediate and inertial (Re ≥ 1000) ranges are shaded and named; with
 			if err != nil {
 				return err
 			}
-			return runPlotRegime(o, args, format, s)
+			return runPlotRegime(o, args, format, cmd.Flags().Changed("by"), s)
 		},
 	}
 	cmd.Flags().StringVar(&o.y, "y", "length", "column on the second axis (length, speed, strouhal or any numeric column)")
@@ -114,7 +114,7 @@ intermediate and inertial (Re ≥ 1000) ranges are shaded and named; with
 	return cmd
 }
 
-func runPlotRegime(o *plotRegimeOptions, args []string, format string, s Streams) error {
+func runPlotRegime(o *plotRegimeOptions, args []string, format string, byGiven bool, s Streams) error {
 	var ins []namedFile
 	var table *figure.Table
 	var err error
@@ -122,10 +122,13 @@ func runPlotRegime(o *plotRegimeOptions, args []string, format string, s Streams
 		table, ins, err = readFigureTable(args[0], s)
 	} else {
 		table, err = demoResults()
-		fmt.Fprintf(s.Err, "note: no table given: drawing the demo survey (%s)\n", demo.Name)
 	}
 	if err != nil {
 		return err
+	}
+	var byNote string
+	if _, err := table.Column(o.by); err != nil && !byGiven && o.by != "" {
+		byNote, o.by = fmt.Sprintf("no %s column: all rows drawn alike (--by names a column)", o.by), ""
 	}
 	pts, ro, err := figure.RegimeRows(table, o.y, o.by)
 	if err != nil {
@@ -135,6 +138,12 @@ func runPlotRegime(o *plotRegimeOptions, args []string, format string, s Streams
 	fig, err := figure.RegimeMapFigure(pts, ro)
 	if err != nil {
 		return err
+	}
+	if byNote != "" {
+		fig.Notes = append([]string{byNote}, fig.Notes...)
+	}
+	if len(args) == 0 {
+		fig.Notes = append([]string{"no table given: drawing the demo survey (" + demo.Name + ")"}, fig.Notes...)
 	}
 	return writeFigure(s, fig, o.figureOutput, format, ins)
 }

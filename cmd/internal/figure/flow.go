@@ -3,11 +3,15 @@ package figure
 import (
 	"errors"
 	"fmt"
+	"image/color"
 	"math"
 
 	"github.com/flowregime/flowregime/media"
 	"gonum.org/v1/plot/vg"
 )
+
+// modelDashes tell the models apart together with their colours.
+var modelDashes = [][]vg.Length{{3, 2}, {1, 1.5}, {5, 1.5, 1, 1.5}}
 
 // FlowCurve returns the flow-curve figure as SVG bytes; see [FlowFigure].
 func FlowCurve(points []media.RheometerPoint, rep media.FitReport, shearRate float64) ([]byte, error) {
@@ -54,7 +58,8 @@ func FlowFigure(points []media.RheometerPoint, rep media.FitReport, shearRate fl
 		for i, g := range grid {
 			model[i] = mf.Model.Stress(g)
 		}
-		sty := dashed(colour(k+1), 0.8)
+		sty := lineStyle(colour(1+k%(len(palette)-1)), 0.8)
+		sty.Dashes = modelDashes[(k+k/(len(palette)-1))%len(modelDashes)] // no colour and dash pair repeats within 18 models
 		label := mf.Model.Name()
 		if best {
 			sty = lineStyle(colour(0), 2)
@@ -77,7 +82,7 @@ func FlowFigure(points []media.RheometerPoint, rep media.FitReport, shearRate fl
 	f.legend = append([]legendEntry{{label: fmt.Sprintf("measured (%d points)", len(keep)), glyph: &g}}, f.legend...)
 	lo, hi, _ := logRange(all, 0.15)
 	if shearRate > 0 && isFinite(shearRate) {
-		sty := dashed(colour(1), 1.2)
+		sty := lineStyle(color.NRGBA{0x77, 0x77, 0x77, 0xFF}, 1.5)
 		sty.Dashes = []vg.Length{1, 2}
 		addLine(p, []float64{shearRate, shearRate}, []float64{lo, hi}, sty, true, true)
 		f.legend = append(f.legend, legendEntry{label: fmt.Sprintf("organism's shear rate, %.3g 1/s", shearRate), line: &sty})

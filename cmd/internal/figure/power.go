@@ -42,6 +42,7 @@ func PowerFigure(pc regime.PowerCurve) (*Figure, error) {
 	minName, rangeName := "minimum power", "maximum range"
 	if pc.Gliding {
 		minName, rangeName = "minimum sink", "best glide"
+		top.Y.Label.Text = "height energy lost, m g × sink (W)"
 	}
 	totSty := lineStyle(color.Black, 1.6)
 	left := addLine(top, v, tot, totSty, false, false)
@@ -67,9 +68,13 @@ func PowerFigure(pc regime.PowerCurve) (*Figure, error) {
 	addPoints(top, []float64{pc.MinPowerSpeed}, []float64{minP}, mp, false, false)
 	mrPower := pc.MinCostOfTr * pc.MaxRangeSpeed
 	addPoints(top, []float64{pc.MaxRangeSpeed}, []float64{mrPower}, mr, false, false)
-	f.legend = append(f.legend,
-		legendEntry{label: fmt.Sprintf("%s: %.3g m/s, %.3g W", minName, pc.MinPowerSpeed, minP), glyph: &mp},
-		legendEntry{label: fmt.Sprintf("%s: %.3g m/s, %.3g J/m", rangeName, pc.MaxRangeSpeed, pc.MinCostOfTr), glyph: &mr})
+	mpText := fmt.Sprintf("%s: %.3g m/s, %.3g W", minName, pc.MinPowerSpeed, minP)
+	mrText := fmt.Sprintf("%s: %.3g m/s, %.3g J/m", rangeName, pc.MaxRangeSpeed, pc.MinCostOfTr)
+	if pc.Gliding && pc.Weight > 0 {
+		mpText = fmt.Sprintf("%s: %.3g m/s down at %.3g m/s", minName, minP/pc.Weight, pc.MinPowerSpeed)
+		mrText = fmt.Sprintf("%s: ratio %.3g at %.3g m/s", rangeName, pc.Weight/pc.MinCostOfTr, pc.MaxRangeSpeed)
+	}
+	f.legend = append(f.legend, legendEntry{label: mpText, glyph: &mp}, legendEntry{label: mrText, glyph: &mr})
 	ys := append(append(append(append([]float64{0}, tot...), ind...), par...), pro...)
 	if pc.Gliding {
 		ys = append([]float64{0}, tot...)
