@@ -327,6 +327,9 @@ func (o *reportOptions) page(run reportRun, cfg batch.Config) surveypage.Page {
 			p.Title = "Flow regimes of a survey"
 		}
 	}
+	if o.input == "-" {
+		p.Input = "(standard input)"
+	}
 	p.Counts = surveypage.Counts{Read: run.sum.Read, Computed: run.sum.Written, Rejected: run.sum.Rejected, Blank: run.sum.Blank}
 	for _, c := range run.columns {
 		p.Columns = append(p.Columns, surveypage.Column{Name: c.Column, Quantity: c.Quantity, Unit: c.Unit, Uncertainty: c.Uncertainty,
