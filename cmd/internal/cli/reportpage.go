@@ -379,7 +379,7 @@ func regimeMapFigure(pts []surveypage.Point, computed int) surveypage.Figure {
 	}
 	rp := make([]figure.RegimePoint, len(pts))
 	for i, pt := range pts {
-		rp[i] = figure.RegimePoint{Group: pt.Group, Reynolds: pt.Re, Y: pt.LengthMM}
+		rp[i] = figure.RegimePoint{Group: surveypage.Shown(pt.Group), Reynolds: pt.Re, Y: pt.LengthMM}
 	}
 	f, err := figure.RegimeMapFigure(rp, figure.RegimeOptions{YLabel: "body length (mm)"})
 	if err == nil {

@@ -122,6 +122,7 @@ func surveyWithBadRows(t *testing.T) (string, [][]string) {
 		10:  {"tarn", "2026-06-01", "stickleback", "freshwater", "11", "", "", "-5", "9", "175", "4", "9", "", "", ""},
 		100: {"tarn", "2026-06-02", "stickleback", "lava", "11", "", "", "47", "9", "175", "4", "9", "", "", ""},
 		200: {"tarn", "2026-06-03", "<script>alert(1)</script>", "freshwater", "11", "", "", "47", "9", "175", "4", "9", "", "", ""},
+		250: {"tarn", "2026-06-04", "bell\x07 and \xff byte", "freshwater", "11", "", "", "47", "9", "175", "4", "9", "", "", ""},
 	}
 	out := [][]string{recs[0]}
 	for _, r := range recs[1:] {
@@ -164,6 +165,9 @@ func TestReportPageStructure(t *testing.T) {
 	}
 	if !strings.Contains(doc.text.String(), "<script>alert(1)</script>") {
 		t.Errorf("the taxon written as markup is not shown as text")
+	}
+	if !strings.Contains(doc.text.String(), "bell\u2407 and \uFFFD byte") {
+		t.Errorf("the taxon with a control character and a stray byte is not shown as bell␇ and � byte")
 	}
 	for _, tag := range []string{"img", "link", "a", "iframe", "object"} {
 		for _, e := range doc.find(tag) {
@@ -250,13 +254,14 @@ func TestReportPageStructure(t *testing.T) {
 	// Flagged rows: each row number leads to the survey row with the same
 	// taxon, site and date (the rejects before it counted in).
 	flagged := append(suspect, limits...)
+	shown := strings.NewReplacer("\x07", "\u2407", "\xff", "\uFFFD") // as the page shows them
 	for _, f := range flagged {
 		row, err := strconv.Atoi(f[0])
 		if err != nil || row < 1 || row >= len(recs) {
 			t.Fatalf("flagged row number %q", f[0])
 		}
 		r := recs[row]
-		if f[1] != r[2] || f[2] != r[0] || f[3] != r[1] {
+		if f[1] != shown.Replace(r[2]) || f[2] != r[0] || f[3] != r[1] {
 			t.Errorf("flagged row %d lists %v, the survey's row is %v", row, f[1:4], r[:3])
 		}
 	}
@@ -299,7 +304,7 @@ func TestReportPageStructure(t *testing.T) {
 	}
 	wantText := []string{"viscous", "intermediate", "inertial", "Reynolds number, Re", "body length (mm)"}
 	for taxon, n := range perTaxon {
-		wantText = append(wantText, taxon+" ("+strconv.Itoa(n)+")")
+		wantText = append(wantText, shown.Replace(taxon)+" ("+strconv.Itoa(n)+")")
 	}
 	for _, w := range wantText {
 		if !strings.Contains(mapText, w) {

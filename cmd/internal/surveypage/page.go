@@ -7,6 +7,7 @@
 package surveypage
 
 import (
+	"bytes"
 	_ "embed"
 	"encoding/base64"
 	"html/template"
@@ -167,5 +168,35 @@ var tmpl = template.Must(template.New("page").Funcs(template.FuncMap{
 	"pct": func(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) },
 }).Parse(pageTemplate))
 
-// Write writes the page as HTML.
-func Write(w io.Writer, p Page) error { return tmpl.Execute(w, p) }
+// Write writes the page as HTML. Control characters from the survey
+// (other than tab and line breaks) are shown as their Unicode control
+// pictures (U+0001 as ␁) and bytes that are not UTF-8 as U+FFFD, so that
+// the page stays well-formed (XML 1.0 admits neither) and shows them.
+func Write(w io.Writer, p Page) error {
+	var b bytes.Buffer
+	if err := tmpl.Execute(&b, p); err != nil {
+		return err
+	}
+	_, err := io.WriteString(w, Shown(b.String()))
+	return err
+}
+
+// Shown is s as the page shows it: control characters as their control
+// pictures, bytes that are not UTF-8 as U+FFFD. Text drawn into a figure
+// goes through it too, since an SVG with a control character is not
+// drawn at all.
+func Shown(s string) string { return strings.Map(controlPicture, strings.ToValidUTF8(s, "\uFFFD")) }
+
+// controlPicture maps a C0 control character other than tab, line feed
+// and carriage return, and DEL, to its symbol in the Control Pictures block.
+func controlPicture(r rune) rune {
+	switch {
+	case r == '\t' || r == '\n' || r == '\r':
+		return r
+	case r < 0x20:
+		return 0x2400 + r
+	case r == 0x7f:
+		return 0x2421
+	}
+	return r
+}
