@@ -92,6 +92,7 @@ really lives in, and what drag and power follow from the law that fits.
 	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newScaleModelCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s), newTabulateCmd(s), newDemoCmd(s), newFitCmd(s), newSweepCmd(s), newPowerCurveCmd(s), newReduceCmd(s))
 	root.AddCommand(newPlotCmd(s))
 	root.AddCommand(newColumnsCmd(s))
+	root.AddCommand(newReportCmd(s))
 	return root
 }
 
