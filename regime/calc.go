@@ -193,7 +193,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		// Screening bound 0.05–1: common practice, no single source; cruising
 		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
 		// manoeuvres and slow hovering flight go beyond it.
-		if r.Strouhal < StrouhalScreenLow || r.Strouhal > StrouhalScreenHigh {
+		if StrouhalUnusual(r.Strouhal, m.Medium == media.KindAir) {
 			note.add(&r.Warnings, WarnStrouhal, func() string {
 				return fmt.Sprintf("strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal)
 			})

@@ -47,3 +47,20 @@ func screen(o *Organism, r *Result, note noter, ws *[]Warning) {
 		})
 	}
 }
+
+// StrouhalUnusual reports whether a Strouhal number is beyond what animals
+// with that kind of locomotion show. Swimmers, and flyers in fast flight,
+// keep to 0.05–1 (common practice, no single source; cruisers keep to
+// 0.2–0.4, Taylor, Nudds & Thomas 2003, Nature 425, 707). A stroke in air is
+// flapping flight, where St above 1 is normal in slow flight and hovering:
+// with a tip excursion A ≈ ΦR, St = fA/U ≈ 1/(2J) for the advance ratio
+// J = U/(2ΦfR), and hovering is J < 0.1 (Ellington 1984, The aerodynamics
+// of hovering insect flight III: Kinematics, Phil. Trans. R. Soc. B 305,
+// 41–78; pages recalled from memory), so St > 1 (J below about 0.5) is slow flight, not a mistake. Only
+// the lower bound screens flyers.
+func StrouhalUnusual(st float64, flying bool) bool {
+	if st < StrouhalScreenLow {
+		return true
+	}
+	return st > StrouhalScreenHigh && !flying
+}
