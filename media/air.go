@@ -199,12 +199,16 @@ func air(c AirConditions, brief bool) (Properties, error) {
 		)
 	}
 	if !CIPMWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		d := Detail{Quantity: "air temperature", Value: p.TemperatureC, Unit: "°C", Relation: "outside −20–40 °C where CIPM-2007 was checked"}
+		if p.PressurePa > cipmCheckedMaxPa {
+			d = Detail{Quantity: "air pressure", Value: p.PressurePa / 1e6, Unit: "MPa", Relation: "> 5 MPa where CIPM-2007 was checked"}
+		}
+		AddDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
 			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa and checked to 0.03 %% at −20–40 °C up to 5 MPa; used at %.4g °C and %.5g hPa, its error may show in 3 significant digits", p.TemperatureC, p.PressurePa/100)
 		})
 	}
 	if tK < 100 || tK > 1900 {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}

@@ -1,6 +1,10 @@
 package regime
 
-import "fmt"
+import (
+	"fmt"
+
+	"github.com/flowregime/flowregime/media"
+)
 
 // Screening thresholds for survey data. Each flags a measurement worth a
 // second look, not an impossible one.
@@ -38,11 +42,11 @@ func screen(o *Organism, r *Result, note noter, ws *[]Warning) {
 	bl := o.Speed / o.Body.Length
 	switch {
 	case bl > maxRelativeSpeed:
-		note.add(ws, WarnSpeed, func() string {
+		note.detail(ws, WarnSpeed, media.Detail{Quantity: "speed", Value: bl, Unit: "BL/s", Relation: "> 1000"}, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl)
 		})
 	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && r.Medium.Medium != "air":
-		note.add(ws, WarnSpeed, func() string {
+		note.detail(ws, WarnSpeed, media.Detail{Quantity: "speed", Value: bl, Unit: "BL/s", Relation: "> 30 for a swimmer of 10 cm or more"}, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl)
 		})
 	}
@@ -63,4 +67,13 @@ func StrouhalUnusual(st float64, flying bool) bool {
 		return true
 	}
 	return st > StrouhalScreenHigh && !flying
+}
+
+// strouhalDetail is the short reason of a Strouhal flag.
+func strouhalDetail(st float64) media.Detail {
+	rel := "> 1 for a swimmer"
+	if st < StrouhalScreenLow {
+		rel = "< 0.05"
+	}
+	return media.Detail{Quantity: "strouhal", Value: st, Relation: rel}
 }

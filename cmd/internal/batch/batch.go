@@ -81,6 +81,7 @@ func (e HeaderError) Unwrap() error { return e.Err }
 type Summary struct {
 	Read, Written, Rejected, Blank, Filtered int
 	Flags                                    map[string]int
+	Assumed                                  map[string]int // codes of the "assumed" column → rows
 	Elapsed                                  time.Duration
 }
 
@@ -91,7 +92,7 @@ type result struct {
 	rejects                        []Reject
 	rows                           int // records in the chunk, for numbering rows
 	read, written, blank, filtered int
-	flags                          map[string]int
+	flags, assumed                 map[string]int
 }
 
 // Run reads in, writes rows to out and rejected rows to reject, in input
@@ -99,7 +100,7 @@ type result struct {
 // header, output error, cancellation); row problems are rejects.
 func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) error, cfg Config) (Summary, error) {
 	start := time.Now()
-	sum := Summary{Flags: map[string]int{}}
+	sum := Summary{Flags: map[string]int{}, Assumed: map[string]int{}}
 	if cfg.Progress != nil {
 		in = &countingReader{r: in, f: cfg.Progress}
 	}
@@ -289,6 +290,9 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			sum.Filtered += pr.filtered
 			for k, v := range pr.flags {
 				sum.Flags[k] += v
+			}
+			for k, v := range pr.assumed {
+				sum.Assumed[k] += v
 			}
 		}
 	}
