@@ -63,6 +63,17 @@ func runPowerCurve(o *powerCurveOptions, s Streams) error {
 	if o.steps < 3 || o.steps > 10000 {
 		return usagef("--steps %d: give 3 to 10000", o.steps)
 	}
+	for _, r := range []struct {
+		flag, text string
+		v          quantity.Value
+	}{{"from", o.from, lo}, {"to", o.to, hi}} {
+		if err := refuseUncertainValue("powercurve", r.flag, r.text, r.v); err != nil {
+			return err
+		}
+	}
+	if err := refuseUncertain("powercurve", merge(o.organism.source(), o.flags.source())); err != nil {
+		return err
+	}
 	in, m, err := o.inputs(false, map[string]string{"speed": o.from}) // the curve sets the speed itself
 	if err != nil {
 		return err

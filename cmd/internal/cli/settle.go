@@ -93,6 +93,9 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 		if err != nil {
 			return p, usagef("--%s: %v", f.flag, err)
 		}
+		if err := refuseUncertainValue("settle", f.flag, f.text, v); err != nil {
+			return p, err
+		}
 		if !(v.SI > 0) {
 			u := quantity.SIUnit(f.kind)
 			return p, usagef("--%s: must be above 0 %s, got %g %s", f.flag, u, v.SI, u)
@@ -126,7 +129,7 @@ func runSettle(o *settleOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
-	m, err := o.flags.lookup(o.medium)
+	m, err := o.flags.lookup("settle", o.medium)
 	if err != nil {
 		return err
 	}
