@@ -47,39 +47,14 @@ var AssumedMeaning = map[string]string{
 	AssumedShearRate:        "no shear rate in a non-Newtonian medium: speed/length",
 }
 
-// assumptions appends the codes of the defaults and assumptions that
+// Assumptions appends the codes of the defaults and assumptions that
 // shaped one row's result; shapeGiven says whether the row named a shape.
 // It only compares and appends constant strings.
-func assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bool) []string {
-	c, o := &in.Conditions, &in.Organism
+func Assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bool) []string {
+	o := &in.Organism
 	nan := math.IsNaN
-	file := media.IsMediumFile(c.Medium)
-	switch {
-	case file:
-	case r.Medium.Medium == media.KindAir:
-		if nan(c.TemperatureC) {
-			out = append(out, AssumedAirTemperature)
-		}
-		if nan(c.PressurePa) && nan(c.AltitudeM) {
-			out = append(out, AssumedAirAltitude)
-		}
-		if nan(c.HumidityPercent) {
-			out = append(out, AssumedHumidity)
-		}
-	default:
-		if nan(c.TemperatureC) {
-			out = append(out, AssumedWaterTemperature)
-		}
-		if r.Medium.Medium == media.KindSeawater {
-			if nan(c.SalinityPractical) {
-				out = append(out, AssumedSalinity)
-			}
-			if !nan(c.DepthM) && c.DepthM > 0 && nan(c.PressurePa) && nan(c.LatitudeDeg) {
-				out = append(out, AssumedLatitude)
-			}
-		}
-	}
-	if o.Body.Shape == regime.Sphere && !shapeGiven {
+	out = MediumAssumptions(out, &in.Conditions, &r.Medium)
+	if o.Body.Shape == regime.Sphere && !shapeGiven && nan(o.Body.Diameter) {
 		out = append(out, AssumedSphere)
 	}
 	if !r.Medium.Newtonian() && nan(o.ShearRate) {
@@ -104,6 +79,38 @@ func assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bo
 				out = append(out, AssumedProfileRatio)
 			case regime.ProfileNone:
 				out = append(out, AssumedProfileLeftOut)
+			}
+		}
+	}
+	return out
+}
+
+// MediumAssumptions appends the codes of the defaults that set the medium
+// m from the conditions c.
+func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) []string {
+	nan := math.IsNaN
+	switch {
+	case media.IsMediumFile(c.Medium):
+	case m.Medium == media.KindAir:
+		if nan(c.TemperatureC) {
+			out = append(out, AssumedAirTemperature)
+		}
+		if nan(c.PressurePa) && nan(c.AltitudeM) {
+			out = append(out, AssumedAirAltitude)
+		}
+		if nan(c.HumidityPercent) {
+			out = append(out, AssumedHumidity)
+		}
+	default:
+		if nan(c.TemperatureC) {
+			out = append(out, AssumedWaterTemperature)
+		}
+		if m.Medium == media.KindSeawater {
+			if nan(c.SalinityPractical) {
+				out = append(out, AssumedSalinity)
+			}
+			if !nan(c.DepthM) && c.DepthM > 0 && nan(c.PressurePa) && nan(c.LatitudeDeg) {
+				out = append(out, AssumedLatitude)
 			}
 		}
 	}

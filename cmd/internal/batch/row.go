@@ -328,7 +328,7 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 	}
 	s.flags = flagCodes(s.flags[:0], r.Warnings)
 	o.flags = s.flags
-	s.assumed = assumptions(s.assumed[:0], in, r, s.shapeGiven)
+	s.assumed = Assumptions(s.assumed[:0], in, r, s.shapeGiven)
 	o.assumed = s.assumed
 	return o, nil
 }

@@ -242,6 +242,9 @@ func runCalc(o *calcOptions, s Streams) error {
 	case report.FormatJSON:
 		j := newCalcJSON(r)
 		j.Uncertainty = newUncertaintyJSON(unc)
+		src := merge(o.organism.source(), o.flags.source())
+		j.Inputs = resolvedInputs(src, in)
+		j.Assumed = assumedList(&in, &r, src["shape"] != "")
 		return report.JSON(s.Out, j)
 	case report.FormatCSV:
 		return report.Fields(s.Out, o.format, append(append(calcFields(r), uncertaintyFields(unc)...), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))

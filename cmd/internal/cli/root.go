@@ -81,7 +81,9 @@ really lives in, and what drag and power follow from the law that fits.
 ` + estimateNotice,
 		SilenceErrors: true,
 		SilenceUsage:  true,
+		Version:       BuildInfo().String(),
 	}
+	root.SetVersionTemplate("{{.Version}}")
 	root.SetIn(s.In)
 	root.SetOut(s.Out)
 	root.SetErr(s.Err)
