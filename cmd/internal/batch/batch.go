@@ -82,6 +82,9 @@ type Summary struct {
 	Read, Written, Rejected, Blank, Filtered int
 	Flags                                    map[string]int
 	Assumed                                  map[string]int // codes of the "assumed" column → rows
+	Mapping                                  []MappedColumn // which column holds which quantity
+	Uncertainty                              string         // the propagation method, "" when none
+	Draws                                    int            // Monte Carlo draws per row
 	Elapsed                                  time.Duration
 }
 
@@ -152,6 +155,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if err != nil {
 		return sum, HeaderError{err}
 	}
+	sum.Mapping = m.mapped()
 	if m.hasSD() {
 		cfg.Uncertainty = true
 	}
@@ -160,6 +164,12 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	}
 	if cfg.Uncertainty && cfg.Method != "linear" && cfg.Draws < 10 {
 		cfg.Draws = 10000
+	}
+	if cfg.Uncertainty {
+		sum.Uncertainty = cfg.Method
+		if cfg.Method != "linear" {
+			sum.Draws = cfg.Draws
+		}
 	}
 	if _, _, _, ok := cfg.Constants.Lookup(inputs.Length); m.col[inputs.Length] < 0 && !ok {
 		return sum, HeaderError{fmt.Errorf("no column holds the length and --length is not given; name a column length (e.g. \"length (mm)\") or use --column length=<header>")}

@@ -25,6 +25,7 @@ import (
 
 type batchOptions struct {
 	input, inFormat, outFormat, output, rejects, names string
+	record                                             string
 	columns, units                                     []string
 	flaggedOnly, quiet, mediaAnywhere                  bool
 	workers                                            int
@@ -127,6 +128,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 	fs.StringVar(&o.outFormat, "format", "", "output: csv, tsv, jsonl or table (default: from -o's extension, else csv)")
 	fs.StringVarP(&o.output, "output", "o", "", "output file (written atomically); default stdout")
 	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
+	fs.StringVar(&o.record, "record", "", "write a run record (JSON: version, command line, column mapping, constants, counts, flags, assumptions) to this file, atomically")
 	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
 	fs.BoolVarP(&o.quiet, "quiet", "q", false, "no progress bar and no summary")
@@ -187,6 +189,9 @@ func (o *batchOptions) outputFiles(s Streams) []namedFile {
 	}
 	if o.rejects != "" {
 		outs = append(outs, namedFile{what: "--rejects " + o.rejects, path: o.rejects})
+	}
+	if o.record != "" {
+		outs = append(outs, namedFile{what: "--record " + o.record, path: o.record})
 	}
 	return outs
 }
@@ -422,6 +427,11 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	if outFile != nil {
 		if err := outFile.commit(); err != nil {
 			return fmt.Errorf("cannot write %s: %v", o.output, withoutPath(err))
+		}
+	}
+	if o.record != "" {
+		if err := writeRecord(o.record, s, newRunRecord(o, s, cfg, sum)); err != nil {
+			return err
 		}
 	}
 	if !o.quiet {

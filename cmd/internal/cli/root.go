@@ -24,6 +24,7 @@ type Streams struct {
 	Err io.Writer
 
 	outs *outputSet // the run's temporary files; set by Main
+	args []string   // the command line after the program's name; set by Main
 }
 
 // Exit codes.
@@ -115,7 +116,7 @@ func Main(args []string, s Streams) int {
 	ctx, cancel := context.WithCancel(context.Background())
 	defer cancel()
 	out := &checkedWriter{w: s.Out}
-	s.Out, s.outs = out, newOutputSet()
+	s.Out, s.outs, s.args = out, newOutputSet(), args
 	done := make(chan int, 1)
 	go func() {
 		defer func() {
