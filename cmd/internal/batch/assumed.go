@@ -3,6 +3,7 @@ package batch
 import (
 	"math"
 	"strings"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/cmd/internal/decimal"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -179,4 +180,13 @@ func appendReason(b []byte, w *media.Warning, m *media.Properties) []byte {
 		return append(b, "a model used at its limit (calc on this row says which)"...)
 	}
 	return append(b, w.Code...)
+}
+
+// appendBytesField is appendField for a field held in bytes, read in place
+// without a copy (the view lives only during the call).
+func appendBytesField(b, field []byte, delim byte) []byte {
+	if len(field) == 0 {
+		return b
+	}
+	return appendField(b, unsafe.String(&field[0], len(field)), delim)
 }

@@ -434,7 +434,7 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byt
 	}
 	b = append(b, delim)
 	if len(o.flags) > 0 {
-		b = appendField(b, string(o.reasons(s)), delim)
+		b = appendBytesField(b, o.reasons(s), delim)
 	}
 	b = append(b, delim)
 	for i, a := range o.assumed {
