@@ -174,8 +174,12 @@ func appendReason(b []byte, w *media.Warning, m *media.Properties) []byte {
 	case w.Code == media.WarnOutOfRange:
 		b = append(b, m.Medium...)
 		b = decimal.AppendG(append(b, " at "...), m.TemperatureC, 4)
-		b = decimal.AppendG(append(b, " °C, "...), m.PressurePa/100, 5)
-		return append(b, " hPa: outside a property method's stated range (calc or medium on this row says which)"...)
+		b = append(b, " °C"...)
+		if !math.IsNaN(m.PressurePa) {
+			b = decimal.AppendG(append(b, ", "...), m.PressurePa/100, 5)
+			b = append(b, " hPa"...)
+		}
+		return append(b, ": outside a property method's range (medium on this row says which)"...)
 	case w.Code == regime.WarnModel:
 		return append(b, "a model used at its limit (calc on this row says which)"...)
 	}

@@ -240,7 +240,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 		KinematicViscosity: p.KinematicViscosity, Rheology: p.Rheology, PressurePa: p.PressurePa, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 	for _, w := range p.Warnings {
-		e.p.Warnings = append(e.p.Warnings, media.Warning{Code: w.Code})
+		e.p.Warnings = append(e.p.Warnings, media.Warning{Code: w.Code, Detail: w.Detail})
 	}
 	sh.mu.Lock()
 	if len(sh.m) >= shardLimit {
