@@ -501,7 +501,11 @@ func assumedLines(counts map[string]int) []string {
 	sort.Strings(codes)
 	lines := make([]string, 0, len(codes))
 	for _, c := range codes {
-		lines = append(lines, fmt.Sprintf("flowregime: batch: assumed %s in %d rows: %s", c, counts[c], batch.AssumedMeaning[c]))
+		rows := "rows"
+		if counts[c] == 1 {
+			rows = "row"
+		}
+		lines = append(lines, fmt.Sprintf("flowregime: batch: assumed %s in %d %s: %s", c, counts[c], rows, batch.AssumedMeaning[c]))
 	}
 	return lines
 }

@@ -106,6 +106,12 @@ func runDemo(s Streams) error {
 	}
 	sort.Strings(keys)
 	fmt.Fprintf(w, "Flags over the survey: %s.\n", strings.Join(keys, ", "))
+	if len(sum.Assumed) > 0 {
+		fmt.Fprintln(w, "Defaults used (the assumed column marks each row):")
+		for _, l := range assumedLines(sum.Assumed) {
+			fmt.Fprintln(w, "  "+strings.TrimPrefix(l, "flowregime: batch: assumed "))
+		}
+	}
 	fmt.Fprintln(w, `
 Next:
   flowregime demo --data > survey.csv

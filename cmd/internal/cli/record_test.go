@@ -5,6 +5,7 @@ import (
 	"os"
 	"path/filepath"
 	"runtime"
+	"strings"
 	"testing"
 )
 
@@ -56,5 +57,31 @@ func TestBatchRecord(t *testing.T) {
 	}
 	if got, _ := os.ReadFile(in); string(got) != data {
 		t.Errorf("the input was changed")
+	}
+}
+
+// TestBatchSummaryNamesAssumptions: the end summary names each default that
+// changed results, with its row count, one line each.
+func TestBatchSummaryNamesAssumptions(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "in.csv")
+	data := "id,medium,length (mm),speed (cm/s),temp_C\n" +
+		"a,freshwater,300,60,\n" +
+		"b,freshwater,300,60,12\n"
+	if err := os.WriteFile(in, []byte(data), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, errs, code := run(t, "batch", in, "-o", filepath.Join(dir, "out.csv"))
+	if code != ExitOK {
+		t.Fatalf("exit %d, %s", code, errs)
+	}
+	for _, want := range []string{
+		"assumed temperature=20C in 1 row: no temperature: water at 20 °C\n",
+		"assumed shape=sphere in 2 rows: no diameter or shape: a sphere as wide as the length\n",
+		"assumed efficiency=1 in 2 rows:",
+	} {
+		if !strings.Contains(errs, want) {
+			t.Errorf("summary lacks %q:\n%s", want, errs)
+		}
 	}
 }
