@@ -258,6 +258,8 @@ func runCalc(o *calcOptions, s Streams) error {
 	}
 	fmt.Fprintf(s.Out, "C_D of %s is on the %s.\n", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName)
 	report.List(s.Out, "Medium", []string{mediumLine(m)})
+	src := merge(o.organism.source(), o.flags.source())
+	report.List(s.Out, "Assumed (defaults that changed the result)", assumedTexts(assumedList(&in, &r, src["shape"] != "")))
 	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
 	return nil
 }

@@ -64,3 +64,12 @@ func assumedList(in *inputs.Input, r *regime.Result, shapeGiven bool) []assumedJ
 	}
 	return out
 }
+
+// assumedTexts says each assumption as "code: meaning", for tables.
+func assumedTexts(as []assumedJSON) []string {
+	out := make([]string, len(as))
+	for i, a := range as {
+		out[i] = a.Code + ": " + a.Meaning
+	}
+	return out
+}
