@@ -38,3 +38,31 @@ func TestCIPMFlagOnlyWhenVisible(t *testing.T) {
 		}
 	}
 }
+
+// TestSeawaterFlagOnlyWhenVisible: EOS-80 beyond its stated −2–40 °C and
+// 0–42 salinity is flagged only where its measured extrapolation error
+// (media/seawater.go: 0.02 % at 60 °C, 0.2 % at 80 °C; 0.01 % at salinity
+// 60, 0.07 % at 80) could show in 3 significant digits (0.05 %).
+func TestSeawaterFlagOnlyWhenVisible(t *testing.T) {
+	for _, c := range []struct {
+		tC, sp float64
+		want   bool
+	}{
+		{45, 35, false}, {60, 35, false}, {70, 35, true}, {-2.1, 40, true},
+		{20, 50, false}, {20, 60, false}, {20, 70, true},
+	} {
+		cond := Unset(KindSeawater)
+		cond.TemperatureC, cond.SalinityPractical = c.tC, c.sp
+		p, err := Lookup(cond)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got := false
+		for _, w := range p.Warnings {
+			got = got || w.Code == WarnOutOfRange
+		}
+		if got != c.want {
+			t.Errorf("%g °C, salinity %g: flagged %v, want %v (%v)", c.tC, c.sp, got, c.want, p.Warnings)
+		}
+	}
+}
