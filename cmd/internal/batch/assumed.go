@@ -58,7 +58,7 @@ func Assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bo
 	if o.Body.Shape == regime.Sphere && !shapeGiven && nan(o.Body.Diameter) {
 		out = append(out, AssumedSphere)
 	}
-	if !r.Medium.Newtonian() && nan(o.ShearRate) {
+	if r.Medium.Rheology != nil && nan(o.ShearRate) {
 		out = append(out, AssumedShearRate)
 	}
 	switch r.Power.Kind {
@@ -91,7 +91,6 @@ func Assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bo
 func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) []string {
 	nan := math.IsNaN
 	switch {
-	case media.IsMediumFile(c.Medium):
 	case m.Medium == media.KindAir:
 		if nan(c.TemperatureC) {
 			out = append(out, AssumedAirTemperature)
@@ -102,6 +101,8 @@ func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) [
 		if nan(c.HumidityPercent) {
 			out = append(out, AssumedHumidity)
 		}
+	case m.Medium != media.KindFreshWater && m.Medium != media.KindSeawater && media.IsMediumFile(c.Medium):
+		// a measured medium: its file fixes its properties
 	default:
 		if nan(c.TemperatureC) {
 			out = append(out, AssumedWaterTemperature)
