@@ -99,6 +99,32 @@ func MoistAirDensity(tK, pPa, h, xCO2 float64) float64 {
 	return pPa * ma / (z * r * tK) * (1 - xv*(1-mv/ma))                           // eq. (1)
 }
 
+// PrintedPrecision is half a unit in the last of the three significant
+// digits that tables print, relative, at its smallest (999 → 0.5 in 999 is
+// 0.05 %). A method used outside its stated range is flagged only when its
+// error there could reach it.
+const PrintedPrecision = 5e-4
+
+// Where the CIPM-2007 density was checked against the reference equation
+// for air (Lemmon et al. 2000): within 0.03 % (media/limits.go, measured for
+// this project with python3-iapws).
+const (
+	cipmCheckedMinC, cipmCheckedMaxC = -20.0, 40.0
+	cipmCheckedMaxPa                 = 5e6
+	cipmCheckedError                 = 3e-4
+)
+
+// CIPMWithinPrintedPrecision reports whether the CIPM-2007 density's error
+// at tC (°C) and pPa stays below [PrintedPrecision]. Its stated range is
+// 15–27 °C and 600–1100 hPa with a relative uncertainty of 22 ppm (Picard et
+// al. 2008); beyond it the stated uncertainty no longer holds, but against
+// the reference equation for air it stays within 0.03 % at −20–40 °C up to
+// 5 MPa, below the printed precision. Only outside that checked region is
+// the density flagged.
+func CIPMWithinPrintedPrecision(tC, pPa float64) bool {
+	return cipmCheckedError < PrintedPrecision && tC >= cipmCheckedMinC && tC <= cipmCheckedMaxC && pPa <= cipmCheckedMaxPa
+}
+
 // AirConditions says where the air is. Pressure wins over altitude when both
 // are set. When TemperatureC is NaN the standard-atmosphere temperature at
 // the altitude is used, plus OffsetK.
@@ -172,13 +198,17 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			"viscosity: Sutherland's law with ISO 2533 constants (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), dry air",
 		)
 	}
-	if p.PressurePa < 60000 || p.PressurePa > 110000 || p.TemperatureC < 15 || p.TemperatureC > 27 {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
-			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa; used at %.4g °C and %.5g hPa, outside that range (the equation is smooth there, its stated 22 ppm uncertainty is not)", p.TemperatureC, p.PressurePa/100)
+	if !CIPMWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
+		d := Detail{Quantity: "air temperature", Value: p.TemperatureC, Unit: "°C", Relation: "outside −20–40 °C where CIPM-2007 was checked"}
+		if p.PressurePa > cipmCheckedMaxPa {
+			d = Detail{Quantity: "air pressure", Value: p.PressurePa / 1e6, Unit: "MPa", Relation: "> 5 MPa where CIPM-2007 was checked"}
+		}
+		AddDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
+			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa and checked to 0.03 %% at −20–40 °C up to 5 MPa; used at %.4g °C and %.5g hPa, its error may show in 3 significant digits", p.TemperatureC, p.PressurePa/100)
 		})
 	}
 	if tK < 100 || tK > 1900 {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}

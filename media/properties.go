@@ -18,6 +18,28 @@ const (
 type Warning struct {
 	Code    string
 	Message string
+	Detail  Detail // the value at fault, kept even without Message
+}
+
+// Detail is a warning's reason in a few words with its value, for a table
+// cell: Quantity, Value (formatted only when read) with Unit, and Relation,
+// e.g. "strouhal" 2.08 "" "> 1". It holds no formatted text, so batch work
+// that never reads it pays nothing for it.
+type Detail struct {
+	Quantity string
+	Value    float64
+	Unit     string
+	Relation string
+}
+
+// AddDetailed is [AddWarning] with the warning's [Detail], which is kept
+// even when brief.
+func AddDetailed(ws *[]Warning, brief bool, code string, d Detail, msg func() string) {
+	w := Warning{Code: code, Detail: d}
+	if !brief {
+		w.Message = msg()
+	}
+	*ws = append(*ws, w)
 }
 
 func (w Warning) String() string { return w.Message }

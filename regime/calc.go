@@ -135,7 +135,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	}
 	r.Warnings = append(r.Warnings, m.Warnings...)
 	if zeroBeat {
-		note.add(&r.Warnings, WarnModel, func() string {
+		note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "wingbeat frequency", Value: 0, Unit: "Hz", Relation: "taken as gliding"}, func() string {
 			return "flight: a wingbeat frequency of 0 is taken as gliding: no flapping power"
 		})
 	}
@@ -186,24 +186,24 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		r.Strouhal = Strouhal(o.Frequency, o.Amplitude, o.Speed)
 		r.StrouhalBand = StrouhalBand(r.Strouhal)
 		if ref := refLength(*o); o.Amplitude > ref {
-			note.add(&r.Warnings, WarnInconsistent, func() string {
+			note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "amplitude", Value: o.Amplitude, Unit: "m", Relation: "> " + refName(*o)}, func() string {
 				return fmt.Sprintf("inputs: amplitude %.3g m is larger than the %s (%.3g m)", o.Amplitude, refName(*o), ref)
 			})
 		}
 		// Screening bound 0.05–1: common practice, no single source; cruising
 		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
 		// manoeuvres and slow hovering flight go beyond it.
-		if r.Strouhal < StrouhalScreenLow || r.Strouhal > StrouhalScreenHigh {
-			note.add(&r.Warnings, WarnStrouhal, func() string {
+		if StrouhalUnusual(r.Strouhal, m.Medium == media.KindAir) {
+			note.detail(&r.Warnings, WarnStrouhal, strouhalDetail(r.Strouhal), func() string {
 				return fmt.Sprintf("strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal)
 			})
 		}
 	case !math.IsNaN(o.Frequency):
-		note.add(&r.Warnings, WarnInconsistent, func() string {
+		note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "frequency", Value: o.Frequency, Unit: "Hz", Relation: "without an amplitude: no Strouhal number"}, func() string {
 			return "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"
 		})
 	case !math.IsNaN(o.Amplitude):
-		note.add(&r.Warnings, WarnInconsistent, func() string {
+		note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "amplitude", Value: o.Amplitude, Unit: "m", Relation: "without a frequency: no Strouhal number"}, func() string {
 			return "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"
 		})
 	}
@@ -242,13 +242,13 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		switch {
 		case o.Gliding && !math.IsNaN(o.Frequency):
 			r.Power.Kind = PowerGliding
-			note.add(&r.Warnings, WarnInconsistent, func() string {
+			note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "wingbeat frequency", Value: o.Frequency, Unit: "Hz", Relation: "given for a glide: not used"}, func() string {
 				return "inputs: a gliding flyer with a wingbeat frequency: the frequency is not used for power"
 			})
 		case o.Gliding:
 			r.Power.Kind = PowerGliding
 		case math.IsNaN(o.Frequency):
-			note.add(&r.Warnings, WarnModel, func() string {
+			note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "wingbeat frequency", Value: math.NaN(), Relation: "not given: continuous flapping assumed"}, func() string {
 				return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding, a table a wingbeat frequency of 0)"
 			})
 		}
@@ -257,7 +257,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		return fmt.Errorf("regime: gliding needs a flyer in air with a mass and a wingspan")
 	default:
 		if !math.IsNaN(o.Span) && math.IsNaN(o.Mass) {
-			note.add(&r.Warnings, WarnInconsistent, func() string {
+			note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "wingspan", Value: o.Span, Unit: "m", Relation: "without a mass: towing power"}, func() string {
 				return "inputs: a wingspan without a mass gives no flight power; give the mass (towing power shown instead)"
 			})
 		}
@@ -285,7 +285,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			r.CoastTime, r.CoastDistance, r.CoastStops = c.Time, c.Distance, c.Stops
 			if math.IsInf(c.Distance, 0) {
 				r.CoastDistance = math.NaN()
-				note.add(&r.Warnings, WarnModel, func() string {
+				note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "coasting distance", Value: math.NaN(), Relation: "unbounded in this shear-thickening fluid"}, func() string {
 					return "coasting: in this shear-thickening fluid creeping-flow drag falls off so fast at low speed that the coasting distance has no bound; none is given"
 				})
 			}

@@ -34,6 +34,11 @@ func (full noter) add(ws *[]Warning, code string, msg func() string) {
 	media.AddWarning(ws, !bool(full), code, msg)
 }
 
+// detail adds a warning with its short reason d (see [media.Detail]).
+func (full noter) detail(ws *[]Warning, code string, d media.Detail, msg func() string) {
+	media.AddDetailed(ws, !bool(full), code, d, msg)
+}
+
 // Shape is the idealised body shape used to pick drag laws.
 type Shape string
 
@@ -593,27 +598,27 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 	}
 	c := &res.Chosen
 	if !c.InRange {
-		note.add(&res.Warnings, WarnLawOutOfRange, func() string {
+		note.detail(&res.Warnings, WarnLawOutOfRange, media.Detail{Quantity: "reynolds", Value: c.Reynolds, Relation: "outside the range of " + c.Law}, func() string {
 			return fmt.Sprintf("drag: %s used at Re = %.3g on the %s, outside its published range %s", c.Law, c.Reynolds, c.Basis, lawRange(*c))
 		})
 	}
 	if chosen.altCf != nil && c.High > 1.1*c.Low {
-		note.add(&res.Warnings, WarnModel, func() string {
+		note.detail(&res.Warnings, WarnModel, media.Detail{Quantity: "laminar drag", Value: c.Low, Unit: "N", Relation: "is the bracket's other end (turbulent boundary layer taken)"}, func() string {
 			return fmt.Sprintf("drag: the boundary layer of a rigid animal body at Re = %.3g is taken as turbulent (%.3g N; below Re 5e5 the turbulent line is extrapolated); with %s the drag would be %.3g N: take the two as a bracket", c.Reynolds, c.High, chosen.altName, c.Low)
 		})
 	}
 	if b.Shape == Sphere && c.Reynolds > 2e5 {
-		note.add(&res.Warnings, WarnDragCrisis, func() string {
+		note.detail(&res.Warnings, WarnDragCrisis, media.Detail{Quantity: "reynolds", Value: c.Reynolds, Relation: "> 2e5 for a sphere (drag crisis)"}, func() string {
 			return fmt.Sprintf("drag: Re = %.3g is in or past the drag crisis of a sphere (about 2e5–5e5 for a smooth sphere), where C_D falls to about 0.1 depending on roughness and free-stream turbulence", c.Reynolds)
 		})
 	}
 	if b.Shape == Rod && b.Length/(b.Diameter/2) < 10 {
-		note.add(&res.Warnings, WarnGeometry, func() string {
+		note.detail(&res.Warnings, WarnGeometry, media.Detail{Quantity: "length/radius", Value: b.Length / (b.Diameter / 2), Relation: "< 10 for slender-body theory"}, func() string {
 			return fmt.Sprintf("drag: slender-body theory is poor for length/radius below 10 (here %.3g); compare the spheroid estimate", b.Length/(b.Diameter/2))
 		})
 	}
 	if j := chosen.Join; j != nil {
-		note.add(&res.Warnings, WarnModel, func() string {
+		note.detail(&res.Warnings, WarnModel, media.Detail{Quantity: "reynolds", Value: c.Reynolds, Relation: "between published drag laws: joined, a bracket"}, func() string {
 			return fmt.Sprintf("drag: at Re = %.3g on the %s the drag joins %s (used up to Re %g), %.3g N here, and %s (used from Re %g), %.3g N here, smoothly in log Re, as no published law covers the gap between them: take the two as a bracket",
 				c.Reynolds, c.Basis, j.Lo.name, j.From, j.Lo.force(b, f), j.Hi.name, j.To, j.Hi.force(b, f))
 		})
@@ -622,7 +627,7 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 		// A little slack so that a body given as exactly 10:1 in rounded
 		// millimetres is not flagged for floating-point noise.
 		if r := b.Length / b.Diameter; r < 2*(1-1e-9) || r > 10*(1+1e-9) {
-			note.add(&res.Warnings, WarnGeometry, func() string {
+			note.detail(&res.Warnings, WarnGeometry, media.Detail{Quantity: "fineness ratio", Value: r, Relation: "outside 2–10 for Hoerner's form factor"}, func() string {
 				return fmt.Sprintf("drag: Hoerner's form factor is for streamlined bodies of fineness ratio about 2–10; this body's is %.3g", r)
 			})
 		}

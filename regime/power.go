@@ -245,7 +245,7 @@ func parasitePower(fp *FlightPower, in FlightInput, note noter) (flatPlate float
 	fp.BodyArea, fp.BodyDragCoefficient = in.BodyArea, in.BodyCD
 	if !(fp.BodyArea > 0) {
 		fp.BodyArea = BirdBodyFrontalArea(in.Mass)
-		note.add(&fp.Warnings, WarnModel, func() string {
+		note.detail(&fp.Warnings, WarnModel, media.Detail{Quantity: "body frontal area", Value: fp.BodyArea, Unit: "m²", Relation: "taken from the mass (Pennycuick et al. 1988)"}, func() string {
 			return fmt.Sprintf("flight: body frontal area taken as %.3g m² from the mass (Pennycuick, Obrecht & Fuller 1988)", fp.BodyArea)
 		})
 	}
@@ -281,13 +281,13 @@ func profilePower(fp *FlightPower, in FlightInput, w Wings, flatPlate float64, n
 	case !(w.Area > 0):
 		if in.Gliding {
 			fp.ProfileMethod = ProfileNone
-			note.add(&fp.Warnings, WarnModel, func() string {
+			note.detail(&fp.Warnings, WarnModel, media.Detail{Quantity: "wing area", Value: math.NaN(), Relation: "not given: the glide leaves profile drag out"}, func() string {
 				return "flight: no wing area or chord, so the glide leaves profile drag out (sink speed too low)"
 			})
 			return 0
 		}
 		fp.ProfileMethod, fp.ProfileRatio = ProfileRatioFlat, ProfilePowerRatioFlat
-		note.add(&fp.Warnings, WarnModel, func() string {
+		note.detail(&fp.Warnings, WarnModel, media.Detail{Quantity: "wing area", Value: math.NaN(), Relation: "not given: profile power 1.2 × absolute minimum power (Pennycuick 1975)"}, func() string {
 			unused := ""
 			if given {
 				unused = " (the profile-drag coefficient given needs the wing area and is not used)"
@@ -303,7 +303,7 @@ func profilePower(fp *FlightPower, in FlightInput, w Wings, flatPlate float64, n
 	case given:
 		fp.ProfileMethod, fp.ProfileCD = ProfileBladeElement, w.ProfileCD
 		if w.Frequency > 0 && !(w.StrokeAngle > 0) {
-			note.add(&fp.Warnings, WarnModel, func() string {
+			note.detail(&fp.Warnings, WarnModel, media.Detail{Quantity: "stroke angle", Value: math.NaN(), Relation: "not given: profile power of gliding wings, a lower bound"}, func() string {
 				return "flight: no stroke angle or amplitude, so blade-element profile power is that of gliding wings (a lower bound for flapping)"
 			})
 		}
@@ -311,7 +311,7 @@ func profilePower(fp *FlightPower, in FlightInput, w Wings, flatPlate float64, n
 	default:
 		fp.ProfileMethod, fp.ProfileRatio = ProfileRatio, ProfilePowerConstant*w.Area/(w.Span*w.Span)
 		if fp.ChordReynolds > 0 && fp.ChordReynolds < 1e4 {
-			note.add(&fp.Warnings, WarnModel, func() string {
+			note.detail(&fp.Warnings, WarnModel, media.Detail{Quantity: "chord reynolds", Value: fp.ChordReynolds, Relation: "< 1e4: Pennycuick's profile ratio is calibrated on birds"}, func() string {
 				return fmt.Sprintf("flight: profile power from Pennycuick's ratio, calibrated on birds; at chord Re = %.3g (an insect's) give the profile-drag coefficient for the blade-element method", fp.ChordReynolds)
 			})
 		}

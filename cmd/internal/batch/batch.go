@@ -87,6 +87,10 @@ func (e HeaderError) Unwrap() error { return e.Err }
 type Summary struct {
 	Read, Written, Rejected, Blank, Filtered int
 	Flags                                    map[string]int
+	Assumed                                  map[string]int // codes of the "assumed" column → rows
+	Mapping                                  []MappedColumn // which column holds which quantity
+	Uncertainty                              string         // the propagation method, "" when none
+	Draws                                    int            // Monte Carlo draws per row
 	Elapsed                                  time.Duration
 }
 
@@ -97,7 +101,7 @@ type result struct {
 	rejects                        []Reject
 	rows                           int // records in the chunk, for numbering rows
 	read, written, blank, filtered int
-	flags                          map[string]int
+	flags, assumed                 map[string]int
 }
 
 // Run reads in, writes rows to out and rejected rows to reject, in input
@@ -105,7 +109,7 @@ type result struct {
 // header, output error, cancellation); row problems are rejects.
 func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) error, cfg Config) (Summary, error) {
 	start := time.Now()
-	sum := Summary{Flags: map[string]int{}}
+	sum := Summary{Flags: map[string]int{}, Assumed: map[string]int{}}
 	if cfg.Progress != nil {
 		in = &countingReader{r: in, f: cfg.Progress}
 	}
@@ -135,6 +139,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if err != nil {
 		return sum, err
 	}
+	sum.Mapping = m.mapped()
 	if m.hasSD() {
 		cfg.Uncertainty = true
 	}
@@ -146,6 +151,12 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	}
 	if cfg.Mapped != nil {
 		cfg.Mapped(m.describe(cfg))
+	}
+	if cfg.Uncertainty {
+		sum.Uncertainty = cfg.Method
+		if cfg.Method != "linear" {
+			sum.Draws = cfg.Draws
+		}
 	}
 	w := bufio.NewWriterSize(out, 256<<10)
 	var table [][]string
@@ -270,6 +281,9 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			sum.Filtered += pr.filtered
 			for k, v := range pr.flags {
 				sum.Flags[k] += v
+			}
+			for k, v := range pr.assumed {
+				sum.Assumed[k] += v
 			}
 		}
 	}

@@ -9,6 +9,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -228,8 +229,8 @@ func TestMeasuredMediumColumn(t *testing.T) {
 	if math.Abs(re/r.Reynolds-1) > 1e-5 { // 6 significant digits printed
 		t.Errorf("batch Re %g, calc Re %g", re, r.Reynolds)
 	}
-	if !strings.Contains(recs[1][len(recs[1])-1], "shear-rate-extrapolated") {
-		t.Errorf("flags %q lack the extrapolation at 0.25 1/s (measured 0.5–500)", recs[1][len(recs[1])-1])
+	if fl := recs[1][slices.Index(recs[0], "flags")]; !strings.Contains(fl, "shear-rate-extrapolated") {
+		t.Errorf("flags %q lack the extrapolation at 0.25 1/s (measured 0.5–500)", fl)
 	}
 }
 
@@ -331,7 +332,10 @@ func TestUncertaintyIgnoredFlag(t *testing.T) {
 		t.Fatal(err)
 	}
 	for i, want := range []bool{false, true, false} {
-		flags := recs[i+1][len(recs[i+1])-1]
+		flags := recs[i+1][slices.Index(recs[0], "flags")]
+		if reason := recs[i+1][slices.Index(recs[0], "flag_reasons")]; want != strings.Contains(reason, "±") {
+			t.Errorf("row %q: reasons %q", recs[i+1][0], reason)
+		}
 		if got := strings.Contains(flags, WarnUncertaintyIgnored); got != want {
 			t.Errorf("row %q: flags %q, %s expected %v", recs[i+1][0], flags, WarnUncertaintyIgnored, want)
 		}

@@ -22,7 +22,8 @@ type processor struct {
 	vals            []string
 	cells           *rowCells
 	scratch         scratch
-	growth          int // expected output bytes per input byte, in quarters
+	growth          int  // expected output bytes per input byte, in quarters
+	shapeConst      bool // --shape names every row's shape
 }
 
 // buffers recycles chunks' output buffers: the writer returns each one
@@ -43,8 +44,8 @@ func putBuffer(b []byte) {
 }
 
 func (p *processor) process(c *chunk) result {
-	res := result{seq: c.seq, flags: map[string]int{}}
-	var counts flagCounts
+	res := result{seq: c.seq, flags: map[string]int{}, assumed: map[string]int{}}
+	var counts, assumed flagCounts
 	row := 0 // within the chunk; the writer adds the rows before it
 	for _, l := range c.overlong {
 		row++
@@ -63,7 +64,9 @@ func (p *processor) process(c *chunk) result {
 		}
 		if p.cells == nil {
 			p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty, p.cfg.Missing)
+			_, _, _, p.shapeConst = p.cfg.Constants.Lookup(inputs.Shape)
 		}
+		p.scratch.shapeGiven = p.shapeGiven(fields)
 		var seed uint64
 		if p.cfg.Uncertainty {
 			seed = p.cfg.Seed ^ fnv64(rec)
@@ -74,6 +77,7 @@ func (p *processor) process(c *chunk) result {
 		}
 		if err == nil && !p.cfg.Uncertainty && !direct && p.cells.uncertain {
 			o.flags = append(o.flags, WarnUncertaintyIgnored)
+			o.ignored = true
 		}
 		if err != nil {
 			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: strings.Clone(rec)}
@@ -91,13 +95,16 @@ func (p *processor) process(c *chunk) result {
 		for _, f := range o.flags {
 			counts.add(f)
 		}
+		for _, a := range o.assumed {
+			assumed.add(a)
+		}
 		if p.cfg.FlaggedOnly && len(o.flags) == 0 {
 			res.filtered++
 			return
 		}
 		res.written++
 		if p.cfg.OutFormat != CSV && p.cfg.OutFormat != TSV {
-			p.vals = o.values(p.vals[:0], p.cfg.Uncertainty)
+			p.vals = o.values(p.vals[:0], p.cfg.Uncertainty, &p.scratch)
 		}
 		switch p.cfg.OutFormat {
 		case CSV, TSV:
@@ -111,7 +118,7 @@ func (p *processor) process(c *chunk) result {
 					out = appendField(out, f, p.outDelim)
 				}
 			}
-			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty)
+			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty, &p.scratch)
 			out = append(out, '\n')
 		case JSONL:
 			out = p.appendJSON(out, fields, keys, raws)
@@ -143,6 +150,9 @@ func (p *processor) process(c *chunk) result {
 	}
 	for _, fc := range counts {
 		res.flags[fc.code] += fc.n
+	}
+	for _, fc := range assumed {
+		res.assumed[fc.code] += fc.n
 	}
 	res.out = out
 	if len(c.data) > 0 {
@@ -241,7 +251,16 @@ func (p *processor) appendJSON(b []byte, fields, keys []string, raws []json.RawM
 	return append(b, '}')
 }
 
-var textColumn = map[string]bool{"regime": true, "drag_law": true, "power_kind": true, "flags": true}
+var textColumn = map[string]bool{"regime": true, "drag_law": true, "power_kind": true, "flags": true, "flag_reasons": true, "assumed": true}
+
+// shapeGiven reports whether a row names its shape: in its shape column,
+// else by a constant (--shape).
+func (p *processor) shapeGiven(fields []string) bool {
+	if c := p.m.col[inputs.Shape]; c >= 0 {
+		return c < len(fields) && strings.TrimSpace(fields[c]) != ""
+	}
+	return p.shapeConst
+}
 
 func renderTable(w io.Writer, rows [][]string) error {
 	if len(rows) == 0 {

@@ -18,7 +18,7 @@ import (
 // Computed are the columns appended to every output row, in order.
 var Computed = []string{
 	"density_kg_m3", "kinematic_viscosity_m2_s", "reynolds", "regime", "strouhal",
-	"drag_law", "drag_N", "power_kind", "power_W", "flags",
+	"drag_law", "drag_N", "power_kind", "power_W", "flags", "flag_reasons", "assumed",
 }
 
 // UncertaintyColumns follow Computed when uncertainty is propagated.
@@ -279,7 +279,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 		KinematicViscosity: p.KinematicViscosity, Rheology: p.Rheology, PressurePa: p.PressurePa, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 	for _, w := range p.Warnings {
-		e.p.Warnings = append(e.p.Warnings, media.Warning{Code: w.Code})
+		e.p.Warnings = append(e.p.Warnings, media.Warning{Code: w.Code, Detail: w.Detail})
 	}
 	sh.mu.Lock()
 	if len(sh.m) >= shardLimit {
@@ -306,15 +306,20 @@ func (mc *mediumCache) properties(c media.Conditions) (media.Properties, error) 
 // outcome is one computed row; r and flags belong to the worker's scratch
 // and are valid until its next row.
 type outcome struct {
-	r     *regime.Result
-	flags []string
-	unc   *regime.Uncertainty
+	r       *regime.Result
+	flags   []string
+	assumed []string
+	ignored bool // a ± was read and not propagated (WarnUncertaintyIgnored)
+	unc     *regime.Uncertainty
 }
 
 // scratch is a worker's reusable space for one row's results.
 type scratch struct {
-	r     regime.Result
-	flags []string
+	r          regime.Result
+	flags      []string
+	assumed    []string
+	reasons    []byte
+	shapeGiven bool // the row names its shape (set before each row)
 }
 
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
@@ -362,6 +367,8 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 	}
 	s.flags = flagCodes(s.flags[:0], r.Warnings)
 	o.flags = s.flags
+	s.assumed = Assumptions(s.assumed[:0], in, r, s.shapeGiven)
+	o.assumed = s.assumed
 	return o, nil
 }
 
@@ -389,14 +396,24 @@ func appendNum(b []byte, v float64) []byte {
 	return decimal.AppendG(b, v, 6)
 }
 
+// reasons returns the flags' reasons, built in s.reasons; "" without flags.
+func (o outcome) reasons(s *scratch) []byte {
+	s.reasons = s.reasons[:0]
+	if len(o.flags) > 0 {
+		s.reasons = appendReasons(s.reasons, o.r.Warnings, &o.r.Medium, o.ignored)
+	}
+	return s.reasons
+}
+
 // values returns the computed columns as text, in the order of columns().
-func (o outcome) values(dst []string, withUnc bool) []string {
+func (o outcome) values(dst []string, withUnc bool, s *scratch) []string {
 	r := o.r
 	var buf [32]byte
 	num := func(v float64) string { return string(appendNum(buf[:0], v)) }
 	dst = append(dst,
 		num(r.Medium.Density), num(r.Viscosity/r.Medium.Density), num(r.Reynolds), r.Regime, num(r.Strouhal),
 		r.Drag.Chosen.Law, num(r.Drag.Chosen.Force), r.Power.Kind, num(r.Power.Total), strings.Join(o.flags, ";"),
+		string(o.reasons(s)), strings.Join(o.assumed, ";"),
 	)
 	if withUnc {
 		for _, v := range o.uncValues() {
@@ -435,7 +452,7 @@ func (o outcome) uncValues() []float64 {
 
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
 // by the delimiter, without building intermediate strings.
-func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
+func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byte {
 	r := o.r
 	b = slices.Grow(b, 256)
 	b = appendNum(append(b, delim), r.Medium.Density)
@@ -453,6 +470,17 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool) []byte {
 			b = append(b, ';')
 		}
 		b = append(b, f...)
+	}
+	b = append(b, delim)
+	if len(o.flags) > 0 {
+		b = appendBytesField(b, o.reasons(s), delim)
+	}
+	b = append(b, delim)
+	for i, a := range o.assumed {
+		if i > 0 {
+			b = append(b, ';')
+		}
+		b = append(b, a...)
 	}
 	if withUnc {
 		for _, v := range o.uncValues() {

@@ -25,6 +25,7 @@ import (
 
 type batchOptions struct {
 	input, inFormat, outFormat, output, rejects, names string
+	record                                             string
 	columns, units, ignore, missing                    []string
 	flaggedOnly, quiet, mediaAnywhere, explain         bool
 	workers                                            int
@@ -38,7 +39,7 @@ type batchOptions struct {
 
 const batchHelp = `Read a survey table (CSV, TSV or JSON Lines; FILE or - for stdin) and
 write every row back with computed columns appended:
-  ` + "density_kg_m3, kinematic_viscosity_m2_s, reynolds, regime, strouhal, drag_law, drag_N, power_kind, power_W, flags" + `
+  ` + "density_kg_m3, kinematic_viscosity_m2_s, reynolds, regime, strouhal, drag_law, drag_N, power_kind, power_W, flags, flag_reasons, assumed" + `
 Input columns are carried through unchanged and in order.
 
 Columns are matched to quantities by header, with units taken from the
@@ -80,13 +81,19 @@ reason, record) or, without it, one line each to stderr; the exit status is
 3 when any row was rejected. Blank lines are skipped and counted.
 
 The flags column names in plain words what looks wrong: a Strouhal number
-outside 0.05–1 (strouhal-outside-animals), a speed in body lengths per
+outside 0.05–1 for a swimmer or below 0.05 for a flyer (above 1 is slow or
+hovering flight) (strouhal-outside-animals), a speed in body lengths per
 second beyond known organisms (speed-beyond-known), a correlation used
 outside its range (correlation-out-of-range), a medium condition outside a
 method's range (medium-out-of-range), inconsistent inputs such as an
 amplitude larger than the body or a wingspan without a mass
 (inconsistent-inputs), and model limits (model-limit, drag-crisis,
-geometry). --flagged-only keeps only flagged rows.
+geometry). --flagged-only keeps only flagged rows. flag_reasons gives each
+flag's reason with its value ("strouhal 2.08 > 1 for a swimmer"), separated
+by " | ". The assumed column lists, joined by ";", the defaults that changed
+the row's result (temperature=20C, salinity=35g/kg, shape=sphere,
+efficiency=1, flapping, induced-factor=1.15, profile-power=1.2Pam, …); the
+end summary counts each.
 
 Uncertainty: a column named after another with "sd" — "length sd",
 "length_sd", "length (mm) sd" — holds that quantity's standard
@@ -137,6 +144,7 @@ func newBatchCmd(s Streams) *cobra.Command {
 	fs.StringVar(&o.outFormat, "format", "", "output: csv, tsv, jsonl or table (default: from -o's extension, else csv)")
 	fs.StringVarP(&o.output, "output", "o", "", "output file (written atomically); default stdout")
 	fs.StringVar(&o.rejects, "rejects", "", "file for rows that could not be computed (CSV)")
+	fs.StringVar(&o.record, "record", "", "write a run record (JSON: version, command line, column mapping, constants, counts, flags, assumptions) to this file, atomically")
 	fs.StringVar(&o.names, "names", "", "comma-separated column names of a headerless input (output gets no header)")
 	fs.IntVar(&o.firstLine, "first-line", 1, "number rejects' lines from N: the input is a shard whose first line is line N of the original file")
 	fs.BoolVar(&o.flaggedOnly, "flagged-only", false, "write only rows with flags")
@@ -201,6 +209,9 @@ func (o *batchOptions) outputFiles(s Streams) []namedFile {
 	}
 	if o.rejects != "" {
 		outs = append(outs, namedFile{what: "--rejects " + o.rejects, path: o.rejects})
+	}
+	if o.record != "" {
+		outs = append(outs, namedFile{what: "--record " + o.record, path: o.record})
 	}
 	return outs
 }
@@ -464,8 +475,16 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 			return fmt.Errorf("cannot write %s: %v", o.output, withoutPath(err))
 		}
 	}
+	if o.record != "" {
+		if err := writeRecord(o.record, s, newRunRecord(o, s, cfg, sum)); err != nil {
+			return err
+		}
+	}
 	if !o.quiet {
 		fmt.Fprintln(s.Err, report.Printable(summaryLine(sum, o.rejects)))
+		for _, l := range assumedLines(sum.Assumed) {
+			fmt.Fprintln(s.Err, l)
+		}
 	}
 	if sum.Rejected > 0 {
 		return exitError{code: ExitRejected}
@@ -533,4 +552,24 @@ func summaryLine(sum batch.Summary, rejects string) string {
 		}
 	}
 	return b.String()
+}
+
+// assumedLines name, one line each, the defaults and assumptions that
+// changed results, with the number of rows each changed; the "assumed"
+// column marks the rows.
+func assumedLines(counts map[string]int) []string {
+	codes := make([]string, 0, len(counts))
+	for c := range counts {
+		codes = append(codes, c)
+	}
+	sort.Strings(codes)
+	lines := make([]string, 0, len(codes))
+	for _, c := range codes {
+		rows := "rows"
+		if counts[c] == 1 {
+			rows = "row"
+		}
+		lines = append(lines, fmt.Sprintf("flowregime: batch: assumed %s in %d %s: %s", c, counts[c], rows, batch.AssumedMeaning[c]))
+	}
+	return lines
 }

@@ -246,6 +246,9 @@ func runCalc(o *calcOptions, s Streams) error {
 	case report.FormatJSON:
 		j := newCalcJSON(r)
 		j.Uncertainty = newUncertaintyJSON(unc)
+		src := merge(o.organism.source(), o.flags.source())
+		j.Inputs = resolvedInputs(src, in)
+		j.Assumed = assumedList(&in, &r, src["shape"] != "")
 		return report.JSON(s.Out, j)
 	case report.FormatCSV:
 		return report.Fields(s.Out, o.format, append(append(calcFields(r, false), uncertaintyFields(unc)...), report.Field{Key: "warnings", Value: strings.Join(warningTexts(r.Warnings), "; ")}))
@@ -259,6 +262,8 @@ func runCalc(o *calcOptions, s Streams) error {
 	}
 	report.Paragraph(s.Out, "", fmt.Sprintf("C_D of %s is on the %s.", r.Drag.Chosen.Law, r.Drag.Chosen.AreaName))
 	report.List(s.Out, "Medium", []string{mediumLine(m)})
+	src := merge(o.organism.source(), o.flags.source())
+	report.List(s.Out, "Assumed (defaults that changed the result)", assumedTexts(assumedList(&in, &r, src["shape"] != "")))
 	report.List(s.Out, "Warnings", warningTexts(r.Warnings))
 	return nil
 }

@@ -12,28 +12,30 @@ import (
 
 // calcJSON is the object `calc --format json` prints; scripts read these names.
 type calcJSON struct {
-	Reynolds         float64          `json:"reynolds"`
-	ReynoldsLength   string           `json:"reynolds_length"`
-	Regime           string           `json:"regime"`
-	BoundaryLayer    string           `json:"boundary_layer,omitempty"`
-	Strouhal         *float64         `json:"strouhal"`
-	StrouhalBand     string           `json:"strouhal_band,omitempty"`
-	AdvanceRatio     *float64         `json:"advance_ratio,omitempty"`
-	ReducedFrequency *float64         `json:"reduced_frequency,omitempty"`
-	Drag             dragJSON         `json:"drag"`
-	Power            powerJSON        `json:"power"`
-	CoastTime        *float64         `json:"coasting_time_s,omitempty"`
-	CoastDistance    *float64         `json:"coasting_distance_m,omitempty"`
-	CoastStops       *bool            `json:"coasting_stops,omitempty"`
-	Peclet           *float64         `json:"peclet,omitempty"`
-	GeneralizedRe    *float64         `json:"generalized_reynolds,omitempty"`
-	BinghamNumber    *float64         `json:"bingham_number,omitempty"`
-	Deborah          *float64         `json:"deborah,omitempty"`
-	Weissenberg      *float64         `json:"weissenberg,omitempty"`
-	Diffusivity      *float64         `json:"diffusivity_m2_s,omitempty"`
-	Medium           mediumJSON       `json:"medium"`
-	Warnings         []string         `json:"warnings"`
-	Uncertainty      *uncertaintyJSON `json:"uncertainty,omitempty"`
+	Reynolds         float64                 `json:"reynolds"`
+	ReynoldsLength   string                  `json:"reynolds_length"`
+	Regime           string                  `json:"regime"`
+	BoundaryLayer    string                  `json:"boundary_layer,omitempty"`
+	Strouhal         *float64                `json:"strouhal"`
+	StrouhalBand     string                  `json:"strouhal_band,omitempty"`
+	AdvanceRatio     *float64                `json:"advance_ratio,omitempty"`
+	ReducedFrequency *float64                `json:"reduced_frequency,omitempty"`
+	Drag             dragJSON                `json:"drag"`
+	Power            powerJSON               `json:"power"`
+	CoastTime        *float64                `json:"coasting_time_s,omitempty"`
+	CoastDistance    *float64                `json:"coasting_distance_m,omitempty"`
+	CoastStops       *bool                   `json:"coasting_stops,omitempty"`
+	Peclet           *float64                `json:"peclet,omitempty"`
+	GeneralizedRe    *float64                `json:"generalized_reynolds,omitempty"`
+	BinghamNumber    *float64                `json:"bingham_number,omitempty"`
+	Deborah          *float64                `json:"deborah,omitempty"`
+	Weissenberg      *float64                `json:"weissenberg,omitempty"`
+	Diffusivity      *float64                `json:"diffusivity_m2_s,omitempty"`
+	Medium           mediumJSON              `json:"medium"`
+	Warnings         []string                `json:"warnings"`
+	Uncertainty      *uncertaintyJSON        `json:"uncertainty,omitempty"`
+	Inputs           map[string]resolvedJSON `json:"inputs"`  // as used, in SI
+	Assumed          []assumedJSON           `json:"assumed"` // defaults that changed the result
 }
 
 type bandJSON struct {

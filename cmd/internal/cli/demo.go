@@ -103,6 +103,12 @@ func runDemo(s Streams) error {
 	}
 	sort.Strings(keys)
 	report.Paragraph(w, "", fmt.Sprintf("Flags over the survey: %s.", strings.Join(keys, ", ")))
+	if len(sum.Assumed) > 0 {
+		fmt.Fprintln(w, "Defaults used (the assumed column marks each row):")
+		for _, l := range assumedLines(sum.Assumed) {
+			report.Paragraph(w, "    ", "  "+strings.TrimPrefix(l, "flowregime: batch: assumed "))
+		}
+	}
 	fmt.Fprintln(w, `
 Next:
   flowregime demo --data > survey.csv

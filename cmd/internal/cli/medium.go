@@ -50,7 +50,7 @@ measured shear-rate range.
 }
 
 func runMedium(o *mediumOptions, s Streams) error {
-	p, err := o.flags.lookup(o.medium)
+	p, err := o.flags.lookup("medium", o.medium)
 	if err != nil {
 		return err
 	}

@@ -52,7 +52,11 @@ func (m *mediumFlags) source() inputs.Flags {
 }
 
 // lookup parses the flags and evaluates the named medium.
-func (m *mediumFlags) lookup(medium string) (media.Properties, error) {
+// An uncertainty in a flag is refused: command does not propagate it.
+func (m *mediumFlags) lookup(command, medium string) (media.Properties, error) {
+	if err := refuseUncertain(command, m.source()); err != nil {
+		return media.Properties{}, err
+	}
 	c, err := inputs.Conditions(m.source(), medium)
 	if err != nil {
 		return media.Properties{}, usageError{err}

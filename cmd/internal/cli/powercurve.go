@@ -102,6 +102,17 @@ func computePowerCurve(o *powerCurveOptions) (regime.PowerCurve, error) {
 	if o.steps < 3 || o.steps > 10000 {
 		return regime.PowerCurve{}, usagef("--steps %d: give 3 to 10000", o.steps)
 	}
+	for _, r := range []struct {
+		flag, text string
+		v          quantity.Value
+	}{{"from", o.from, lo}, {"to", o.to, hi}} {
+		if err := refuseUncertainValue("powercurve", r.flag, r.text, r.v); err != nil {
+			return regime.PowerCurve{}, err
+		}
+	}
+	if err := refuseUncertain("powercurve", merge(o.organism.source(), o.flags.source())); err != nil {
+		return regime.PowerCurve{}, err
+	}
 	in, m, err := o.inputs(false, map[string]string{"speed": o.from}) // the curve sets the speed itself
 	if err != nil {
 		return regime.PowerCurve{}, err

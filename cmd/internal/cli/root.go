@@ -24,6 +24,7 @@ type Streams struct {
 	Err io.Writer
 
 	outs *outputSet // the run's temporary files; set by Main
+	args []string   // the command line after the program's name; set by Main
 }
 
 // Exit codes.
@@ -81,7 +82,9 @@ really lives in, and what drag and power follow from the law that fits.
 ` + estimateNotice,
 		SilenceErrors: true,
 		SilenceUsage:  true,
+		Version:       BuildInfo().String(),
 	}
+	root.SetVersionTemplate("{{.Version}}")
 	root.SetIn(s.In)
 	root.SetOut(s.Out)
 	root.SetErr(s.Err)
@@ -117,7 +120,7 @@ func Main(args []string, s Streams) int {
 	ctx, cancel := context.WithCancel(context.Background())
 	defer cancel()
 	out := &checkedWriter{w: s.Out}
-	s.Out, s.outs = out, newOutputSet()
+	s.Out, s.outs, s.args = out, newOutputSet(), args
 	done := make(chan int, 1)
 	go func() {
 		defer func() {

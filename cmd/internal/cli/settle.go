@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
@@ -74,24 +76,16 @@ func (o *settleOptions) particle() (regime.Particle, error) {
 		return regime.Particle{}, usagef("settle needs --diameter and --density, e.g. --diameter 150um --density 1.06g/cm3")
 	}
 	p := regime.Particle{Shape: regime.Sphere, Length: math.NaN()}
-	for _, f := range []struct {
-		flag, text string
-		kind       quantity.Kind
-		dst        *float64
-	}{
-		{"diameter", o.diameter, quantity.Length, &p.Diameter},
-		{"length", o.length, quantity.Length, &p.Length},
-		{"density", o.density, quantity.Density, &p.Density},
-		{"shear-rate", o.shearRate, quantity.ShearRate, &p.ShearRate},
-		{"corey-shape", o.coreyShape, quantity.Number, &p.CoreyShape},
-		{"roundness", o.roundness, quantity.Number, &p.Roundness},
-	} {
+	for _, f := range o.particleFields(&p) {
 		if f.text == "" {
 			continue
 		}
 		v, err := quantity.Parse(f.kind, f.text)
 		if err != nil {
 			return p, usagef("--%s: %v", f.flag, err)
+		}
+		if err := refuseUncertainValue("settle", f.flag, f.text, v); err != nil {
+			return p, err
 		}
 		if !(v.SI > 0) {
 			u := quantity.SIUnit(f.kind)
@@ -126,7 +120,7 @@ func runSettle(o *settleOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
-	m, err := o.flags.lookup(o.medium)
+	m, err := o.flags.lookup("settle", o.medium)
 	if err != nil {
 		return err
 	}
@@ -137,7 +131,9 @@ func runSettle(o *settleOptions, s Streams) error {
 	ws := append(append([]media.Warning{}, m.Warnings...), r.Warnings...)
 	switch o.format {
 	case report.FormatJSON:
+		ins, assumed := o.settleInputs(p, m)
 		return report.JSON(s.Out, settleJSON{
+			Inputs: ins, Assumed: assumed,
 			Speed: r.Speed, Direction: r.Direction, Reynolds: r.Reynolds, ReynoldsBasis: r.Basis,
 			Drag:        settleDragJSON{Law: r.Law, Source: r.Source, Coefficient: report.Opt(r.Coefficient), Force: r.Force},
 			StokesSpeed: r.StokesSpeed, Archimedes: r.Archimedes, Cunningham: r.Cunningham, Knudsen: report.Opt(r.Knudsen),
@@ -179,20 +175,22 @@ func settleFields(r regime.Settling) []report.Field {
 }
 
 type settleJSON struct {
-	Speed          float64        `json:"terminal_speed_m_s"`
-	Direction      string         `json:"direction"`
-	Reynolds       float64        `json:"reynolds"`
-	ReynoldsBasis  string         `json:"reynolds_on"`
-	Drag           settleDragJSON `json:"drag"`
-	StokesSpeed    float64        `json:"stokes_speed_m_s"`
-	Archimedes     float64        `json:"archimedes"`
-	Cunningham     float64        `json:"cunningham"`
-	Knudsen        *float64       `json:"knudsen,omitempty"`
-	GeneralizedRe  *float64       `json:"generalized_reynolds,omitempty"`
-	BinghamNumber  *float64       `json:"bingham_number,omitempty"`
-	YieldParameter *float64       `json:"yield_parameter,omitempty"`
-	Medium         mediumJSON     `json:"medium"`
-	Warnings       []string       `json:"warnings"`
+	Speed          float64                 `json:"terminal_speed_m_s"`
+	Direction      string                  `json:"direction"`
+	Reynolds       float64                 `json:"reynolds"`
+	ReynoldsBasis  string                  `json:"reynolds_on"`
+	Drag           settleDragJSON          `json:"drag"`
+	StokesSpeed    float64                 `json:"stokes_speed_m_s"`
+	Archimedes     float64                 `json:"archimedes"`
+	Cunningham     float64                 `json:"cunningham"`
+	Knudsen        *float64                `json:"knudsen,omitempty"`
+	GeneralizedRe  *float64                `json:"generalized_reynolds,omitempty"`
+	BinghamNumber  *float64                `json:"bingham_number,omitempty"`
+	YieldParameter *float64                `json:"yield_parameter,omitempty"`
+	Medium         mediumJSON              `json:"medium"`
+	Warnings       []string                `json:"warnings"`
+	Inputs         map[string]resolvedJSON `json:"inputs"`  // as used, in SI
+	Assumed        []assumedJSON           `json:"assumed"` // defaults that changed the result
 }
 
 type settleDragJSON struct {
@@ -208,4 +206,44 @@ func settleMediumJSON(m media.Properties, r regime.Settling) mediumJSON {
 		j.ShearRate, j.ApparentViscosity = report.Opt(r.ShearRate), report.Opt(r.Viscosity)
 	}
 	return j
+}
+
+// particleFlag is one numeric flag of settle and where its value goes.
+type particleFlag struct {
+	flag, text string
+	kind       quantity.Kind
+	dst        *float64
+}
+
+// particleFields lists settle's numeric flags, writing into p.
+func (o *settleOptions) particleFields(p *regime.Particle) []particleFlag {
+	return []particleFlag{
+		{"diameter", o.diameter, quantity.Length, &p.Diameter},
+		{"length", o.length, quantity.Length, &p.Length},
+		{"density", o.density, quantity.Density, &p.Density},
+		{"shear-rate", o.shearRate, quantity.ShearRate, &p.ShearRate},
+		{"corey-shape", o.coreyShape, quantity.Number, &p.CoreyShape},
+		{"roundness", o.roundness, quantity.Number, &p.Roundness},
+	}
+}
+
+// settleInputs returns settle's numeric inputs as used, in SI units, and
+// the defaults that changed the result.
+func (o *settleOptions) settleInputs(p regime.Particle, m media.Properties) (map[string]resolvedJSON, []assumedJSON) {
+	in := map[string]resolvedJSON{}
+	for _, f := range o.particleFields(&p) {
+		if f.text != "" {
+			in[f.flag] = resolvedJSON{Value: *f.dst, Unit: quantity.SIUnit(f.kind), Given: f.text}
+		}
+	}
+	c, err := inputs.Conditions(o.flags.source(), o.medium)
+	if err != nil { // already read without error by lookup
+		return in, nil
+	}
+	assumed := batch.MediumAssumptions(nil, &c, &m)
+	list := []assumedJSON{}
+	for _, a := range assumed {
+		list = append(list, assumedJSON{Code: a, Meaning: batch.AssumedMeaning[a]})
+	}
+	return in, list
 }

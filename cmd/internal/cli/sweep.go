@@ -80,6 +80,9 @@ func parseVary(v string) (int, float64, float64, error) {
 	if err != nil {
 		return 0, 0, 0, usagef("--vary %s: to: %v", name, err)
 	}
+	if a.SD > 0 || b.SD > 0 {
+		return 0, 0, 0, usagef("--vary %s=%s:%s: a sweep's ends carry no uncertainty (±); give the values alone", name, from, to)
+	}
 	if a.PerBodyLength || b.PerBodyLength {
 		return 0, 0, 0, usagef("--vary speed: give speeds in m/s, mm/s, … (BL/s is not swept)")
 	}
@@ -126,6 +129,9 @@ func runSweep(o *sweepOptions, s Streams) error {
 	// that required inputs are present.
 	if src[inputs.Fields[f].Name] == "" {
 		src[inputs.Fields[f].Name] = fmt.Sprintf("%g%s", from, map[bool]string{true: "", false: firstUnit(inputs.Fields[f].Kind)}[firstUnit(inputs.Fields[f].Kind) == ""])
+	}
+	if err := refuseUncertain("sweep", src); err != nil {
+		return err
 	}
 	base, err := inputs.Build(src, o.medium, false)
 	if err != nil {
