@@ -2,6 +2,7 @@ package cli
 
 import (
 	"fmt"
+	"github.com/flowregime/flowregime/cmd/internal/report"
 	"io"
 	"strings"
 
@@ -38,28 +39,27 @@ func newColumnsCmd(s Streams) *cobra.Command {
 // writeColumns lists every input field: its name, flag, units and
 // spellings, and the missing-value texts.
 func writeColumns(w io.Writer) error {
-	var b strings.Builder
+	line := func(indent, text string) { report.Paragraph(w, indent, text) }
 	for _, f := range inputs.Fields {
-		fmt.Fprintf(&b, "%s (flag --%s)\n", f.Name, f.Flag)
+		line("", fmt.Sprintf("%s (flag --%s)", f.Name, f.Flag))
 		switch {
 		case f.Text:
-			b.WriteString("  a word\n")
+			line("    ", "  a word")
 		default:
 			units := quantity.Units(f.Kind)
 			if _, bare := quantity.Resolve(f.Kind, ""); bare {
 				units = append([]string{"a bare number"}, units...)
 			}
 			if len(units) > 0 {
-				fmt.Fprintf(&b, "  units: %s\n", strings.Join(units, ", "))
+				line("    ", "  units: "+strings.Join(units, ", "))
 			}
 		}
 		if len(f.Aliases) > 0 {
-			fmt.Fprintf(&b, "  also written: %s\n", strings.Join(f.Aliases, ", "))
+			line("    ", "  also written: "+strings.Join(f.Aliases, ", "))
 		}
 	}
-	fmt.Fprintf(&b, "salinity is also read from a header that is its unit: psu, ppt, ‰\n")
-	fmt.Fprintf(&b, "uncertainty: a column named after a quantity with \"sd\" (\"length sd\", \"length (mm) sd\")\n")
-	fmt.Fprintf(&b, "missing values (--missing): a blank cell, %s\n", strings.Join(inputs.DefaultMissing, " "))
-	_, err := io.WriteString(w, b.String())
-	return err
+	line("", "salinity is also read from a header that is its unit: psu, ppt, ‰")
+	line("", `uncertainty: a column named after a quantity with "sd" ("length sd", "length (mm) sd")`)
+	line("", "missing values (--missing): a blank cell, "+strings.Join(inputs.DefaultMissing, " "))
+	return nil
 }

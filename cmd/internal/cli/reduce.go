@@ -566,7 +566,7 @@ func writeFitSummary(w io.Writer, rep media.FitReport) {
 	for i, p := range best.Params {
 		ps = append(ps, fmt.Sprintf("%s = %s ± %s", p.Name, report.Num(p.Value, 4), report.Num(best.StdErrors[i], 2)))
 	}
-	fmt.Fprintf(w, "Fit: best model %s (class %s), R² (ln τ) %s: %s\n", rep.Best, rep.Class, report.Num(best.R2, 5), strings.Join(ps, ", "))
+	report.Paragraph(w, "  ", fmt.Sprintf("Fit: best model %s (class %s), R² (ln τ) %s: %s", rep.Best, rep.Class, report.Num(best.R2, 5), strings.Join(ps, ", ")))
 	var ws []string
 	ws = append(ws, rep.Warnings...)
 	ws = append(ws, best.Warnings...)

@@ -23,6 +23,8 @@ var widthCases = [][]string{
 	{"demo"},
 	{"batch", lakesideCSV, "--format", "table", "-q"},
 	{"tabulate", lakesideCSV, "--by", "taxon", "--fit", "power_W=mass", "--fit", "mass=length"},
+	{"columns"},
+	{"reduce", "../../../testdata/rheometry/snail_couette.csv", "--geometry", "couette", "--bob-radius", "12.5mm", "--cup-radius", "13.6mm", "--bob-length", "37.5mm", "--fit"},
 }
 
 // At 80 and 120 columns no line of any command's output is wider than the
