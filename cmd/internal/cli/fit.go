@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
@@ -194,26 +193,14 @@ func runFit(o *fitOptions, s Streams) error {
 	if err != nil {
 		return err
 	}
-	ins := []namedFile{{what: "the input " + o.input, path: o.input}}
-	if o.input == "-" {
-		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
-	}
-	outs := []namedFile{{what: "the standard output", file: stdFile(s.Out)}}
-	if o.save != "" {
-		outs = append(outs, namedFile{what: "--save " + o.save, path: o.save})
-	}
-	if err := checkOutputs(ins, outs); err != nil {
+	if err := checkOutputs(tableFiles(s, o.input, namedFile{what: "--save " + o.save, path: o.save})); err != nil {
 		return err
 	}
-	var in io.Reader = s.In
-	if o.input != "-" {
-		f, err := os.Open(o.input)
-		if err != nil {
-			return fmt.Errorf("cannot read %s: %v", o.input, err)
-		}
-		defer f.Close()
-		in = f
+	in, done, err := openTable(s, o.input)
+	if err != nil {
+		return err
 	}
+	defer done()
 	tsv := o.inFormat == "tsv" || o.inFormat == "" && formatFromName(o.input) == "tsv"
 	pts, err := readRheometer(in, tsv, units)
 	if err != nil {

@@ -143,3 +143,33 @@ func writeFailure(name string, f *atomicFile) error {
 	}
 	return nil
 }
+
+// tableFiles names a command's input table (a path, or "-" for the
+// standard input) and its outputs (the standard output and each named
+// file whose path is set), for checkOutputs.
+func tableFiles(s Streams, input string, files ...namedFile) (ins, outs []namedFile) {
+	ins = []namedFile{{what: "the input " + input, path: input}}
+	if input == "-" {
+		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
+	}
+	outs = []namedFile{{what: "the standard output", file: stdFile(s.Out)}}
+	for _, f := range files {
+		if f.path != "" {
+			outs = append(outs, f)
+		}
+	}
+	return ins, outs
+}
+
+// openTable opens the input table, or hands back the standard input for
+// "-"; done closes what was opened.
+func openTable(s Streams, input string) (in io.Reader, done func(), err error) {
+	if input == "-" {
+		return s.In, func() {}, nil
+	}
+	f, err := os.Open(input)
+	if err != nil {
+		return nil, nil, fmt.Errorf("cannot read %s: %v", input, err)
+	}
+	return f, func() { f.Close() }, nil
+}

@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -225,22 +224,6 @@ func (o *reduceOptions) geometryFromFlags() (media.Geometry, error) {
 	return media.FallingBall{BallDiameter: v[0], TubeDiameter: v[1], BallDensity: v[2], FluidDensity: v[3], Wall: o.wall}, nil
 }
 
-// files names the reduce command's input and outputs for checkOutputs.
-func (o *reduceOptions) files(s Streams) (ins, outs []namedFile) {
-	ins = []namedFile{{what: "the input " + o.input, path: o.input}}
-	if o.input == "-" {
-		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
-	}
-	outs = []namedFile{{what: "the standard output", file: stdFile(s.Out)}}
-	if o.output != "" {
-		outs = append(outs, namedFile{what: "-o " + o.output, path: o.output})
-	}
-	if o.save != "" {
-		outs = append(outs, namedFile{what: "--save " + o.save, path: o.save})
-	}
-	return ins, outs
-}
-
 func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 	if o.window < 3 {
 		return usagef("--window %d: a local quadratic needs 3 readings or more", o.window)
@@ -255,22 +238,18 @@ func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 	if o.output != "" && o.output == o.save {
 		return usagef("-o and --save name the same file %s", o.output)
 	}
-	if err := checkOutputs(o.files(s)); err != nil {
+	if err := checkOutputs(tableFiles(s, o.input, namedFile{what: "-o " + o.output, path: o.output}, namedFile{what: "--save " + o.save, path: o.save})); err != nil {
 		return err
 	}
 	units, err := keyValues("unit", o.units)
 	if err != nil {
 		return err
 	}
-	var in io.Reader = s.In
-	if o.input != "-" {
-		f, err := os.Open(o.input)
-		if err != nil {
-			return fmt.Errorf("cannot read %s: %v", o.input, err)
-		}
-		defer f.Close()
-		in = f
+	in, done, err := openTable(s, o.input)
+	if err != nil {
+		return err
 	}
+	defer done()
 	tsv := o.inFormat == "tsv" || o.inFormat == "" && formatFromName(o.input) == "tsv"
 	byTime := falling && o.fallDistance != ""
 	table, err := readReadings(in, tsv, rolesFor(o.geometry, byTime), units)
