@@ -480,6 +480,10 @@ func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) Mod
 	}
 	for i, pr := range mf.Params {
 		if se := mf.StdErrors[i]; math.IsNaN(se) || se > math.Abs(pr.Value) && pr.Name != PYield && pr.Name != PInfinite {
+			if math.IsNaN(se) { // the curvature matrix is singular in this parameter
+				mf.Warnings = append(mf.Warnings, fmt.Sprintf("%s is not identified by these data (no standard error can be computed; value %.4g)", pr.Name, pr.Value))
+				continue
+			}
 			mf.Warnings = append(mf.Warnings, fmt.Sprintf("%s is not identified by these data (standard error %.2g against %.4g)", pr.Name, se, pr.Value))
 		}
 	}

@@ -459,3 +459,30 @@ func TestSettleHeldByYieldStress(t *testing.T) {
 		t.Errorf("got %+v, want held with Y_g above 0.143", r)
 	}
 }
+
+// fit never prints NaN or Inf, in any format, on any shipped flow curve:
+// a parameter without a standard error is said so in words (the README's
+// guarantee; a warning once printed "standard error NaN").
+func TestFitPrintsNoNaN(t *testing.T) {
+	files, _ := filepath.Glob("../../../testdata/rheology/*.csv")
+	if len(files) == 0 {
+		t.Fatal("no rheology fixtures")
+	}
+	for _, f := range files {
+		if strings.HasPrefix(filepath.Base(f), "bad_") { // the refused fixtures
+			continue
+		}
+		for _, format := range []string{"table", "json", "csv"} {
+			out, errs, code := run(t, "fit", f, "--format", format)
+			if code != ExitOK {
+				t.Errorf("%s %s: exit %d: %s", f, format, code, errs)
+				continue
+			}
+			for _, bad := range []string{"NaN", "Inf"} {
+				if strings.Contains(out+errs, bad) {
+					t.Errorf("%s --format %s prints %q", filepath.Base(f), format, bad)
+				}
+			}
+		}
+	}
+}
