@@ -199,11 +199,11 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 			})
 		}
 	case !math.IsNaN(o.Frequency):
-		note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "frequency", Value: o.Frequency, Unit: "Hz", Relation: "without an amplitude: no Strouhal number"}, func() string {
+		note.detail(&r.Warnings, WarnStrokeIncomplete, media.Detail{Quantity: "frequency", Value: o.Frequency, Unit: "Hz", Relation: "without an amplitude: no Strouhal number"}, func() string {
 			return "inputs: a frequency without an amplitude gives no Strouhal number; give the peak-to-peak amplitude"
 		})
 	case !math.IsNaN(o.Amplitude):
-		note.detail(&r.Warnings, WarnInconsistent, media.Detail{Quantity: "amplitude", Value: o.Amplitude, Unit: "m", Relation: "without a frequency: no Strouhal number"}, func() string {
+		note.detail(&r.Warnings, WarnStrokeIncomplete, media.Detail{Quantity: "amplitude", Value: o.Amplitude, Unit: "m", Relation: "without a frequency: no Strouhal number"}, func() string {
 			return "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"
 		})
 	}

@@ -18,7 +18,11 @@ const (
 	WarnGeometry      = "geometry"
 	WarnStrouhal      = "strouhal-outside-animals"
 	WarnInconsistent  = "inconsistent-inputs"
-	WarnModel         = "model-limit"
+	// WarnStrokeIncomplete notes a stroke frequency without an amplitude or
+	// the reverse: no Strouhal number, common in field data and not a sign
+	// of a wrong measurement.
+	WarnStrokeIncomplete = "stroke-incomplete"
+	WarnModel            = "model-limit"
 )
 
 func warnf(code, format string, args ...any) Warning {

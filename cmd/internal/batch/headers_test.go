@@ -362,6 +362,8 @@ func TestHeaderSpellings(t *testing.T) {
 		{"Tail/wingbeat freq (Hz)", "frequency", "Hz"},
 		{"Fin-beat frequency (Hz)", "frequency", "Hz"},
 		{"WBF (Hz)", "frequency", "Hz"},
+		{"Tail beat (Hz)", "frequency", "Hz"}, // a new user's sheet; the two-word spelling was refused
+		{"Wingbeat [Hz]", "frequency", "Hz"},
 		{"Tail Amp (cm)", "amplitude", "cm"},
 		{"Fluke amplitude (m)", "amplitude", "m"},
 		{"Stroke amplitude (cm)", "amplitude", "cm"},

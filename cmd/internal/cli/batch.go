@@ -87,8 +87,9 @@ second beyond known organisms (speed-beyond-known), a correlation used
 outside its range (correlation-out-of-range), a medium condition outside a
 method's range (medium-out-of-range), inconsistent inputs such as an
 amplitude larger than the body or a wingspan without a mass
-(inconsistent-inputs), and model limits (model-limit, drag-crisis,
-geometry). --flagged-only keeps only flagged rows. flag_reasons gives each
+(inconsistent-inputs), a stroke frequency without an amplitude or the
+reverse, so no Strouhal number (stroke-incomplete), and model limits
+(model-limit, drag-crisis, geometry). --flagged-only keeps only flagged rows. flag_reasons gives each
 flag's reason with its value ("strouhal 2.08 > 1 for a swimmer"), separated
 by " | ". The assumed column lists, joined by ";", the defaults that changed
 the row's result (temperature=20C, salinity=35g/kg, shape=sphere,

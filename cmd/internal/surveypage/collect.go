@@ -256,15 +256,16 @@ func (c *Collector) FlagKeys() []FlagKey {
 // flagMeanings say in plain words what each flag of batch means (as its
 // help states them).
 var flagMeanings = map[string]string{
-	regime.WarnStrouhal:      "Strouhal number outside 0.05–1, where swimming and flying animals are not found: check frequency, amplitude and speed",
-	regime.WarnSpeed:         "speed in body lengths per second beyond what organisms of that size are known to reach",
-	regime.WarnLawOutOfRange: "a drag correlation used outside its published range of Reynolds number",
-	media.WarnOutOfRange:     "a medium condition (temperature, salinity, pressure, …) outside a method's published range",
-	regime.WarnInconsistent:  "inputs that do not fit together, such as an amplitude larger than the body or a wingspan without a mass",
-	regime.WarnModel:         "the case lies where the model is a join or a bracket between validated laws, not a published law",
-	regime.WarnDragCrisis:    "near the drag crisis, where the drag of a bluff body drops steeply with Re and depends on surface roughness",
-	regime.WarnGeometry:      "a body shape outside the geometry the drag law was made for",
-	"uncertainty-ignored":    "a cell gives an uncertainty (±) but uncertainty was not propagated",
+	regime.WarnStrouhal:         "Strouhal number outside 0.05–1, where swimming and flying animals are not found: check frequency, amplitude and speed",
+	regime.WarnSpeed:            "speed in body lengths per second beyond what organisms of that size are known to reach",
+	regime.WarnLawOutOfRange:    "a drag correlation used outside its published range of Reynolds number",
+	media.WarnOutOfRange:        "a medium condition (temperature, salinity, pressure, …) outside a method's published range",
+	regime.WarnInconsistent:     "inputs that do not fit together, such as an amplitude larger than the body or a wingspan without a mass",
+	regime.WarnStrokeIncomplete: "a stroke frequency without an amplitude, or the reverse: no Strouhal number (common in field data)",
+	regime.WarnModel:            "the case lies where the model is a join or a bracket between validated laws, not a published law",
+	regime.WarnDragCrisis:       "near the drag crisis, where the drag of a bluff body drops steeply with Re and depends on surface roughness",
+	regime.WarnGeometry:         "a body shape outside the geometry the drag law was made for",
+	"uncertainty-ignored":       "a cell gives an uncertainty (±) but uncertainty was not propagated",
 }
 
 func flagMeaning(code string) string {
