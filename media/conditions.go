@@ -1,6 +1,7 @@
 package media
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -39,6 +40,10 @@ type Conditions struct {
 }
 
 // Unset returns Conditions for the medium with every condition unset.
+// ErrUnknownMedium is wrapped by Lookup's error for a medium name it does
+// not know (a mistake in the caller's input, not a failed computation).
+var ErrUnknownMedium = errors.New("unknown medium")
+
 func Unset(medium string) Conditions {
 	n := math.NaN()
 	return Conditions{Medium: medium, TemperatureC: n, TemperatureOffset: n, SalinityPractical: n,
@@ -92,7 +97,7 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 		if p, ok, err := lookupLab(c, brief); ok {
 			return p, err
 		}
-		return Properties{}, fmt.Errorf("media: unknown medium %q; accepted: %s, %s, or a medium file (.json)", c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
+		return Properties{}, fmt.Errorf("media: %w %q; accepted: %s, %s, or a medium file (.json)", ErrUnknownMedium, c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
 	}
 }
 

@@ -218,7 +218,7 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 	}
 	m, err := media.Lookup(in.Conditions)
 	if err != nil {
-		return in, m, fmt.Errorf("%s", trimPkg(err))
+		return in, m, lookupError(err)
 	}
 	return in, m, nil
 }

@@ -486,3 +486,28 @@ func TestFitPrintsNoNaN(t *testing.T) {
 		}
 	}
 }
+
+// A misspelled medium is a usage mistake (exit 2) in every single-case
+// command, as the README's exit-status table says (a new user's `--medium
+// sea` exited 1).
+func TestUnknownMediumIsUsage(t *testing.T) {
+	for _, args := range [][]string{
+		{"calc", "--length", "1cm", "--speed", "1cm/s", "--medium", "sea"},
+		{"medium", "sea"},
+		{"settle", "--diameter", "1mm", "--density", "2g/cm3", "--medium", "sea"},
+		{"sweep", "--vary", "temperature=0C:30C", "--steps", "3", "--length", "2mm", "--speed", "5mm/s", "--medium", "sea"},
+	} {
+		if _, errs, code := run(t, args...); code != ExitUsage || !strings.Contains(errs, `unknown medium "sea"`) {
+			t.Errorf("%v: exit %d, %q", args, code, errs)
+		}
+	}
+}
+
+// A sweep in which no step can be computed is one error with exit 1, not a
+// table of failures with exit 0.
+func TestSweepNothingComputed(t *testing.T) {
+	out, errs, code := run(t, "sweep", "--vary", "length=1e300m:1e305m", "--steps", "3", "--speed", "5mm/s")
+	if code != ExitFailure || out != "" || !strings.Contains(errs, "no step could be computed") {
+		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errs)
+	}
+}

@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"errors"
 	"fmt"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -63,9 +64,19 @@ func (m *mediumFlags) lookup(command, medium string) (media.Properties, error) {
 	}
 	p, err := media.Lookup(c)
 	if err != nil {
-		return p, fmt.Errorf("%s", trimPkg(err))
+		return p, lookupError(err)
 	}
 	return p, nil
+}
+
+// lookupError is a medium lookup's failure for the user: an unknown medium
+// name is a usage mistake (exit 2); conditions that cannot be computed are
+// not (exit 1).
+func lookupError(err error) error {
+	if errors.Is(err, media.ErrUnknownMedium) {
+		return usageError{fmt.Errorf("%s", trimPkg(err))}
+	}
+	return fmt.Errorf("%s", trimPkg(err))
 }
 
 // trimPkg removes the library's "media: " or "regime: " prefix for users.

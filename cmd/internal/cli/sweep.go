@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -139,6 +140,8 @@ func runSweep(o *sweepOptions, s Streams) error {
 	}
 	var pts []sweepPoint
 	var prev *sweepPoint
+	var firstErr error
+	computed := 0
 	for i := 0; i < o.steps; i++ {
 		t := float64(i) / float64(o.steps-1)
 		v := from + t*(to-from)
@@ -154,7 +157,11 @@ func runSweep(o *sweepOptions, s Streams) error {
 		}
 		if err != nil {
 			p.Error = trimPkg(err)
+			if firstErr == nil {
+				firstErr = err
+			}
 		} else {
+			computed++
 			p.Reynolds, p.Regime, p.Law, p.Drag, p.Power = r.Reynolds, r.Regime, r.Drag.Chosen.Law, r.Drag.Chosen.Force, r.Power.Total
 			if prev != nil && prev.Error == "" {
 				var ch []string
@@ -169,6 +176,13 @@ func runSweep(o *sweepOptions, s Streams) error {
 		}
 		pts = append(pts, p)
 		prev = &pts[len(pts)-1]
+	}
+	if computed == 0 { // nothing to show: one error, not a table of failures
+		err := fmt.Errorf("no step could be computed: %s", trimPkg(firstErr))
+		if errors.Is(firstErr, media.ErrUnknownMedium) {
+			return usageError{err}
+		}
+		return err
 	}
 	name := inputs.Fields[f].Name
 	unit := quantity.SIUnit(inputs.Fields[f].Kind)
