@@ -86,7 +86,7 @@ func TestBadInputIsOneLine(t *testing.T) {
 		want string
 		code int
 	}{
-		{[]string{"medium", "oil"}, "unknown medium \"oil\"", ExitUsage}, // a misspelled medium is a usage mistake,
+		{[]string{"medium", "oil"}, "unknown medium \"oil\"", ExitUsage}, // a misspelled medium is a usage mistake
 		{[]string{"medium"}, "needs one argument", ExitUsage},
 		{[]string{"medium", "freshwater", "--temp", "-5C"}, "below its freezing point", ExitFailure},
 		{[]string{"medium", "freshwater", "--depth", "30"}, "--depth: depth or altitude \"30\" has no unit", ExitUsage},
