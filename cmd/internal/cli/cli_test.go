@@ -511,3 +511,12 @@ func TestSweepNothingComputed(t *testing.T) {
 		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errs)
 	}
 }
+
+// settle's table names the defaults that changed its result, as calc's
+// does (a new user found sea water's 35 g/kg used without a word).
+func TestSettleTableListsAssumptions(t *testing.T) {
+	out, errs, code := run(t, "settle", "--diameter", "150um", "--density", "1.06g/cm3", "--medium", "seawater", "--temp", "10C")
+	if code != ExitOK || !strings.Contains(out, "Assumed (defaults that changed the result)") || !strings.Contains(out, "salinity=35g/kg") {
+		t.Errorf("exit %d, stderr %q, stdout:\n%s", code, errs, out)
+	}
+}

@@ -147,6 +147,8 @@ func runSettle(o *settleOptions, s Streams) error {
 		return err
 	}
 	report.List(s.Out, "Medium", []string{mediumLine(m)})
+	_, assumed := o.settleInputs(p, m)
+	report.List(s.Out, "Assumed (defaults that changed the result)", assumedTexts(assumed))
 	report.List(s.Out, "Warnings", warningTexts(ws))
 	return nil
 }
