@@ -176,6 +176,13 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 		return err
 	}
 	r.Regime = Classify(r.Reynolds)
+	if m.Medium == media.KindAir && !math.IsNaN(m.TemperatureC) {
+		if ma := o.Speed / SpeedOfSoundAir(m.TemperatureC); ma > MachIncompressible {
+			note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "Mach number", Value: ma, Relation: "> 0.3: air is compressible there"}, func() string {
+				return fmt.Sprintf("flow: Mach %.2g: above Mach 0.3 air is compressible and the drag laws here, made for incompressible flow, no longer hold", ma)
+			})
+		}
+	}
 	if o.Body.Shape == Spheroid {
 		r.BoundaryLayer = BoundaryLayer(r.Reynolds)
 	}

@@ -110,3 +110,14 @@ func pow(x, y float64) float64 { return math.Exp(y * math.Log(x)) }
 
 // exp10 returns 10^y as e^(y ln 10), with the accuracy of [pow].
 func exp10(y float64) float64 { return math.Exp(y * math.Ln10) }
+
+// SpeedOfSoundAir returns the speed of sound in dry air at temperature tC
+// (°C), a = √(γ R T) with γ = 1.40 and R = 287.05287 J/(kg·K), the
+// relation and constants of the U.S. Standard Atmosphere 1976 (its table
+// gives 340.294 m/s at sea level, 15 °C).
+func SpeedOfSoundAir(tC float64) float64 { return math.Sqrt(1.40 * 287.05287 * (tC + 273.15)) }
+
+// MachIncompressible is the Mach number below which air is treated as
+// incompressible: density changes stay under about 5 % (common practice,
+// no source; e.g. aerodynamics textbooks quote M < 0.3).
+const MachIncompressible = 0.3

@@ -469,3 +469,29 @@ func TestResistiveForce(t *testing.T) {
 	checkRel(t, "Lighthill C_T", ct, 2*math.Pi*mu/q, 1e-12)
 	checkRel(t, "Taylor sheet", WaveSwimmingSpeed(1, 2, 0.3), 0.045, 1e-12)
 }
+
+// The speed of sound in air against the U.S. Standard Atmosphere 1976's
+// tables (340.294 m/s at sea level, 15 °C; 295.070 m/s at 11 km, −56.5 °C;
+// both recalled from memory); a body at Mach 0.87 is warned about, one at
+// 10 m/s is not.
+func TestSpeedOfSoundAndMach(t *testing.T) {
+	checkRel(t, "sea level", SpeedOfSoundAir(15), 340.294, 2e-6)
+	checkRel(t, "11 km", SpeedOfSoundAir(-56.5), 295.070, 2e-6)
+	air, _ := media.Air(media.AirConditions{TemperatureC: 15, PressurePa: math.NaN()})
+	for _, c := range []struct {
+		speed float64
+		warn  bool
+	}{{300, true}, {10, false}} {
+		r, err := Calc(NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, c.speed), air)
+		if err != nil {
+			t.Fatal(err)
+		}
+		warned := false
+		for _, w := range r.Warnings {
+			warned = warned || strings.Contains(w.Message, "Mach")
+		}
+		if warned != c.warn {
+			t.Errorf("%g m/s: Mach warning %v, want %v", c.speed, warned, c.warn)
+		}
+	}
+}
