@@ -195,3 +195,19 @@ func appendBytesField(b, field []byte, delim byte) []byte {
 	}
 	return appendField(b, unsafe.String(&field[0], len(field)), delim)
 }
+
+// SphereForStroker returns a geometry warning when a body with a stroke
+// (a beat frequency or amplitude given) was taken as a sphere as wide as it
+// is long for want of a diameter or shape: such a body (a fish, a bird, an
+// insect) is rarely round, and the drag of that sphere can be tens of times
+// the animal's. The assumption itself is listed as shape=sphere; this makes
+// it a flag, so the row shows among those whose inputs need a look.
+func SphereForStroker(in *inputs.Input, shapeGiven bool) (media.Warning, bool) {
+	o := &in.Organism
+	if o.Body.Shape != regime.Sphere || shapeGiven || !math.IsNaN(o.Body.Diameter) || math.IsNaN(o.Frequency) && math.IsNaN(o.Amplitude) {
+		return media.Warning{}, false
+	}
+	return media.Warning{Code: regime.WarnGeometry,
+		Message: "shape: no diameter or shape given, so the body is a sphere as wide as its length; an animal with a stroke is rarely round, and that sphere's drag can be tens of times the animal's: give a diameter (body depth or width) or --shape",
+		Detail:  media.Detail{Quantity: "length", Value: o.Body.Length, Unit: "m", Relation: "taken as a sphere's diameter for a body with a stroke"}}, true
+}

@@ -365,6 +365,9 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 			}
 		}
 	}
+	if w, ok := SphereForStroker(in, s.shapeGiven); ok {
+		r.Warnings = append(r.Warnings, w)
+	}
 	s.flags = flagCodes(s.flags[:0], r.Warnings)
 	o.flags = s.flags
 	s.assumed = Assumptions(s.assumed[:0], in, r, s.shapeGiven)

@@ -2,6 +2,7 @@ package cli
 
 import (
 	"fmt"
+	"github.com/flowregime/flowregime/cmd/internal/batch"
 	"math"
 	"strings"
 
@@ -241,6 +242,9 @@ func runCalc(o *calcOptions, s Streams) error {
 	}
 	if unc != nil && unc.Failed > 0 {
 		r.Warnings = append(r.Warnings, media.Warning{Code: regime.WarnModel, Message: fmt.Sprintf("uncertainty: %d of %d draws reached impossible conditions and were left out", unc.Failed, unc.Draws)})
+	}
+	if w, ok := batch.SphereForStroker(&in, merge(o.organism.source(), o.flags.source())["shape"] != ""); ok {
+		r.Warnings = append(r.Warnings, w)
 	}
 	switch o.format {
 	case report.FormatJSON:
