@@ -10,6 +10,9 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/flowregime/flowregime/cmd/internal/report"
+	"github.com/flowregime/flowregime/cmd/internal/tabulate"
+
 	"github.com/flowregime/flowregime/regime"
 )
 
@@ -554,5 +557,30 @@ func TestSphereForStrokerIsFlagged(t *testing.T) {
 	}
 	if !strings.Contains(recs[1][col["flag_reasons"]], "taken as a sphere's diameter") {
 		t.Errorf("reason %q", recs[1][col["flag_reasons"]])
+	}
+}
+
+// A weak scaling fit carries a caution, and its ratio is the identity
+// b_SMA = b_OLS/|r| (the SMA slope is sign(r) s_y/s_x, the least-squares one r s_y/s_x: Warton et al. 2006, Biol. Rev. 81, 259),
+// checked on weakly related points; a strong fit says nothing.
+func TestWeakScalingFitCaution(t *testing.T) {
+	xs := []float64{1, 2, 3, 4, 5, 6, 7, 8, 9, 10}
+	ys := []float64{3, 1, 4, 1, 5, 9, 2, 6, 5, 3}
+	fit := tabulate.ScalingFit(xs, ys)
+	law := strings.Join(scalingLaw("g", tabulate.FitResult{Pair: tabulate.Pair{Y: "y", X: "x"}, Fit: fit}, nil), "\n")
+	if fit.R2 < weakFit {
+		want := report.Num(1/math.Sqrt(fit.R2), 3) + " times"
+		if !strings.Contains(law, "weak relation") || !strings.Contains(law, want) {
+			t.Errorf("r² %.3g: %q lacks the caution with %q", fit.R2, law, want)
+		}
+		if got := fit.SMASlope / fit.OLSSlope; math.Abs(math.Abs(got)-1/math.Sqrt(fit.R2)) > 1e-9 {
+			t.Errorf("SMA/OLS = %g, want 1/|r| = %g", got, 1/math.Sqrt(fit.R2))
+		}
+	} else {
+		t.Fatalf("test points are not weak: r² %g", fit.R2)
+	}
+	strong := tabulate.ScalingFit(xs, []float64{1, 2.1, 2.9, 4.2, 5, 5.8, 7.1, 8, 9.2, 9.9})
+	if law := strings.Join(scalingLaw("g", tabulate.FitResult{Fit: strong}, nil), "\n"); strings.Contains(law, "weak") {
+		t.Errorf("strong fit (r² %g) cautioned: %q", strong.R2, law)
 	}
 }

@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/report"
@@ -263,6 +264,11 @@ func writeScalingLaws(w io.Writer, groups []tabulate.Group, refs map[tabulate.Pa
 	}
 }
 
+// weakFit is the r² below which a fit is called weak (common practice, no
+// source: the SMA and least-squares exponents then differ by more than
+// 1/√0.5 ≈ 1.41).
+const weakFit = 0.5
+
 // scalingLaw is one fit in plain words: the law, its exponent, its factor,
 // and the comparison with the reference exponent.
 func scalingLaw(group string, f tabulate.FitResult, refs map[tabulate.Pair]tabulate.Reference) []string {
@@ -273,6 +279,12 @@ func scalingLaw(group string, f tabulate.FitResult, refs map[tabulate.Pair]tabul
 			num(f.SMASlope), num(f.SMALow), num(f.SMAHigh), num(f.OLSSlope), num(f.OLSLow), num(f.OLSHigh)),
 		fmt.Sprintf("  log10 a = %s, 95 %% from %s to %s (least squares %s, from %s to %s)",
 			num(f.SMAIntercept), num(f.SMAInterceptLow), num(f.SMAInterceptHigh), num(f.OLSIntercept), num(f.OLSInterceptLow), num(f.OLSInterceptHigh)),
+	}
+	if f.R2 < weakFit {
+		// The SMA slope is sign(r) s_y/s_x and the least-squares one
+		// r s_y/s_x (Warton et al. 2006, Biol. Rev. 81, 259), so the SMA
+		// slope is the least-squares one over |r|: the two part as r falls.
+		lines = append(lines, fmt.Sprintf("  weak relation (r² %s): the SMA exponent is the least-squares one over |r|, %s times it here; read either with care", num(f.R2), num(1/math.Sqrt(f.R2))))
 	}
 	ref, ok := referenceFor(refs, f.Pair)
 	if !ok {
