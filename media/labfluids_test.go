@@ -63,7 +63,7 @@ func TestGlycerolDensityAgainstBosartSnoddy(t *testing.T) {
 			t.Errorf("ρ(%.1f, 20 °C) = %.2f kg/m³, want %.2f ± 0.6", c.w, got, c.rho)
 		}
 	}
-	// The 25 °C column of the same table (public transcription in the
+	// The 25 °C column of the same table (public copy in the
 	// SPIV-PLIF fluid-property script, fluidprop.m).
 	for i, rho := range []float64{1258.02, 1232.00, 1205.45, 1178.40, 1151.05, 1123.75, 1097.10, 1070.70, 1045.25, 1020.70, 997.08} {
 		w := 1 - 0.1*float64(i)

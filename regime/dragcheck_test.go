@@ -266,7 +266,7 @@ func TestPowerLawSettleMatchesCalc(t *testing.T) {
 // A spheroid of fineness 1 is a sphere, so the spheroid's laws and joins
 // must approach a sphere's published drag: Pruppacher & Klett (1997),
 // Table 10.1, C_D of rigid spheres 4.29, 2.11, 1.51 and 1.10 at Re 10, 30,
-// 57 and 100 (read in a public transcription of that table), and between
+// 57 and 100 (read in a public copy of that table), and between
 // Re 1 and 10 (the join of Oseen–Brenner and Hölzer–Sommerfeld) the
 // standard curve of Clift, Grace & Weber (1978, Table 5.2), which is within
 // 1 % of that table at Re 10. Allowed: 20 % at Re 10–100, the mean

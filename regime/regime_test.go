@@ -46,7 +46,7 @@ func TestStokesLimit(t *testing.T) {
 //
 // Pruppacher & Klett (1997), Microphysics of Clouds and Precipitation,
 // Table 10.1 (p. 381), C_D of rigid spheres: 4.29 at Re 10, 2.11 at 30,
-// 1.51 at 57, 1.10 at 100 and 0.63 at 300 (read in a public transcription
+// 1.51 at 57, 1.10 at 100 and 0.63 at 300 (read in a public copy
 // of that table, headed "Table 10.1 p381 Pruppacher and Klett", kept as
 // cloud-drag data by the exojax project). Clift, Grace & Weber's curve
 // (1978, Table 5.2) is within 3.6 % of them (worst at Re 300, 3.1 % at
@@ -330,7 +330,7 @@ func TestSettleStokesRange(t *testing.T) {
 // Gunn & Kinzer (1949), J. Meteorol. 6, 243: terminal speeds of water drops
 // in still air at 1013 hPa, 20 °C: 27, 72, 117, 162, 206, 247, 327 and
 // 403 cm/s at 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.8 and 1.0 mm (their table,
-// read in a public transcription of it in a droplet-coalescence code that
+// read in a public copy of it in a droplet-coalescence code that
 // cites the paper by its DOI, 10.1175/1520-0469(1949)006<0243:TTVOFF>2.0.CO;2).
 // Rigid spheres match within 10 % up to 1 mm, where drops are still nearly
 // spherical (common practice: 5–10 % between rigid-sphere theory and
