@@ -15,7 +15,7 @@ func within(t *testing.T, what string, got, want, rel float64) {
 }
 
 // Segur, J. B. & Oberstar, H. E. (1951), Ind. Eng. Chem. 43, 2117 (as
-// transcribed in METHODS-LAB.md §2.2, a public data set): viscosity of
+// copied in METHODS-LAB.md §2.2, a public data set): viscosity of
 // glycerol–water in mPa·s. Cheng (2008) claims agreement with these data;
 // ±3 % is the tolerance METHODS-LAB gives for Cheng against them.
 func TestGlycerolViscosityAgainstSegurOberstar(t *testing.T) {
@@ -51,7 +51,7 @@ func TestGlycerolViscosityAgainstCRC(t *testing.T) {
 }
 
 // Bosart, L. W. & Snoddy, A. O. (1927), Ind. Eng. Chem. 19, 506 (as
-// transcribed in METHODS-LAB §2.2): density at 20 °C, within ±0.6 kg/m³
+// copied in METHODS-LAB §2.2): density at 20 °C, within ±0.6 kg/m³
 // (METHODS-LAB's tolerance for the Volk & Kähler model against these data).
 // GLY-3: 0.6 at 20 °C gives 1153.54 kg/m³ (glycerol.py).
 func TestGlycerolDensityAgainstBosartSnoddy(t *testing.T) {
