@@ -45,9 +45,6 @@ type Config struct {
 	Workers       int      // 0 means GOMAXPROCS
 	FlaggedOnly   bool
 	Progress      func(bytesRead int64)
-	// BeforeCrash, if set, runs when a goroutine of Run panics, before the
-	// panic goes on and ends the process: it removes temporary files.
-	BeforeCrash func()
 
 	// MediaDir is the folder that medium files named in cells are taken
 	// relative to (the table's folder; "" or "." for the working
@@ -193,9 +190,10 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	jobs := make(chan *chunk, workers)
 	results := make(chan result, workers)
 	var readErr error
+	var crash crashNote
 	go func() {
 		defer close(jobs)
-		defer crashGuard(cfg.BeforeCrash)
+		defer crash.recover(cancel)
 		size := chunkSize
 		if cfg.Uncertainty {
 			size = uncertainChunk
@@ -224,7 +222,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			defer crashGuard(cfg.BeforeCrash)
+			defer crash.recover(cancel)
 			local := newLocalMedia(cache, localSlots/workers)
 			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: local, growth: 8}
 			for c := range jobs {
@@ -287,6 +285,9 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			}
 		}
 	}
+	if err := crash.err(); err != nil && runErr == nil {
+		runErr = err
+	}
 	if runErr == nil && readErr != nil {
 		runErr = readErr
 	}
@@ -303,15 +304,32 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	return sum, runErr
 }
 
-// crashGuard, deferred in a goroutine, runs before (if set) when the
-// goroutine panics and lets the panic go on.
-func crashGuard(before func()) {
-	if r := recover(); r != nil {
-		if before != nil {
-			before()
-		}
-		panic(r)
+// crashNote turns a panic in one of Run's goroutines (a bug, never an
+// input's fault) into the run's error: the run stops, no output is
+// committed, and the user reads one line instead of a crash.
+type crashNote struct {
+	mu    sync.Mutex
+	first error
+}
+
+// recover, deferred in a goroutine, notes a panic and cancels the run.
+func (c *crashNote) recover(cancel func()) {
+	r := recover()
+	if r == nil {
+		return
 	}
+	c.mu.Lock()
+	if c.first == nil {
+		c.first = fmt.Errorf("internal error (%v); the run was stopped and nothing was written: please report it with the input that caused it", r)
+	}
+	c.mu.Unlock()
+	cancel()
+}
+
+func (c *crashNote) err() error {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.first
 }
 
 // TablePage is the number of rows in each table of table output: rows are

@@ -6,6 +6,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"fmt"
+	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -364,18 +365,22 @@ func TestJSONLinesUnclosed(t *testing.T) {
 	}
 }
 
-// A panic in one of Run's goroutines first runs BeforeCrash (which removes
-// the temporary files) and then goes on, so it is neither lost nor leaves
-// files behind.
-func TestCrashGuardCleansThenPanics(t *testing.T) {
-	cleaned := false
-	defer func() {
-		if r := recover(); r != "boom" || !cleaned {
-			t.Errorf("recovered %v, cleaned %v", r, cleaned)
-		}
-	}()
-	func() {
-		defer crashGuard(func() { cleaned = true })
-		panic("boom")
-	}()
+// A panic in one of Run's goroutines (here the reader's, through the
+// progress callback, past the first megabyte) ends the run with a readable
+// error instead of a crash, and the run stops.
+func TestPanicBecomesError(t *testing.T) {
+	table := "length (mm),speed (cm/s)\n" + strings.Repeat("12,5\n", 400_000) // 2 MB: read past the header by the reader goroutine
+	cfg := Config{InFormat: CSV, OutFormat: CSV, DefaultMedium: "freshwater", Constants: inputs.Flags{},
+		Progress: func(n int64) {
+			if n > 1<<20 {
+				panic("boom")
+			}
+		}}
+	sum, err := Run(context.Background(), strings.NewReader(table), io.Discard, func(Reject) error { return nil }, cfg)
+	if err == nil || !strings.Contains(err.Error(), "internal error (boom)") {
+		t.Errorf("err %v", err)
+	}
+	if sum.Written >= 400_000 {
+		t.Errorf("the run went on after the crash: %d rows written", sum.Written)
+	}
 }

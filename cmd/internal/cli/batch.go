@@ -411,7 +411,6 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 	if err := checkOutputs(o.inputFiles(s), o.outputFiles(s)); err != nil {
 		return err
 	}
-	cfg.BeforeCrash = func() { s.outs.stop() }
 	in, size, err := o.open(s)
 	if err != nil {
 		return err

@@ -584,3 +584,19 @@ func TestWeakScalingFitCaution(t *testing.T) {
 		t.Errorf("strong fit (r² %g) cautioned: %q", strong.R2, law)
 	}
 }
+
+// panicReader stands in for a bug met while reading.
+type panicReader struct{}
+
+func (panicReader) Read([]byte) (int, error) { panic("boom") }
+
+// A panic in a command is a bug, never the input's fault: Main reports it
+// in one line with exit 1 instead of crashing, and replaces no file.
+func TestPanicIsOneLine(t *testing.T) {
+	var out, errb bytes.Buffer
+	code := Main([]string{"fit", "-"}, Streams{In: panicReader{}, Out: &out, Err: &errb})
+	msg := errb.String()
+	if code != ExitFailure || strings.Count(msg, "\n") != 1 || !strings.Contains(msg, "internal error (boom)") || !strings.Contains(msg, "no output file was replaced") {
+		t.Errorf("exit %d, stderr %q", code, msg)
+	}
+}

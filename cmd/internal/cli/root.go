@@ -124,9 +124,11 @@ func Main(args []string, s Streams) int {
 	done := make(chan int, 1)
 	go func() {
 		defer func() {
+			// A panic is a bug, never the input's fault: remove the
+			// temporary files and say so in one line instead of crashing.
 			if r := recover(); r != nil {
-				s.outs.stop()
-				panic(r)
+				fmt.Fprintf(s.Err, "flowregime: internal error (%s); %s; please report it with the command and input that caused it\n", report.Printable(fmt.Sprint(r)), stoppedOutputs(s.outs.stop(), "error"))
+				done <- ExitFailure
 			}
 		}()
 		done <- execute(ctx, args, s, out)
@@ -137,7 +139,7 @@ func Main(args []string, s Streams) int {
 	case sig := <-stop:
 		cancel()
 		n := int(sig.(syscall.Signal))
-		fmt.Fprintf(s.Err, "flowregime: stopped by %s (signal %d); %s\n", signalNames[n], n, stoppedOutputs(s.outs.stop()))
+		fmt.Fprintf(s.Err, "flowregime: stopped by %s (signal %d); %s\n", signalNames[n], n, stoppedOutputs(s.outs.stop(), "signal"))
 		return 128 + n
 	}
 }
@@ -172,9 +174,9 @@ func execute(ctx context.Context, args []string, s Streams, out *checkedWriter) 
 }
 
 // stoppedOutputs says what a stopped run left of its output files.
-func stoppedOutputs(renamed []string) string {
+func stoppedOutputs(renamed []string, cause string) string {
 	if len(renamed) == 0 {
 		return "no output file was replaced"
 	}
-	return "already written before the signal: " + strings.Join(renamed, ", ")
+	return "already written before the " + cause + ": " + strings.Join(renamed, ", ")
 }
