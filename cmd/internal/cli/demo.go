@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"sort"
+	"strconv"
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
@@ -89,7 +90,7 @@ func runDemo(s Streams) error {
 	for _, r := range recs[1:] {
 		f := r[col["flags"]]
 		if strings.Contains(f, "inconsistent-inputs") || strings.Contains(f, "strouhal-outside-animals") || strings.Contains(f, "speed-beyond-known") {
-			flagged = append(flagged, []string{r[col["date"]], r[col["site"]], r[col["taxon"]], r[col["reynolds"]], r[col["strouhal"]], f})
+			flagged = append(flagged, []string{r[col["date"]], r[col["site"]], r[col["taxon"]], threeDigits(r[col["reynolds"]]), threeDigits(r[col["strouhal"]]), f})
 		}
 	}
 	fmt.Fprintln(w)
@@ -116,4 +117,14 @@ Next:
   flowregime tabulate survey.csv --by taxon,site --fit power_W=mass
   flowregime calc --help`)
 	return nil
+}
+
+// threeDigits shows a batch output number at the 3 significant digits of
+// the summaries above it.
+func threeDigits(cell string) string {
+	v, err := strconv.ParseFloat(cell, 64)
+	if err != nil {
+		return cell
+	}
+	return report.Num(v, 3)
 }

@@ -178,7 +178,7 @@ func groupRows(groups []tabulate.Group, human bool) ([]string, [][]string) {
 				r = append(r, report.Num(st.Median, 6), report.Num(st.P5, 6), report.Num(st.P95, 6))
 				continue
 			}
-			cell := ""
+			cell := "none computed" // e.g. St of a group without stroke data: never a blank
 			if st.N > 0 {
 				cell = fmt.Sprintf("%s [%s–%s]", report.Num(st.Median, 3), report.Num(st.P5, 3), report.Num(st.P95, 3))
 			}
