@@ -129,12 +129,7 @@ func newBatchCmd(s Streams) *cobra.Command {
   flowregime batch tags.tsv --medium seawater --temp 8C --format jsonl
   export NAMES="$(head -1 survey.csv)"
   tail -n +2 survey.csv | parallel --pipe -N 100000 -k 'flowregime batch - --names "$NAMES" --first-line $(( ({#}-1)*100000 + 2 )) -q'`,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return usagef("batch needs one argument: a file, or - for standard input")
-			}
-			return nil
-		},
+		Args: oneTable("batch", "a file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			o.uncOn = cmd.Flags().Changed("uncertainty") || cmd.Flags().Changed("draws")

@@ -46,12 +46,7 @@ version 1) that 'flowregime medium FILE.json' shows and every other command
 takes as --medium FILE.json.`,
 		Example: `  flowregime fit mucus.csv --density 1010kg/m3 --name "pedal mucus" --save mucus.json
   flowregime calc --medium mucus.json --length 2cm --speed 1mm/s`,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return usagef("fit needs one argument: a file, or - for standard input")
-			}
-			return nil
-		},
+		Args: oneTable("fit", "a file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			if err := report.CheckFormat(o.format); err != nil {

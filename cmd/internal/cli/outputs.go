@@ -3,6 +3,7 @@ package cli
 import (
 	"errors"
 	"fmt"
+	"github.com/spf13/cobra"
 	"io"
 	"io/fs"
 	"os"
@@ -172,4 +173,15 @@ func openTable(s Streams, input string) (in io.Reader, done func(), err error) {
 		return nil, nil, fmt.Errorf("cannot read %s: %v", input, err)
 	}
 	return f, func() { f.Close() }, nil
+}
+
+// oneTable checks that a command that reads one table got exactly one
+// argument: what (a file, a file of readings) or - for standard input.
+func oneTable(command, what string) cobra.PositionalArgs {
+	return func(_ *cobra.Command, args []string) error {
+		if len(args) != 1 {
+			return usagef("%s needs one argument: %s, or - for standard input", command, what)
+		}
+		return nil
+	}
 }

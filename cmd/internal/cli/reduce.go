@@ -82,12 +82,7 @@ Newtonian medium). A row that cannot be read or reduced is reported on
 standard error with its line and reason, and the exit code is 3.`,
 		Example: `  flowregime reduce cup.csv --geometry couette --bob-radius 12.5mm --cup-radius 13.6mm --bob-length 37.5mm -o curve.csv
   flowregime reduce cup.csv --geometry couette --bob-radius 12.5mm --cup-radius 13.6mm --bob-length 37.5mm --fit --density 1020kg/m3 --save mucus.json`,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return usagef("reduce needs one argument: a file of readings, or - for standard input")
-			}
-			return nil
-		},
+		Args: oneTable("reduce", "a file of readings"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			if err := report.CheckFormat(o.format); err != nil {

@@ -56,12 +56,7 @@ Flags for reading the table are those of batch; --by and --fit are those
 of tabulate.`,
 		Example: `  flowregime report survey.csv -o report.html --by taxon
   flowregime report survey.csv -o report.html --by species,site --fit power_W=mass`,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return usagef("report needs one argument: a file, or - for standard input")
-			}
-			return nil
-		},
+		Args: oneTable("report", "a file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			o.args = append([]string{"report"}, args...)

@@ -58,12 +58,7 @@ summary is for groups of many rows).`,
   flowregime tabulate survey.csv --by taxon --fit power_W=mass --expect power_W=mass:0.75
   flowregime tabulate survey.csv --by taxon --format csv --only fits > fits.csv
   flowregime batch survey.csv -q | flowregime tabulate - --by site --format json`,
-		Args: func(cmd *cobra.Command, args []string) error {
-			if len(args) != 1 {
-				return usagef("tabulate needs one argument: a file, or - for standard input")
-			}
-			return nil
-		},
+		Args: oneTable("tabulate", "a file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			if err := report.CheckFormat(o.format); err != nil {
