@@ -12,55 +12,45 @@ import (
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 )
 
-// organismFlags are the organism's measurements as typed.
-type organismFlags struct {
-	length, diameter, shape, speed, freq, amplitude, mass, span, wingLength, chord, wingArea      string
-	strokeAngle, efficiency, dragCoefficient, area, inducedFactor, profileDrag, disc, diffusivity string
-	shearRate, relaxationTime                                                                     string
+// organismFlags are the organism's measurements as typed, bound from
+// the inputs table (inputs.OrganismFlag).
+type organismFlags struct{ fieldFlags }
+
+func (f *organismFlags) bind(cmd *cobra.Command) { f.fieldFlags.bind(cmd.Flags(), inputs.OrganismFlag) }
+
+// source returns the organism flags as an inputs.Source.
+func (f *organismFlags) source() inputs.Flags { return f.fieldFlags.source(inputs.OrganismFlag) }
+
+// fieldFlags are flag texts by input field (inputs.Fields).
+type fieldFlags [inputs.NumFields]string
+
+// bind adds a flag for every field of the group, with the table's help.
+func (v *fieldFlags) bind(fs *pflag.FlagSet, g inputs.Group) {
+	for i, f := range inputs.Fields {
+		if f.Group == g {
+			fs.StringVar(&v[i], f.Flag, f.Default, f.Help)
+		}
+	}
 }
 
-func (f *organismFlags) bind(cmd *cobra.Command) {
-	fs := cmd.Flags()
-	fs.StringVar(&f.length, "length", "", "characteristic length: body length, or the diameter of a sphere, e.g. 12mm")
-	fs.StringVar(&f.diameter, "diameter", "", "maximum body diameter (spheroid, rod, cylinder), e.g. 2.5mm")
-	fs.StringVar(&f.shape, "shape", "", "sphere, spheroid, rod, cylinder or measured (default: spheroid with --diameter, else sphere)")
-	fs.StringVar(&f.speed, "speed", "", "swimming or flight speed, e.g. 0.4m/s, 30um/s, 3BL/s")
-	fs.StringVar(&f.freq, "freq", "", "tail-beat or wingbeat frequency, e.g. 8Hz, 120/min (0 for a flyer: gliding)")
-	fs.StringVar(&f.amplitude, "amplitude", "", "peak-to-peak tail-tip or wing-tip excursion, e.g. 4cm")
-	fs.StringVar(&f.mass, "mass", "", "body mass, e.g. 20g")
-	fs.StringVar(&f.span, "span", "", "wingspan tip to tip (flyers), e.g. 35cm")
-	fs.StringVar(&f.wingLength, "wing-length", "", "one wing, root to tip (default: half the span), e.g. 2.5mm")
-	fs.StringVar(&f.chord, "chord", "", "mean wing chord, e.g. 8cm")
-	fs.StringVar(&f.wingArea, "wing-area", "", "area of both wings, e.g. 200cm2 (or give --chord)")
-	fs.StringVar(&f.strokeAngle, "stroke-angle", "", "peak-to-peak wing stroke amplitude, e.g. 120deg (default: from --amplitude and wing length)")
-	fs.StringVar(&f.efficiency, "efficiency", "", "propulsive efficiency of a swimmer, 0–1 or % (default 1: towing power)")
-	fs.StringVar(&f.dragCoefficient, "drag-coefficient", "", "measured drag coefficient (with --area; sets --shape measured)")
-	fs.StringVar(&f.area, "area", "", "reference area of the measured drag coefficient, e.g. 3cm2")
-	fs.StringVar(&f.inducedFactor, "induced-factor", "", fmt.Sprintf("induced-power factor k of flight (default %g, common practice)", regime.DefaultInducedFactor))
-	fs.StringVar(&f.profileDrag, "profile-drag", "", "profile-drag coefficient of the wings (default: Pennycuick's profile power ratio 8.4/aspect ratio; given, the blade-element method)")
-	fs.StringVar(&f.disc, "disc", regime.DiscSpan, "actuator disc of flight: span (circle of the wingspan) or stroke (area swept by the wings)")
-	fs.StringVar(&f.diffusivity, "diffusivity", "", "solute diffusivity for the Péclet number, e.g. 2e-9m2/s (default: dissolved O2 in water)")
-	fs.StringVar(&f.shearRate, "shear-rate", "", "measured medium: characteristic shear rate (default: speed/length), e.g. 5/s")
-	fs.StringVar(&f.relaxationTime, "relaxation-time", "", "viscoelastic medium: relaxation time for the Deborah and Weissenberg numbers, e.g. 0.3s")
+// source returns the group's flag texts keyed by field name, every field
+// of the group present (an empty text is a flag not given).
+func (v *fieldFlags) source(g inputs.Group) inputs.Flags {
+	out := inputs.Flags{}
+	for i, f := range inputs.Fields {
+		if f.Group == g {
+			out[f.Name] = v[i]
+		}
+	}
+	return out
 }
 
 // bindGliding adds the flag that marks a flyer as gliding.
 func bindGliding(cmd *cobra.Command, v *bool) {
 	cmd.Flags().BoolVar(v, "gliding", false, "the flyer glides with its wings still: sink speed and glide ratio instead of flapping power")
-}
-
-// source returns the organism flags as an inputs.Source.
-func (f *organismFlags) source() inputs.Flags {
-	return inputs.Flags{
-		"length": f.length, "diameter": f.diameter, "shape": f.shape, "speed": f.speed, "frequency": f.freq,
-		"amplitude": f.amplitude, "mass": f.mass, "span": f.span, "wing_length": f.wingLength, "chord": f.chord,
-		"wing_area": f.wingArea, "stroke_angle": f.strokeAngle, "efficiency": f.efficiency,
-		"drag_coefficient": f.dragCoefficient, "area": f.area, "induced_factor": f.inducedFactor,
-		"profile_drag": f.profileDrag, "disc": f.disc, "diffusivity": f.diffusivity,
-		"shear_rate": f.shearRate, "relaxation_time": f.relaxationTime,
-	}
 }
 
 // merge returns one source of organism and medium flags.

@@ -11,9 +11,7 @@ import (
 
 // mediumFlags are the flags that say where the fluid is. Every command that
 // needs a medium binds them.
-type mediumFlags struct {
-	temp, offset, salinity, depth, pressure, altitude, humidity, latitude string
-}
+type mediumFlags struct{ fieldFlags }
 
 const mediumFlagHelp = `
 Medium conditions:
@@ -33,24 +31,11 @@ Medium conditions:
   Pressures are absolute; sea pressure (absolute less 101325 Pa) is printed
   for water as "sea pressure".`
 
-func (m *mediumFlags) bind(fs *pflag.FlagSet) {
-	fs.StringVar(&m.temp, "temp", "", "temperature, e.g. 12C, 285K, 54F (bare number: °C)")
-	fs.StringVar(&m.offset, "temp-offset", "", "air only: offset from the standard-atmosphere temperature, e.g. 5K")
-	fs.StringVar(&m.salinity, "salinity", "", "sea water: 35psu (practical) or 35g/kg (reference composition); bare number is practical")
-	fs.StringVar(&m.depth, "depth", "", "water: depth below the surface, e.g. 30m, 100ft")
-	fs.StringVar(&m.pressure, "pressure", "", "absolute pressure, e.g. 101.325kPa, 2bar, 1atm")
-	fs.StringVar(&m.altitude, "altitude", "", "geometric altitude above mean sea level, e.g. 1500m, 5000ft")
-	fs.StringVar(&m.humidity, "humidity", "", "air only: relative humidity, e.g. 60% (bare number: %)")
-	fs.StringVar(&m.latitude, "latitude", "", "sea water with --depth: latitude in degrees for gravity (default 45)")
-}
+// bind adds the medium conditions' flags (inputs.MediumFlag).
+func (m *mediumFlags) bind(fs *pflag.FlagSet) { m.fieldFlags.bind(fs, inputs.MediumFlag) }
 
 // source returns the medium flags as an inputs.Source.
-func (m *mediumFlags) source() inputs.Flags {
-	return inputs.Flags{
-		"temperature": m.temp, "temp_offset": m.offset, "salinity": m.salinity, "depth": m.depth,
-		"pressure": m.pressure, "altitude": m.altitude, "humidity": m.humidity, "latitude": m.latitude,
-	}
-}
+func (m *mediumFlags) source() inputs.Flags { return m.fieldFlags.source(inputs.MediumFlag) }
 
 // lookup parses the flags and evaluates the named medium.
 // An uncertainty in a flag is refused: command does not propagate it.

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/figure"
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/tabulate"
 	"github.com/flowregime/flowregime/media"
@@ -45,7 +46,7 @@ All coefficients are put on one area so that the laws compare.`,
 				return err
 			}
 			c := figure.DragCase{Body: in.Organism.Body, Density: m.Density, Viscosity: m.DynamicViscosity}
-			if o.organism.speed != "" {
+			if o.organism.fieldFlags[inputs.Speed] != "" {
 				c.Speed = in.Organism.Speed
 			}
 			fig, err := figure.DragFigure(c)

@@ -14,84 +14,6 @@ import (
 	"github.com/flowregime/flowregime/regime"
 )
 
-// Field is one input quantity.
-type Field struct {
-	Name    string        // canonical name, also the batch column name
-	Flag    string        // the calc flag
-	Kind    quantity.Kind // how numbers are read; Text fields are not numbers
-	Text    bool          // a word, not a number (shape, medium)
-	Aliases []string      // other header names; compared by Compact (case, spacing and punctuation ignored)
-}
-
-// Field indices, in the order of Fields.
-const (
-	Length = iota
-	Diameter
-	Shape
-	Speed
-	Frequency
-	Amplitude
-	Mass
-	Span
-	WingLength
-	Chord
-	WingArea
-	StrokeAngle
-	Efficiency
-	DragCoefficient
-	Area
-	InducedFactor
-	ProfileDrag
-	Disc
-	Diffusivity
-	Medium
-	Temperature
-	TempOffset
-	Salinity
-	Depth
-	Pressure
-	Altitude
-	Humidity
-	Latitude
-	ShearRate
-	RelaxationTime
-	NumFields
-)
-
-// Fields lists every input in a fixed order.
-var Fields = []Field{
-	{Name: "length", Flag: "length", Kind: quantity.Length, Aliases: []string{"body length", "bl", "size", "body size", "total length", "tl", "standard length", "sl", "fork length", "fl", "l", "len", "snout vent length", "svl", "carapace length", "cl", "mantle length"}},
-	{Name: "diameter", Flag: "diameter", Kind: quantity.Length, Aliases: []string{"width", "body width", "max width", "maximum width", "max diameter", "body diameter", "diam", "dia", "body depth", "max body depth", "maximum body depth", "bd"}},
-	{Name: "shape", Flag: "shape", Text: true, Aliases: []string{"body shape"}},
-	{Name: "speed", Flag: "speed", Kind: quantity.Speed, Aliases: []string{"velocity", "swimming speed", "swim speed", "swimming velocity", "swim velocity", "flight speed", "flight velocity", "airspeed", "air speed", "cruising speed", "u"}},
-	{Name: "frequency", Flag: "freq", Kind: quantity.Frequency, Aliases: []string{"freq", "beat frequency", "beat freq", "tailbeat frequency", "tailbeat freq", "wingbeat frequency", "wingbeat freq", "tail wingbeat frequency", "tail wingbeat freq", "finbeat frequency", "finbeat freq", "flukebeat frequency", "tailbeat", "wingbeat", "finbeat", "flukebeat", "tailbeat rate", "wingbeat rate", "stroke frequency", "stroke freq", "flapping frequency", "tbf", "wbf", "fbf", "f"}},
-	{Name: "amplitude", Flag: "amplitude", Kind: quantity.Length, Aliases: []string{"amp", "tail amplitude", "tail amp", "tailbeat amplitude", "tailbeat amp", "fluke amplitude", "fluke amp", "fin amplitude", "fin amp", "heave amplitude", "a"}},
-	{Name: "mass", Flag: "mass", Kind: quantity.Mass, Aliases: []string{"body mass", "weight", "body weight", "wt", "bm", "m"}},
-	{Name: "span", Flag: "span", Kind: quantity.Length, Aliases: []string{"wingspan", "b"}},
-	{Name: "wing_length", Flag: "wing-length", Kind: quantity.Length, Aliases: []string{"wing length"}},
-	{Name: "chord", Flag: "chord", Kind: quantity.Length, Aliases: []string{"mean chord", "wing chord"}},
-	{Name: "wing_area", Flag: "wing-area", Kind: quantity.Area, Aliases: []string{"wing area"}},
-	{Name: "stroke_angle", Flag: "stroke-angle", Kind: quantity.Angle, Aliases: []string{"stroke amplitude"}},
-	{Name: "efficiency", Flag: "efficiency", Kind: quantity.Fraction, Aliases: []string{"propulsive efficiency", "eta"}},
-	{Name: "drag_coefficient", Flag: "drag-coefficient", Kind: quantity.Number, Aliases: []string{"drag coefficient", "cd"}},
-	{Name: "area", Flag: "area", Kind: quantity.Area, Aliases: []string{"reference area"}},
-	{Name: "induced_factor", Flag: "induced-factor", Kind: quantity.Number, Aliases: []string{"induced factor"}},
-	{Name: "profile_drag", Flag: "profile-drag", Kind: quantity.Number, Aliases: []string{"profile drag", "profile drag coefficient"}},
-	{Name: "disc", Flag: "disc", Text: true},
-	{Name: "diffusivity", Flag: "diffusivity", Kind: quantity.Diffusivity},
-	{Name: "medium", Flag: "medium", Text: true, Aliases: []string{"fluid", "medium file"}},
-	{Name: "temperature", Flag: "temp", Kind: quantity.Temperature, Aliases: []string{"temp", "t", "water temperature", "water temp", "air temperature", "air temp", "sea surface temperature", "sst"}},
-	{Name: "temp_offset", Flag: "temp-offset", Kind: quantity.Temperature, Aliases: []string{"temperature offset"}},
-	{Name: "salinity", Flag: "salinity", Kind: quantity.Salinity, Aliases: []string{"sal", "practical salinity", "sea surface salinity", "sss"}},
-	{Name: "depth", Flag: "depth", Kind: quantity.Height, Aliases: []string{"water depth", "dive depth", "swimming depth"}},
-	{Name: "pressure", Flag: "pressure", Kind: quantity.Pressure, Aliases: []string{"absolute pressure"}},
-	{Name: "altitude", Flag: "altitude", Kind: quantity.Height, Aliases: []string{"elevation", "elev", "alt", "flight altitude"}},
-	{Name: "humidity", Flag: "humidity", Kind: quantity.Humidity, Aliases: []string{"rh", "relative humidity"}},
-	{Name: "latitude", Flag: "latitude", Kind: quantity.Number, Aliases: []string{"lat"}},
-	{Name: "shear_rate", Flag: "shear-rate", Kind: quantity.ShearRate, Aliases: []string{"shear rate"}},
-	{Name: "relaxation_time", Flag: "relaxation-time", Kind: quantity.Time, Aliases: []string{"relaxation time"}},
-}
-
 // Index returns the index of the field with the canonical name, or −1.
 func Index(name string) int {
 	for i, f := range Fields {
@@ -269,10 +191,10 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 	}
 	o := regime.NewOrganism(b, speed)
 	for _, f := range organismOptional {
-		if f.kept {
-			*organismField(&o, f.field) = val(f.field)
+		if Fields[f].Kept {
+			*organismField(&o, f) = val(f)
 		} else {
-			*organismField(&o, f.field) = rd.num(f.field)
+			*organismField(&o, f) = rd.num(f)
 		}
 	}
 	o.Disc, _ = rd.text(Disc)
@@ -342,24 +264,6 @@ func checkConditions(c media.Conditions) error {
 	return nil
 }
 
-// read lists numeric fields in the order they are read, which is the order
-// in which a row's first error is named; kept fields go into Input.Values
-// for uncertainty propagation.
-type read struct {
-	field int
-	kept  bool
-}
-
-// organismOptional are the organism's optional numeric fields.
-var organismOptional = [...]read{{Frequency, true}, {Amplitude, true}, {Mass, true}, {Span, true},
-	{WingLength, true}, {Chord, true}, {WingArea, true}, {StrokeAngle, true}, {Efficiency, true},
-	{InducedFactor, false}, {ProfileDrag, false}, {Diffusivity, false}, {ShearRate, false}, {RelaxationTime, false}}
-
-// conditionFields are the medium's numeric conditions but the temperature
-// offset, whose unit matters.
-var conditionFields = [...]read{{Temperature, true}, {Salinity, true}, {Depth, true}, {Pressure, true},
-	{Altitude, true}, {Humidity, true}, {Latitude, false}}
-
 func orName(label, name string) string {
 	if label == "" {
 		return name
@@ -375,11 +279,11 @@ func Conditions(src Source, medium string) (media.Conditions, error) {
 func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
 	c := media.Unset(medium)
 	for _, f := range conditionFields {
-		if f.kept && values != nil {
-			values[f.field] = rd.value(f.field)
-			*conditionField(&c, f.field) = values[f.field].SI
+		if Fields[f].Kept && values != nil {
+			values[f] = rd.value(f)
+			*conditionField(&c, f) = values[f].SI
 		} else {
-			*conditionField(&c, f.field) = rd.num(f.field)
+			*conditionField(&c, f) = rd.num(f)
 		}
 	}
 	if off := rd.value(TempOffset); !math.IsNaN(off.SI) {
@@ -417,17 +321,6 @@ func (f Flags) Lookup(field int) (string, string, string, bool) {
 	t, ok := f[Fields[field].Name]
 	t = strings.TrimSpace(t)
 	return t, "", flagLabels[field], ok && t != ""
-}
-
-// Positive reports whether a field's values must stay positive, so that its
-// uncertainty is drawn log-normally; temperatures, salinities, depths,
-// altitudes, humidity and latitude are drawn normally.
-func Positive(field int) bool {
-	switch field {
-	case Temperature, TempOffset, Salinity, Depth, Altitude, Humidity, Latitude:
-		return false
-	}
-	return true
 }
 
 // With returns the input with one numeric field set to v (SI units).

@@ -8,37 +8,27 @@ import (
 	"github.com/flowregime/flowregime/regime"
 )
 
-// positiveFields are the organism's sizes, speeds and rates: each must be
-// above zero when given. The drag coefficient and reference area are
-// checked with the measured body that uses them.
-var positiveFields = [...]int{Length, Diameter, Speed, Frequency, Amplitude, Mass, Span, WingLength, Chord,
-	WingArea, StrokeAngle, Diffusivity, ShearRate, RelaxationTime}
-
-// MustBePositive reports whether a field's values must be above zero.
-func MustBePositive(field int) bool {
-	for _, f := range positiveFields {
-		if f == field {
-			return true
-		}
-	}
-	return field == Efficiency
-}
-
 // checkOrganism refuses a size, speed or rate that is zero or negative, and
 // an efficiency outside (0, 1], naming where it came from (labels), so that
 // a command line and a table row get the same message. Given values are
 // finite already (quantity refuses the rest).
 func checkOrganism(o *regime.Organism, labels *[NumFields]string) error {
-	for _, f := range positiveFields {
+	for _, f := range aboveZero {
 		v := *organismField(o, f)
 		if v <= 0 { // NaN (not given) compares false
 			return notPositive(f, v, labels[f])
 		}
 	}
-	if e := o.Efficiency; e <= 0 || e > 1 {
-		return fmt.Errorf("%s: efficiency must be in (0, 1], got %g", orName(labels[Efficiency], "efficiency"), e)
+	for _, f := range fractions {
+		if v := *organismField(o, f); v <= 0 || v > 1 {
+			return notFraction(f, v, orName(labels[f], Fields[f].Name))
+		}
 	}
 	return nil
+}
+
+func notFraction(f int, v float64, label string) error {
+	return fmt.Errorf("%s: %s must be in (0, 1], got %g", label, Fields[f].Name, v)
 }
 
 func notPositive(f int, v float64, label string) error {
@@ -53,8 +43,8 @@ func notPositive(f int, v float64, label string) error {
 // not above zero, for a sweep's range; label names its origin.
 func CheckPositive(field int, v float64, label string) error {
 	if MustBePositive(field) && !(v > 0) && !math.IsNaN(v) {
-		if field == Efficiency {
-			return fmt.Errorf("%s: efficiency must be in (0, 1], got %g", label, v)
+		if Fields[field].Check == Fraction {
+			return notFraction(field, v, label)
 		}
 		return notPositive(field, v, label)
 	}
