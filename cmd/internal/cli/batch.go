@@ -119,7 +119,9 @@ original file, so that rejects name the original file's lines (their row
 numbers stay counted within the shard). A shard cut by lines must not cut
 a quoted cell that spans lines.`
 
-func newBatchCmd(s Streams) *cobra.Command {
+// newBatchCmd builds batch; a test passes runF to receive the options
+// instead of running.
+func newBatchCmd(s Streams, runF func(*batchOptions) error) *cobra.Command {
 	o := &batchOptions{}
 	cmd := &cobra.Command{
 		Use:   "batch {FILE | -} [flags]",
@@ -133,6 +135,9 @@ func newBatchCmd(s Streams) *cobra.Command {
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.input = args[0]
 			o.uncOn = cmd.Flags().Changed("uncertainty") || cmd.Flags().Changed("draws")
+			if runF != nil {
+				return runF(o)
+			}
 			return runBatch(cmd.Context(), o, s)
 		},
 	}

@@ -157,7 +157,9 @@ Conventions:
   95 % interval of Re, St, drag and power and the probability of each
   regime and drag law.`
 
-func newCalcCmd(s Streams) *cobra.Command {
+// newCalcCmd builds calc; a test passes runF to receive the checked
+// options instead of running.
+func newCalcCmd(s Streams, runF func(*calcOptions) error) *cobra.Command {
 	o := &calcOptions{}
 	cmd := &cobra.Command{
 		Use:   "calc --length <L> --speed <U> [flags]",
@@ -174,8 +176,11 @@ the Strouhal number of its stroke, the drag from the law whose range fits
   flowregime calc --length 16cm --diameter 3.5cm --speed 10m/s --mass 40g --span 42cm --chord 4cm --freq 8Hz --amplitude 20cm --medium air --altitude 500m`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := report.CheckFormat(o.format); err != nil {
-				return usageError{err}
+			if err := o.validate(); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runCalc(o, s)
 		},
@@ -214,10 +219,15 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 	return in, m, nil
 }
 
-func runCalc(o *calcOptions, s Streams) error {
-	if err := o.unc.check(); err != nil {
-		return err
+// validate checks the flags that need no input.
+func (o *calcOptions) validate() error {
+	if err := report.CheckFormat(o.format); err != nil {
+		return usageError{err}
 	}
+	return o.unc.check()
+}
+
+func runCalc(o *calcOptions, s Streams) error {
 	in, m, err := o.inputs(true, nil)
 	if err != nil {
 		return err

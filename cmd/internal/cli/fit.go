@@ -20,7 +20,9 @@ type fitOptions struct {
 	units                                                          []string
 }
 
-func newFitCmd(s Streams) *cobra.Command {
+// newFitCmd builds fit; a test passes runF to receive the checked options
+// instead of running.
+func newFitCmd(s Streams, runF func(*fitOptions) error) *cobra.Command {
 	o := &fitOptions{}
 	cmd := &cobra.Command{
 		Use:   "fit {FILE | -} [flags]",
@@ -51,6 +53,9 @@ takes as --medium FILE.json.`,
 			o.input = args[0]
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runFit(o, s)
 		},

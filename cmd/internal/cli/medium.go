@@ -15,7 +15,9 @@ type mediumOptions struct {
 	format string
 }
 
-func newMediumCmd(s Streams) *cobra.Command {
+// newMediumCmd builds medium; a test passes runF to receive the checked
+// options instead of running.
+func newMediumCmd(s Streams, runF func(*mediumOptions) error) *cobra.Command {
 	o := &mediumOptions{}
 	cmd := &cobra.Command{
 		Use:   "medium {air | freshwater | seawater | glycerol:<mass fraction> | sucrose:<mass fraction> | FILE.json}",
@@ -40,6 +42,9 @@ measured shear-rate range.
 			o.medium = args[0]
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runMedium(o, s)
 		},

@@ -92,7 +92,7 @@ really lives in, and what drag and power follow from the law that fits.
 		return usageError{fmt.Errorf("%v (see 'flowregime %s --help')", err, c.Name())}
 	})
 	bindWidth(root, s)
-	root.AddCommand(newMediumCmd(s), newCalcCmd(s), newScaleModelCmd(s), newSettleCmd(s), newLawsCmd(s), newBatchCmd(s), newTabulateCmd(s), newDemoCmd(s), newFitCmd(s), newSweepCmd(s), newPowerCurveCmd(s), newReduceCmd(s))
+	root.AddCommand(newMediumCmd(s, nil), newCalcCmd(s, nil), newScaleModelCmd(s), newSettleCmd(s, nil), newLawsCmd(s), newBatchCmd(s, nil), newTabulateCmd(s, nil), newDemoCmd(s), newFitCmd(s, nil), newSweepCmd(s), newPowerCurveCmd(s), newReduceCmd(s))
 	root.AddCommand(newPlotCmd(s))
 	root.AddCommand(newColumnsCmd(s))
 	root.AddCommand(newReportCmd(s))
@@ -147,7 +147,12 @@ func Main(args []string, s Streams) int {
 // execute runs the command tree and turns its error into a message and an
 // exit code.
 func execute(ctx context.Context, args []string, s Streams, out *checkedWriter) int {
-	root := NewRoot(s)
+	return executeRoot(ctx, NewRoot(s), args, s, out)
+}
+
+// executeRoot is [execute] with a command tree already built (tests swap a
+// command for one that only captures its options).
+func executeRoot(ctx context.Context, root *cobra.Command, args []string, s Streams, out *checkedWriter) int {
 	root.SetArgs(args)
 	err := root.ExecuteContext(ctx)
 	if werr := out.failed(); werr != nil {

@@ -22,7 +22,9 @@ type settleOptions struct {
 	format                                      string
 }
 
-func newSettleCmd(s Streams) *cobra.Command {
+// newSettleCmd builds settle; a test passes runF to receive the checked
+// options instead of running.
+func newSettleCmd(s Streams, runF func(*settleOptions) error) *cobra.Command {
 	o := &settleOptions{}
 	cmd := &cobra.Command{
 		Use:   "settle --diameter <d> --density <ρ> [flags]",
@@ -53,6 +55,9 @@ sphere of the same volume.
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runSettle(o, s)
 		},

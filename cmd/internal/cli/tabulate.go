@@ -22,9 +22,12 @@ type tabulateOptions struct {
 	expects []string
 	only    string
 	format  string
+	fitSet  bool // --fit was given
 }
 
-func newTabulateCmd(s Streams) *cobra.Command {
+// newTabulateCmd builds tabulate; a test passes runF to receive the
+// checked options instead of running.
+func newTabulateCmd(s Streams, runF func(*tabulateOptions) error) *cobra.Command {
 	o := &tabulateOptions{}
 	cmd := &cobra.Command{
 		Use:   "tabulate {FILE | -} [flags]",
@@ -60,12 +63,15 @@ summary is for groups of many rows).`,
   flowregime batch survey.csv -q | flowregime tabulate - --by site --format json`,
 		Args: oneTable("tabulate", "a file"),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			o.input = args[0]
+			o.input, o.fitSet = args[0], cmd.Flags().Changed("fit")
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
 			}
-			if err := o.checkOnly(cmd.Flags().Changed("fit")); err != nil {
+			if err := o.checkOnly(o.fitSet); err != nil {
 				return err
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runTabulate(cmd.Context(), o, s)
 		},
