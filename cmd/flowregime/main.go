@@ -9,5 +9,5 @@ import (
 )
 
 func main() {
-	os.Exit(cli.Main(os.Args[1:], cli.Streams{In: os.Stdin, Out: os.Stdout, Err: os.Stderr}))
+	os.Exit(cli.Main(os.Args[1:], cli.System()))
 }

@@ -20,7 +20,6 @@ import (
 	"github.com/flowregime/flowregime/regime"
 	"github.com/schollz/progressbar/v3"
 	"github.com/spf13/cobra"
-	"golang.org/x/term"
 )
 
 type batchOptions struct {
@@ -448,8 +447,8 @@ func runBatch(ctx context.Context, o *batchOptions, s Streams) error {
 		_, err := fmt.Fprintf(s.Err, "flowregime: rejected %s\n", rejectText(r))
 		return err
 	}
-	if f, ok := s.Err.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {
-		bar := progressbar.NewOptions64(size, progressbar.OptionSetWriter(f), progressbar.OptionShowBytes(true),
+	if !o.quiet && s.IsStderrTTY() {
+		bar := progressbar.NewOptions64(size, progressbar.OptionSetWriter(s.Err), progressbar.OptionShowBytes(true),
 			progressbar.OptionSetDescription("batch"), progressbar.OptionClearOnFinish(), progressbar.OptionThrottle(200e6))
 		cfg.Progress = func(n int64) { bar.Set64(n) }
 		defer bar.Finish()

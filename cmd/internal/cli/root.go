@@ -7,7 +7,6 @@ import (
 	"context"
 	"errors"
 	"fmt"
-	"io"
 	"os"
 	"os/signal"
 	"strings"
@@ -16,16 +15,6 @@ import (
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/spf13/cobra"
 )
-
-// Streams are the command's input and outputs.
-type Streams struct {
-	In  io.Reader
-	Out io.Writer
-	Err io.Writer
-
-	outs *outputSet // the run's temporary files; set by Main
-	args []string   // the command line after the program's name; set by Main
-}
 
 // Exit codes.
 const (

@@ -7,7 +7,6 @@ import (
 
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/spf13/cobra"
-	"golang.org/x/term"
 )
 
 // bindWidth adds --width to every command and, before a command runs,
@@ -30,21 +29,19 @@ func bindWidth(root *cobra.Command, s Streams) {
 			out.columns = width
 			return nil
 		}
-		out.columns = terminalColumns(out)
+		out.columns = terminalColumns(s)
 		return nil
 	}
 }
 
 // terminalColumns is COLUMNS when it holds a usable width, else the width
-// of the terminal behind out, else 0.
-func terminalColumns(out *checkedWriter) int {
+// of the standard output's terminal, else 0.
+func terminalColumns(s Streams) int {
 	if c, err := strconv.Atoi(strings.TrimSpace(os.Getenv("COLUMNS"))); err == nil && c >= report.MinColumns {
 		return c
 	}
-	if f, ok := out.w.(*os.File); ok && term.IsTerminal(int(f.Fd())) {
-		if c, _, err := term.GetSize(int(f.Fd())); err == nil && c >= report.MinColumns {
-			return c
-		}
+	if c := s.TerminalWidth(); c >= report.MinColumns {
+		return c
 	}
 	return 0
 }
