@@ -2,6 +2,7 @@ package inputs
 
 import (
 	"fmt"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/media"
@@ -237,8 +238,8 @@ func fieldsWhere(keep func(int, Field) bool) []int {
 // organismField returns where a numeric field of the organism is kept, or
 // nil.
 func organismField(o *regime.Organism, f int) *float64 {
-	if at := Fields[f].organism; at != nil {
-		return at(o)
+	if off := places[f].organism; off >= 0 {
+		return (*float64)(unsafe.Add(unsafe.Pointer(o), off))
 	}
 	return nil
 }
@@ -246,11 +247,33 @@ func organismField(o *regime.Organism, f int) *float64 {
 // conditionField returns where a numeric condition of the medium is kept,
 // or nil.
 func conditionField(c *media.Conditions, f int) *float64 {
-	if at := Fields[f].condition; at != nil {
-		return at(c)
+	if off := places[f].condition; off >= 0 {
+		return (*float64)(unsafe.Add(unsafe.Pointer(c), off))
 	}
 	return nil
 }
+
+// place is where a field is kept, as byte offsets into regime.Organism and
+// media.Conditions (−1: not there).
+type place struct{ organism, condition int }
+
+// places are measured once from the table's accessors, so that reading a
+// row calls no function through a pointer: such a call would move the
+// row's organism and conditions to the heap, an allocation per row.
+var places = func() (out [NumFields]place) {
+	var o regime.Organism
+	var c media.Conditions
+	for i, f := range Fields {
+		out[i] = place{-1, -1}
+		if f.organism != nil {
+			out[i].organism = int(uintptr(unsafe.Pointer(f.organism(&o))) - uintptr(unsafe.Pointer(&o)))
+		}
+		if f.condition != nil {
+			out[i].condition = int(uintptr(unsafe.Pointer(f.condition(&c))) - uintptr(unsafe.Pointer(&c)))
+		}
+	}
+	return out
+}()
 
 // field returns where a numeric field is kept in the Input.
 func (in *Input) field(f int) *float64 {
