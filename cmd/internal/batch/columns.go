@@ -8,7 +8,59 @@ import (
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
+	"github.com/flowregime/flowregime/regime"
 )
+
+// computedColumn is a column batch appends to every output row. A new
+// computed column is a row of computedColumns: its name and how its cell
+// is written; CSV, TSV, JSON Lines, the table output and the header all
+// follow it.
+type computedColumn struct {
+	name string
+	// num gives a number column's value, written with 6 significant digits;
+	// NaN (the quantity does not apply) is an empty cell, null in JSON.
+	num func(*regime.Result) float64
+	// text appends a text column's cell, a JSON string.
+	text   func(b []byte, o *outcome, s *scratch) []byte
+	quoted bool // the text may hold a delimiter or a quote: CSV quotes it as needed
+}
+
+// computedColumns are the columns appended to every output row, in order.
+var computedColumns = []computedColumn{
+	{name: "density_kg_m3", num: func(r *regime.Result) float64 { return r.Medium.Density }},
+	{name: "kinematic_viscosity_m2_s", num: func(r *regime.Result) float64 { return r.Viscosity / r.Medium.Density }},
+	{name: "reynolds", num: func(r *regime.Result) float64 { return r.Reynolds }},
+	{name: "regime", quoted: true, text: func(b []byte, o *outcome, _ *scratch) []byte { return append(b, o.r.Regime...) }},
+	{name: "strouhal", num: func(r *regime.Result) float64 { return r.Strouhal }},
+	{name: "drag_law", quoted: true, text: func(b []byte, o *outcome, _ *scratch) []byte { return append(b, o.r.Drag.Chosen.Law...) }},
+	{name: "drag_N", num: func(r *regime.Result) float64 { return r.Drag.Chosen.Force }},
+	{name: "power_kind", quoted: true, text: func(b []byte, o *outcome, _ *scratch) []byte { return append(b, o.r.Power.Kind...) }},
+	{name: "power_W", num: func(r *regime.Result) float64 { return r.Power.Total }},
+	{name: "flags", text: func(b []byte, o *outcome, _ *scratch) []byte { return appendJoined(b, o.flags) }},
+	{name: "flag_reasons", quoted: true, text: func(b []byte, o *outcome, s *scratch) []byte { return append(b, o.reasons(s)...) }},
+	{name: "assumed", text: func(b []byte, o *outcome, _ *scratch) []byte { return appendJoined(b, o.assumed) }},
+}
+
+// Computed are the names of the columns appended to every output row, in
+// order.
+var Computed = func() []string {
+	names := make([]string, len(computedColumns))
+	for i, c := range computedColumns {
+		names[i] = c.name
+	}
+	return names
+}()
+
+// appendJoined appends codes separated by ";" (codes hold no delimiter).
+func appendJoined(b []byte, codes []string) []byte {
+	for i, c := range codes {
+		if i > 0 {
+			b = append(b, ';')
+		}
+		b = append(b, c...)
+	}
+	return b
+}
 
 // mapping ties input columns to the quantities they hold.
 type mapping struct {

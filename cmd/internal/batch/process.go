@@ -240,7 +240,7 @@ func (p *processor) appendJSON(b []byte, fields, keys []string, raws []json.RawM
 		b = append(b, ':')
 		v := p.vals[i]
 		switch {
-		case textColumn[c]:
+		case i < len(computedColumns) && computedColumns[i].text != nil:
 			b = appendJSONString(b, v)
 		case v == "":
 			b = append(b, "null"...)
@@ -250,8 +250,6 @@ func (p *processor) appendJSON(b []byte, fields, keys []string, raws []json.RawM
 	}
 	return append(b, '}')
 }
-
-var textColumn = map[string]bool{"regime": true, "drag_law": true, "power_kind": true, "flags": true, "flag_reasons": true, "assumed": true}
 
 // shapeGiven reports whether a row names its shape: in its shape column,
 // else by a constant (--shape).

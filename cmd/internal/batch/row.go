@@ -15,12 +15,6 @@ import (
 	"github.com/flowregime/flowregime/regime"
 )
 
-// Computed are the columns appended to every output row, in order.
-var Computed = []string{
-	"density_kg_m3", "kinematic_viscosity_m2_s", "reynolds", "regime", "strouhal",
-	"drag_law", "drag_N", "power_kind", "power_W", "flags", "flag_reasons", "assumed",
-}
-
 // UncertaintyColumns follow Computed when uncertainty is propagated.
 var UncertaintyColumns = []string{
 	"reynolds_low95", "reynolds_high95", "strouhal_low95", "strouhal_high95",
@@ -319,7 +313,8 @@ type scratch struct {
 	flags      []string
 	assumed    []string
 	reasons    []byte
-	shapeGiven bool // the row names its shape (set before each row)
+	cell       []byte // one computed text cell (computedColumn.text)
+	shapeGiven bool   // the row names its shape (set before each row)
 }
 
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
@@ -410,17 +405,19 @@ func (o outcome) reasons(s *scratch) []byte {
 
 // values returns the computed columns as text, in the order of columns().
 func (o outcome) values(dst []string, withUnc bool, s *scratch) []string {
-	r := o.r
 	var buf [32]byte
-	num := func(v float64) string { return string(appendNum(buf[:0], v)) }
-	dst = append(dst,
-		num(r.Medium.Density), num(r.Viscosity/r.Medium.Density), num(r.Reynolds), r.Regime, num(r.Strouhal),
-		r.Drag.Chosen.Law, num(r.Drag.Chosen.Force), r.Power.Kind, num(r.Power.Total), strings.Join(o.flags, ";"),
-		string(o.reasons(s)), strings.Join(o.assumed, ";"),
-	)
+	for i := range computedColumns {
+		c := &computedColumns[i]
+		if c.num != nil {
+			dst = append(dst, string(appendNum(buf[:0], c.num(o.r))))
+		} else {
+			s.cell = c.text(s.cell[:0], &o, s)
+			dst = append(dst, string(s.cell))
+		}
+	}
 	if withUnc {
 		for _, v := range o.uncValues() {
-			dst = append(dst, num(v))
+			dst = append(dst, string(appendNum(buf[:0], v)))
 		}
 	}
 	return dst
@@ -456,34 +453,19 @@ func (o outcome) uncValues() []float64 {
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
 // by the delimiter, without building intermediate strings.
 func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byte {
-	r := o.r
 	b = slices.Grow(b, 256)
-	b = appendNum(append(b, delim), r.Medium.Density)
-	b = appendNum(append(b, delim), r.Viscosity/r.Medium.Density)
-	b = appendNum(append(b, delim), r.Reynolds)
-	b = appendField(append(b, delim), r.Regime, delim)
-	b = appendNum(append(b, delim), r.Strouhal)
-	b = appendField(append(b, delim), r.Drag.Chosen.Law, delim)
-	b = appendNum(append(b, delim), r.Drag.Chosen.Force)
-	b = appendField(append(b, delim), r.Power.Kind, delim)
-	b = appendNum(append(b, delim), r.Power.Total)
-	b = append(b, delim)
-	for i, f := range o.flags {
-		if i > 0 {
-			b = append(b, ';')
+	for i := range computedColumns {
+		c := &computedColumns[i]
+		b = append(b, delim)
+		switch {
+		case c.num != nil:
+			b = appendNum(b, c.num(o.r))
+		case c.quoted:
+			s.cell = c.text(s.cell[:0], &o, s)
+			b = appendBytesField(b, s.cell, delim)
+		default:
+			b = c.text(b, &o, s)
 		}
-		b = append(b, f...)
-	}
-	b = append(b, delim)
-	if len(o.flags) > 0 {
-		b = appendBytesField(b, o.reasons(s), delim)
-	}
-	b = append(b, delim)
-	for i, a := range o.assumed {
-		if i > 0 {
-			b = append(b, ';')
-		}
-		b = append(b, a...)
 	}
 	if withUnc {
 		for _, v := range o.uncValues() {

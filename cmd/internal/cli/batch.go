@@ -36,9 +36,9 @@ type batchOptions struct {
 	uncOn                                              bool
 }
 
-const batchHelp = `Read a survey table (CSV, TSV or JSON Lines; FILE or - for stdin) and
+var batchHelp = `Read a survey table (CSV, TSV or JSON Lines; FILE or - for stdin) and
 write every row back with computed columns appended:
-  ` + "density_kg_m3, kinematic_viscosity_m2_s, reynolds, regime, strouhal, drag_law, drag_N, power_kind, power_W, flags, flag_reasons, assumed" + `
+  ` + strings.Join(batch.Computed, ", ") + `
 Input columns are carried through unchanged and in order.
 
 Columns are matched to quantities by header, with units taken from the
