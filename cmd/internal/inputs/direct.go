@@ -5,8 +5,6 @@ import (
 	"strings"
 
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
-	"github.com/flowregime/flowregime/media"
-	"github.com/flowregime/flowregime/regime"
 )
 
 // Column is a table column that holds one field, with the conversion of
@@ -61,9 +59,7 @@ type directNum struct {
 // constant with an uncertainty or an error.
 func NewDirect(constants *Cells, cols []Column, labels [NumFields]string, defaultMedium string) (*Direct, bool) {
 	d := &Direct{defaultMedium: defaultMedium}
-	d.base.Organism = regime.NewOrganism(regime.Body{Length: math.NaN(), Diameter: math.NaN(),
-		DragCoefficient: math.NaN(), ReferenceArea: math.NaN()}, math.NaN())
-	d.base.Conditions = media.Unset("")
+	d.base = blankInput()
 	hasCol := [NumFields]bool{}
 	for _, c := range cols {
 		hasCol[c.Field] = true
@@ -149,26 +145,10 @@ func (d *Direct) Row(fields []string) (in *Input, ok bool, err error) {
 	if d.speedPerBL {
 		o.Speed *= o.Body.Length
 	}
-	b := &o.Body
-	hasCD, hasArea := !math.IsNaN(b.DragCoefficient), !math.IsNaN(b.ReferenceArea)
-	shape, err := bodyShape(!math.IsNaN(b.Diameter), hasCD, hasArea, d.shape, d.shapeLabel)
-	if err != nil {
+	if err := finishOrganism(o, d.shape, d.shapeLabel, &d.labels); err != nil {
 		return nil, true, err
 	}
-	b.Shape = shape
-	if shape != regime.Measured { // BuildCells leaves them zero
-		b.DragCoefficient, b.ReferenceArea = 0, 0
-	}
-	if err := checkOrganism(o, &d.labels); err != nil {
-		return nil, true, err
-	}
-	if err := validBody(*b); err != nil {
-		return nil, true, err
-	}
-	if d.in.Conditions.Medium == "" {
-		d.in.Conditions.Medium = d.defaultMedium
-	}
-	if err := checkConditions(d.in.Conditions); err != nil {
+	if err := finishConditions(&d.in.Conditions, d.defaultMedium); err != nil {
 		return nil, true, err
 	}
 	return &d.in, true, nil

@@ -141,7 +141,7 @@ func BuildCells(c *Cells, defaultMedium string, keep bool) (Input, error) {
 }
 
 func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
-	var in Input
+	in := blankInput()
 	if ok, lengthLabel := rd.has(Length); !ok {
 		return in, fmt.Errorf("%s is required, e.g. 12mm (a sphere's diameter, or the body length)", orName(lengthLabel, "length"))
 	}
@@ -154,71 +154,103 @@ func (rd *reader) build(defaultMedium string, keep bool) (Input, error) {
 			in.Values[i].SI = math.NaN()
 		}
 	}
-	val := func(field int) float64 {
-		if !keep {
-			return rd.num(field)
-		}
-		v := rd.value(field)
-		in.Values[field] = v
-		return v.SI
-	}
-	length := val(Length)
-	dia := val(Diameter)
+	o := &in.Organism
+	rd.readInto(&in, Length)
+	rd.readInto(&in, Diameter)
 	sp := rd.value(Speed)
 	if rd.err != nil {
 		return in, rd.err
 	}
-	speed := sp.SI
 	if sp.PerBodyLength {
-		speed *= length
-		sp = quantity.Value{SI: speed, SD: sp.SD * length, Unit: "m/s"}
+		sp = quantity.Value{SI: sp.SI * o.Body.Length, SD: sp.SD * o.Body.Length, Unit: "m/s"}
 	}
+	o.Speed = sp.SI
 	if keep {
 		in.Values[Speed] = sp
 	}
 
+	// The shape is checked here, from the cells given, so that its error
+	// comes before those of the fields read after it; it also says whether
+	// the drag coefficient and area are read at all.
 	hasCD, _ := rd.has(DragCoefficient)
 	hasArea, _ := rd.has(Area)
 	shapeText, shapeLabel := rd.text(Shape)
-	shape, err := bodyShape(!math.IsNaN(dia), hasCD, hasArea, shapeText, shapeLabel)
+	shape, err := bodyShape(!math.IsNaN(o.Body.Diameter), hasCD, hasArea, shapeText, shapeLabel)
 	if err != nil {
 		return in, err
 	}
-	b := regime.Body{Shape: shape, Length: length, Diameter: dia}
 	if shape == regime.Measured {
-		b.DragCoefficient = rd.num(DragCoefficient)
-		b.ReferenceArea = rd.num(Area)
+		rd.readInto(&in, DragCoefficient)
+		rd.readInto(&in, Area)
 	}
-	o := regime.NewOrganism(b, speed)
 	for _, f := range organismOptional {
-		if Fields[f].Kept {
-			*organismField(&o, f) = val(f)
-		} else {
-			*organismField(&o, f) = rd.num(f)
-		}
+		rd.readInto(&in, f)
 	}
 	o.Disc, _ = rd.text(Disc)
 	if rd.err != nil {
 		return in, rd.err
 	}
-	if err := checkOrganism(&o, &rd.c.Label); err != nil {
+	if err := finishOrganism(o, shapeText, shapeLabel, &rd.c.Label); err != nil {
 		return in, err
 	}
-	if err := validBody(b); err != nil {
+	in.Conditions.Medium, _ = rd.text(Medium)
+	if err := rd.conditions(&in); err != nil {
 		return in, err
 	}
-	in.Organism = o
+	return in, finishConditions(&in.Conditions, defaultMedium)
+}
 
-	medium, _ := rd.text(Medium)
-	if medium == "" {
-		medium = defaultMedium
+// readInto reads a numeric field into its place in the input and, when
+// in.Values is kept and the field is propagated (Field.Kept), into Values.
+func (rd *reader) readInto(in *Input, f int) {
+	if in.Values != nil && Fields[f].Kept {
+		v := rd.value(f)
+		in.Values[f] = v
+		*in.field(f) = v.SI
+		return
 	}
-	c, err := rd.conditions(medium, in.Values)
+	*in.field(f) = rd.num(f)
+}
+
+// blankInput is an input with every numeric field not given (NaN): both
+// row readers start from it.
+func blankInput() Input {
+	n := math.NaN()
+	return Input{
+		Organism:   regime.NewOrganism(regime.Body{Length: n, Diameter: n, DragCoefficient: n, ReferenceArea: n}, n),
+		Conditions: media.Unset(""),
+	}
+}
+
+// finishOrganism completes an organism whose numbers are in place (NaN
+// where not given) and checks it: its shape (named by shapeText, else
+// from the fields given), the measured body's coefficient and area kept
+// only for a measured body, the positivity checks and regime's check of
+// the body. Both row readers end with it (Build through BuildCells, and
+// Direct), so they agree by construction on every row they both read.
+func finishOrganism(o *regime.Organism, shapeText, shapeLabel string, labels *[NumFields]string) error {
+	b := &o.Body
+	shape, err := bodyShape(!math.IsNaN(b.Diameter), !math.IsNaN(b.DragCoefficient), !math.IsNaN(b.ReferenceArea), shapeText, shapeLabel)
 	if err != nil {
-		return in, err
+		return err
 	}
-	in.Conditions = c
-	return in, nil
+	b.Shape = shape
+	if shape != regime.Measured {
+		b.DragCoefficient, b.ReferenceArea = 0, 0
+	}
+	if err := checkOrganism(o, labels); err != nil {
+		return err
+	}
+	return validBody(*b)
+}
+
+// finishConditions gives conditions without a medium the default one and
+// checks them; both row readers end with it.
+func finishConditions(c *media.Conditions, defaultMedium string) error {
+	if c.Medium == "" {
+		c.Medium = defaultMedium
+	}
+	return checkConditions(*c)
 }
 
 // bodyShape is the shape of a body: the named one, else a measured body
@@ -273,18 +305,19 @@ func orName(label, name string) string {
 
 // Conditions reads the medium fields of src for the named medium.
 func Conditions(src Source, medium string) (media.Conditions, error) {
-	return newReader(src).conditions(medium, nil)
+	in := blankInput()
+	in.Conditions.Medium = medium
+	if err := newReader(src).conditions(&in); err != nil {
+		return in.Conditions, err
+	}
+	return in.Conditions, finishConditions(&in.Conditions, medium)
 }
 
-func (rd *reader) conditions(medium string, values []quantity.Value) (media.Conditions, error) {
-	c := media.Unset(medium)
+// conditions reads the medium's numeric conditions into in.
+func (rd *reader) conditions(in *Input) error {
+	c := &in.Conditions
 	for _, f := range conditionFields {
-		if Fields[f].Kept && values != nil {
-			values[f] = rd.value(f)
-			*conditionField(&c, f) = values[f].SI
-		} else {
-			*conditionField(&c, f) = rd.num(f)
-		}
+		rd.readInto(in, f)
 	}
 	if off := rd.value(TempOffset); !math.IsNaN(off.SI) {
 		switch off.Unit {
@@ -293,13 +326,10 @@ func (rd *reader) conditions(medium string, values []quantity.Value) (media.Cond
 		case "K":
 			c.TemperatureOffset = off.SI + media.ZeroCelsiusK
 		default:
-			return c, fmt.Errorf("%s: give the offset in K or °C, e.g. 5K", rd.c.Label[TempOffset])
+			return fmt.Errorf("%s: give the offset in K or °C, e.g. 5K", rd.c.Label[TempOffset])
 		}
 	}
-	if rd.err != nil {
-		return c, rd.err
-	}
-	return c, checkConditions(c)
+	return rd.err
 }
 
 // Flags is a Source over flag values keyed by field name.
