@@ -231,3 +231,72 @@ func TestTabulateOptions(t *testing.T) {
 		{line: "tabulate s.csv --rejects r.csv", errHas: "unknown flag: --rejects"},
 	})
 }
+
+func TestSweepOptions(t *testing.T) {
+	// sweep binds calc's organism and medium flags but not --gliding or
+	// the uncertainty flags.
+	defaults := func() sweepOptions {
+		return sweepOptions{calcOptions: calcOptions{organism: defaultOrganism(), medium: media.KindFreshWater, format: report.FormatTable}, steps: 21}
+	}
+	checkOptionCases(t, newSweepCmd, defaults, []optionCase[sweepOptions]{
+		{line: "sweep --vary temperature=0C:30C --steps 31 --length 2mm --speed 5mm/s", want: func(o *sweepOptions) {
+			o.vary, o.steps = "temperature=0C:30C", 31
+			o.organism.fieldFlags[inputs.Length], o.organism.fieldFlags[inputs.Speed] = "2mm", "5mm/s"
+		}},
+		{line: "sweep --vary speed=10um/s:1m/s --log --length 1mm --medium air --altitude 500m --format csv", want: func(o *sweepOptions) {
+			o.vary, o.log, o.medium, o.format = "speed=10um/s:1m/s", true, media.KindAir, report.FormatCSV
+			o.organism.fieldFlags[inputs.Length] = "1mm"
+			o.flags.fieldFlags[inputs.Altitude] = "500m"
+		}},
+		{line: "sweep --vary speed=1:2 --format svg", errHas: "svg"},
+		{line: "sweep --vary speed=1:2 --steps x", errHas: "--steps"},
+		{line: "sweep --vary speed=1:2 --gliding", errHas: "unknown flag: --gliding"},
+	})
+}
+
+func TestPowerCurveOptions(t *testing.T) {
+	defaults := func() powerCurveCmdOptions {
+		return powerCurveCmdOptions{powerCurveOptions: powerCurveOptions{
+			calcOptions: calcOptions{organism: defaultOrganism(), medium: media.KindAir, format: report.FormatTable},
+			from:        "0.5m/s", to: "30m/s", steps: 60}}
+	}
+	checkOptionCases(t, newPowerCurveCmd, defaults, []optionCase[powerCurveCmdOptions]{
+		{line: "powercurve --length 16cm --diameter 3.5cm --mass 40g --span 42cm --chord 4cm -o swallow.svg", want: func(o *powerCurveCmdOptions) {
+			f := &o.organism.fieldFlags
+			f[inputs.Length], f[inputs.Diameter], f[inputs.Mass], f[inputs.Span], f[inputs.Chord] = "16cm", "3.5cm", "40g", "42cm", "4cm"
+			o.out = "swallow.svg"
+		}},
+		{line: "powercurve --length 16cm --mass 40g --span 42cm --gliding --from 3m/s --to 20m/s --steps 10 --format json", want: func(o *powerCurveCmdOptions) {
+			f := &o.organism.fieldFlags
+			f[inputs.Length], f[inputs.Mass], f[inputs.Span] = "16cm", "40g", "42cm"
+			o.gliding, o.from, o.to, o.steps, o.format = true, "3m/s", "20m/s", 10, report.FormatJSON
+		}},
+		{line: "powercurve --length 16cm -o curve.gif", errHas: "gif"},
+		{line: "powercurve --length 16cm --format xml", errHas: "xml"},
+		{line: "powercurve --length 16cm --steps many", errHas: "--steps"},
+	})
+}
+
+func TestScaleModelOptions(t *testing.T) {
+	defaults := func() scaleOptions {
+		return scaleOptions{calc: calcOptions{organism: defaultOrganism(), medium: media.KindFreshWater, format: report.FormatTable},
+			tankTemp: "20C", match: matchReynolds}
+	}
+	checkOptionCases(t, newScaleModelCmd, defaults, []optionCase[scaleOptions]{
+		{line: "scalemodel --length 1mm --speed 1cm/s --freq 20Hz --amplitude 0.5mm --medium seawater --model-length 10cm --model-speed 5cm/s",
+			want: func(o *scaleOptions) {
+				f := &o.calc.organism.fieldFlags
+				f[inputs.Length], f[inputs.Speed], f[inputs.Frequency], f[inputs.Amplitude] = "1mm", "1cm/s", "20Hz", "0.5mm"
+				o.calc.medium, o.modelLength, o.modelSpeed = media.KindSeawater, "10cm", "5cm/s"
+			}},
+		{line: "scalemodel --length 30cm --speed 0.6m/s --scale 2 --fluid freshwater --fluid oil --oil-point 20C=65mPas --oil-point 40C=30mPas --oil-density 870kg/m3 --match froude --tank-temp 15C",
+			want: func(o *scaleOptions) {
+				o.calc.organism.fieldFlags[inputs.Length], o.calc.organism.fieldFlags[inputs.Speed] = "30cm", "0.6m/s"
+				o.scale, o.fluids, o.match, o.tankTemp = "2", []string{"freshwater", "oil"}, "froude", "15C"
+				o.oilPoints, o.oilDensity = []string{"20C=65mPas", "40C=30mPas"}, "870kg/m3"
+			}},
+		{line: "scalemodel --length 1mm --speed 1cm/s --scale 10 --mass 2g", errHas: "--mass does not enter a scale model"},
+		{line: "scalemodel --length 1mm --speed 1cm/s --scale 10 --format html", errHas: "html"},
+		{line: "scalemodel --length 1mm --speed 1cm/s --scale 10 --uncertainty linear", errHas: "unknown flag: --uncertainty"},
+	})
+}

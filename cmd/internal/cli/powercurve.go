@@ -23,7 +23,9 @@ type powerCurveCmdOptions struct {
 	figureOutput
 }
 
-func newPowerCurveCmd(s Streams) *cobra.Command {
+// newPowerCurveCmd builds powercurve; a test passes runF to receive the
+// checked options instead of running.
+func newPowerCurveCmd(s Streams, runF func(*powerCurveCmdOptions) error) *cobra.Command {
 	o := &powerCurveCmdOptions{}
 	cmd := &cobra.Command{
 		Use:   "powercurve --length <L> --diameter <d> --mass <m> --span <b> [-o curve.svg] [flags]",
@@ -42,36 +44,49 @@ flapping work: the speeds are those of minimum sink and best glide.` + "\n\n" + 
   flowregime powercurve --length 16cm --diameter 3.5cm --mass 40g --span 42cm --format csv`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := report.CheckFormat(o.format); err != nil {
-				return usageError{err}
-			}
-			format := ""
-			if o.out != "" {
-				f, err := o.figureOutput.figureFormat()
-				if err != nil {
-					return err
-				}
-				format = f
-			}
-			pc, err := computePowerCurve(&o.powerCurveOptions)
-			if err != nil {
+			if err := o.validate(); err != nil {
 				return err
 			}
-			if o.out != "" {
-				fig, err := figure.PowerFigure(pc)
-				if err != nil {
-					return err
-				}
-				if err := writeFigure(s, fig, o.figureOutput, format, nil); err != nil {
-					return err
-				}
+			if runF != nil {
+				return runF(o)
 			}
-			return writePowerCurve(pc, o.format, o.out != "", s)
+			return runPowerCurve(o, s)
 		},
 	}
 	bindPowerCurveFlags(cmd, &o.powerCurveOptions)
 	cmd.Flags().StringVarP(&o.out, "output", "o", "", "draw the curve to this file: .svg, .png or .pdf")
 	return cmd
+}
+
+// validate checks the output format and the figure's file name.
+func (o *powerCurveCmdOptions) validate() error {
+	if err := report.CheckFormat(o.format); err != nil {
+		return usageError{err}
+	}
+	if o.out != "" {
+		if _, err := o.figureOutput.figureFormat(); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func runPowerCurve(o *powerCurveCmdOptions, s Streams) error {
+	pc, err := computePowerCurve(&o.powerCurveOptions)
+	if err != nil {
+		return err
+	}
+	if o.out != "" {
+		fig, err := figure.PowerFigure(pc)
+		if err != nil {
+			return err
+		}
+		format, _ := o.figureOutput.figureFormat() // checked by validate
+		if err := writeFigure(s, fig, o.figureOutput, format, nil); err != nil {
+			return err
+		}
+	}
+	return writePowerCurve(pc, o.format, o.out != "", s)
 }
 
 // bindPowerCurveFlags binds the flags powercurve and plot power share.

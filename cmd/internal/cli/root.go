@@ -81,7 +81,7 @@ really lives in, and what drag and power follow from the law that fits.
 		return usageError{fmt.Errorf("%v (see 'flowregime %s --help')", err, c.Name())}
 	})
 	bindWidth(root, s)
-	root.AddCommand(newMediumCmd(s, nil), newCalcCmd(s, nil), newScaleModelCmd(s), newSettleCmd(s, nil), newLawsCmd(s), newBatchCmd(s, nil), newTabulateCmd(s, nil), newDemoCmd(s), newFitCmd(s, nil), newSweepCmd(s), newPowerCurveCmd(s), newReduceCmd(s))
+	root.AddCommand(newMediumCmd(s, nil), newCalcCmd(s, nil), newScaleModelCmd(s, nil), newSettleCmd(s, nil), newLawsCmd(s), newBatchCmd(s, nil), newTabulateCmd(s, nil), newDemoCmd(s), newFitCmd(s, nil), newSweepCmd(s, nil), newPowerCurveCmd(s, nil), newReduceCmd(s))
 	root.AddCommand(newPlotCmd(s))
 	root.AddCommand(newColumnsCmd(s))
 	root.AddCommand(newReportCmd(s))

@@ -64,7 +64,9 @@ Force and power ratios carry model measurements back: organism force =
 model force ÷ (F model/F organism). Glycerol–water: Cheng 2008 (viscosity),
 Volk & Kähler 2018 (density); sucrose: CRC Handbook 102nd ed., 20 °C only.`
 
-func newScaleModelCmd(s Streams) *cobra.Command {
+// newScaleModelCmd builds scalemodel; a test passes runF to receive the
+// checked options instead of running.
+func newScaleModelCmd(s Streams, runF func(*scaleOptions) error) *cobra.Command {
 	o := &scaleOptions{}
 	cmd := &cobra.Command{
 		Use:   "scalemodel --length <L> --speed <U> (--model-length <L> | --scale <x>) [flags]",
@@ -87,6 +89,9 @@ fraction, sucrose, oil) that makes the match possible.
 				if cmd.Flags().Changed(name) {
 					return usagef("--%s does not enter a scale model; scalemodel scales the whole shape and takes Re on --length (give there the length Re should be on), St on --amplitude, k on --chord", name)
 				}
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runScaleModel(o, s)
 		},

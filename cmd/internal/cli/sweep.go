@@ -21,7 +21,9 @@ type sweepOptions struct {
 	log   bool
 }
 
-func newSweepCmd(s Streams) *cobra.Command {
+// newSweepCmd builds sweep; a test passes runF to receive the checked
+// options instead of running.
+func newSweepCmd(s Streams, runF func(*sweepOptions) error) *cobra.Command {
 	o := &sweepOptions{}
 	cmd := &cobra.Command{
 		Use:   "sweep --vary <quantity>=<from>:<to> [calc flags]",
@@ -39,6 +41,9 @@ The other inputs are the calc flags.` + "\n\n" + estimateNotice,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := report.CheckFormat(o.format); err != nil {
 				return usageError{err}
+			}
+			if runF != nil {
+				return runF(o)
 			}
 			return runSweep(o, s)
 		},
