@@ -456,7 +456,7 @@ func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
 	return us, idx
 }
 
-// Evaluator returns a function computing, with regime.CalcChosenInto, the
+// Evaluator returns a function computing, with regime.CalcInto (brief), the
 // result for values of the uncertain fields idx, with the medium from
 // lookup (media.LookupBrief, or a cache in front of it) for each. Every call
 // sets all of idx, so one copy of the input serves all draws.
@@ -470,6 +470,6 @@ func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (*media.Prope
 		if err != nil {
 			return err
 		}
-		return regime.CalcChosenInto(r, &d.Organism, m)
+		return regime.CalcInto(r, d.Organism, m, regime.Options{Brief: true})
 	}
 }

@@ -8,11 +8,12 @@ import (
 	"github.com/flowregime/flowregime/regime"
 )
 
-// positiveFields are the organism's sizes, speeds and rates: each must be
-// above zero when given. The drag coefficient and reference area are
-// checked with the measured body that uses them.
+// positiveFields are the organism's sizes, speeds, rates and factors: each
+// must be above zero when given (regime reads a zero as not given, so a
+// zero typed by a user is refused here). The drag coefficient and reference
+// area are checked with the measured body that uses them.
 var positiveFields = [...]int{Length, Diameter, Speed, Frequency, Amplitude, Mass, Span, WingLength, Chord,
-	WingArea, StrokeAngle, Diffusivity, ShearRate, RelaxationTime}
+	WingArea, StrokeAngle, Diffusivity, ShearRate, RelaxationTime, InducedFactor, ProfileDrag}
 
 // MustBePositive reports whether a field's values must be above zero.
 func MustBePositive(field int) bool {
