@@ -51,38 +51,43 @@ func NewOrganism(b Body, speed float64) Organism {
 // optionalInput is one of the Organism's optional quantities: positive and
 // at most max when given; zero and NaN both mean not given.
 type optionalInput struct {
-	name  string // as messages name it
-	unit  string // SI
-	max   float64
-	field func(o *Organism) *float64
+	name string // as messages name it
+	unit string // SI
+	max  float64
+	v    *float64
 }
 
 // optionalInputs are the Organism's optional quantities in the order they
 // are checked. A new optional quantity is a field of Organism and a line
-// here.
-var optionalInputs = [...]optionalInput{
-	{"frequency", "Hz", math.MaxFloat64, func(o *Organism) *float64 { return &o.Frequency }},
-	{"amplitude", "m", math.MaxFloat64, func(o *Organism) *float64 { return &o.Amplitude }},
-	{"mass", "kg", math.MaxFloat64, func(o *Organism) *float64 { return &o.Mass }},
-	{"span", "m", math.MaxFloat64, func(o *Organism) *float64 { return &o.Span }},
-	{"wing length", "m", math.MaxFloat64, func(o *Organism) *float64 { return &o.WingLength }},
-	{"chord", "m", math.MaxFloat64, func(o *Organism) *float64 { return &o.Chord }},
-	{"wing area", "m²", math.MaxFloat64, func(o *Organism) *float64 { return &o.WingArea }},
-	{"stroke angle", "rad", math.MaxFloat64, func(o *Organism) *float64 { return &o.StrokeAngle }},
-	{"diffusivity", "m²/s", math.MaxFloat64, func(o *Organism) *float64 { return &o.Diffusivity }},
-	{"shear rate", "1/s", math.MaxFloat64, func(o *Organism) *float64 { return &o.ShearRate }},
-	{"relaxation time", "s", math.MaxFloat64, func(o *Organism) *float64 { return &o.RelaxationTime }},
-	{"induced-power factor", "", math.MaxFloat64, func(o *Organism) *float64 { return &o.InducedFactor }},
-	{"profile-drag coefficient", "", math.MaxFloat64, func(o *Organism) *float64 { return &o.ProfileCD }},
-	{"efficiency", "", 1, func(o *Organism) *float64 { return &o.Efficiency }},
+// here. (Pointers built per call, rather than accessor functions in a
+// package table, keep o on the caller's stack: batch work allocates
+// nothing.)
+func (o *Organism) optionalInputs() [14]optionalInput {
+	const none = math.MaxFloat64 // no upper bound
+	return [...]optionalInput{
+		{"frequency", "Hz", none, &o.Frequency},
+		{"amplitude", "m", none, &o.Amplitude},
+		{"mass", "kg", none, &o.Mass},
+		{"span", "m", none, &o.Span},
+		{"wing length", "m", none, &o.WingLength},
+		{"chord", "m", none, &o.Chord},
+		{"wing area", "m²", none, &o.WingArea},
+		{"stroke angle", "rad", none, &o.StrokeAngle},
+		{"diffusivity", "m²/s", none, &o.Diffusivity},
+		{"shear rate", "1/s", none, &o.ShearRate},
+		{"relaxation time", "s", none, &o.RelaxationTime},
+		{"induced-power factor", "", none, &o.InducedFactor},
+		{"profile-drag coefficient", "", none, &o.ProfileCD},
+		{"efficiency", "", 1, &o.Efficiency},
+	}
 }
 
 // normalize marks every optional value left zero as not given (NaN), the
 // form the rest of this package reads.
 func (o *Organism) normalize() {
-	for i := range optionalInputs {
-		if p := optionalInputs[i].field(o); *p == 0 {
-			*p = math.NaN()
+	for _, in := range o.optionalInputs() {
+		if *in.v == 0 {
+			*in.v = math.NaN()
 		}
 	}
 }
@@ -90,16 +95,22 @@ func (o *Organism) normalize() {
 // checkOptional refuses a given optional value that is not positive or is
 // above its maximum.
 func (o *Organism) checkOptional() error {
-	for i := range optionalInputs {
-		in := &optionalInputs[i]
-		if v := *in.field(o); v == v && !(v > 0 && v <= in.max) {
-			if in.max < math.MaxFloat64 {
-				return &InputError{Field: in.name, Value: v, Min: 0, Max: in.max, Unit: in.unit}
-			}
-			return positiveError(in.name, v, in.unit, bare)
+	for i, in := range o.optionalInputs() {
+		if v := *in.v; v == v && !(v > 0 && v <= in.max) {
+			return optionalError(*o, i)
 		}
 	}
 	return nil
+}
+
+// optionalError refuses o's optional value i. It takes a copy of o so that
+// the check above keeps o on the caller's stack.
+func optionalError(o Organism, i int) error {
+	in := o.optionalInputs()[i]
+	if in.max < math.MaxFloat64 {
+		return &InputError{Field: in.name, Value: *in.v, Min: 0, Max: in.max, Unit: in.unit}
+	}
+	return positiveError(in.name, *in.v, in.unit, bare)
 }
 
 // Power kinds.

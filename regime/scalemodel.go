@@ -29,7 +29,7 @@ const (
 )
 
 // Prototype is the organism side of a scale model, in SI; Frequency,
-// Amplitude and Chord are NaN when not given.
+// Amplitude and Chord are zero (or NaN) when not given.
 type Prototype struct {
 	Length    float64 // m
 	Speed     float64 // m/s
@@ -89,7 +89,7 @@ func (p Prototype) Check() error {
 		return errorf("the organism's length, speed and medium must be positive numbers")
 	}
 	for _, v := range []float64{p.Frequency, p.Amplitude, p.Chord} {
-		if !math.IsNaN(v) && !positive(v) {
+		if v != 0 && !math.IsNaN(v) && !positive(v) {
 			return errorf("frequency, amplitude and chord must be positive when given")
 		}
 	}
@@ -100,6 +100,11 @@ func (p Prototype) Check() error {
 // viscosity nu (m²/s) and density rho (kg/m³) that matches the prototype's
 // Strouhal number and, by mode, its Reynolds or Froude number.
 func Similar(p Prototype, lm, nu, rho float64, mode string) (Similarity, error) {
+	for _, v := range []*float64{&p.Frequency, &p.Amplitude, &p.Chord} {
+		if *v == 0 {
+			*v = math.NaN() // not given
+		}
+	}
 	if err := p.Check(); err != nil {
 		return Similarity{}, err
 	}

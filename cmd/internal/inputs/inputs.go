@@ -313,7 +313,7 @@ func bodyShape(hasDia, hasCD, hasArea bool, name, label string) (regime.Shape, e
 	if name != "" {
 		sh, err := regime.ParseShape(name)
 		if err != nil {
-			return shape, fmt.Errorf("%s: %s", label, strings.TrimPrefix(err.Error(), "regime: "))
+			return shape, fmt.Errorf("%s: %s", label, Reason(err))
 		}
 		shape = sh
 	}
@@ -326,7 +326,7 @@ func bodyShape(hasDia, hasCD, hasArea bool, name, label string) (regime.Shape, e
 // validBody is regime's check of a body, worded for a user.
 func validBody(b regime.Body) error {
 	if err := b.Validate(); err != nil {
-		return fmt.Errorf("%s", strings.TrimPrefix(err.Error(), "regime: "))
+		return fmt.Errorf("%s", Reason(err))
 	}
 	return nil
 }
