@@ -104,3 +104,25 @@ func TestPowerCurveCopiesWarnings(t *testing.T) {
 		t.Errorf("curve warnings %+v; the caller's spare slot %+v", pc.Warnings, spare[:2][1])
 	}
 }
+
+// The rule for a new drag law (DEVELOPERS.md): a shape's choice ranges, of
+// the laws for any fluid, tile (0, ∞) in the order tried (∞ being the
+// largest float). Laws with the range (−1, −1] are never chosen, only
+// compared.
+func TestLawTable(t *testing.T) {
+	for _, sh := range shapes {
+		next := 0.0
+		for _, l := range lawsOf(sh) {
+			if l.powerLaw || l.ChooseHi < 0 {
+				continue
+			}
+			if l.ChooseLo != next || !(l.ChooseHi > l.ChooseLo) {
+				t.Errorf("%s: %s chosen over (%g, %g], want it to start at %g", sh, l.Name, l.ChooseLo, l.ChooseHi, next)
+			}
+			next = l.ChooseHi
+		}
+		if next != math.MaxFloat64 {
+			t.Errorf("%s: choice ranges end at Re %g, not ∞", sh, next)
+		}
+	}
+}

@@ -55,18 +55,18 @@ const (
 	Measured Shape = "measured" // a measured drag coefficient on a stated reference area
 )
 
-// Shapes lists the accepted shapes.
-var Shapes = []Shape{Sphere, Spheroid, Rod, Cylinder, Measured}
+// shapes lists the accepted shapes.
+var shapes = []Shape{Sphere, Spheroid, Rod, Cylinder, Measured}
 
 // ParseShape returns the shape named by s.
 func ParseShape(s string) (Shape, error) {
-	for _, sh := range Shapes {
+	for _, sh := range shapes {
 		if strings.EqualFold(s, string(sh)) {
 			return sh, nil
 		}
 	}
-	names := make([]string, len(Shapes))
-	for i, sh := range Shapes {
+	names := make([]string, len(shapes))
+	for i, sh := range shapes {
 		names[i] = string(sh)
 	}
 	return "", errorf("unknown shape %q; accepted: %s", s, strings.Join(names, ", "))
