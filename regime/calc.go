@@ -202,7 +202,8 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 	if err := flowNumbers(r, o, m, l, note); err != nil {
 		return err
 	}
-	wings := strokeNumbers(r, o, m, note)
+	strouhal(r, o, m, note)
+	wings := wingNumbers(r, o)
 	flow := Flow{Speed: o.Speed, Density: m.Density, Viscosity: r.Viscosity}
 	flow.PowerLawK, flow.PowerLawN = powerLawParams(m)
 	if err := dragInto(&r.Drag, o.Body, flow, all); err != nil {
@@ -308,10 +309,9 @@ func powerLawParams(m *media.Properties) (k, n float64) {
 	return 0, 0
 }
 
-// strokeNumbers sets the Strouhal number, advance ratio and reduced
-// frequency where the stroke is given, warning of an incomplete or unusual
-// stroke, and returns the wings it used.
-func strokeNumbers(r *Result, o *Organism, m *media.Properties, note noter) Wings {
+// strouhal sets the Strouhal number and its band, warning of an incomplete
+// or unusual stroke.
+func strouhal(r *Result, o *Organism, m *media.Properties, note noter) {
 	switch {
 	case !math.IsNaN(o.Frequency) && !math.IsNaN(o.Amplitude):
 		r.Strouhal = Strouhal(o.Frequency, o.Amplitude, o.Speed)
@@ -338,6 +338,11 @@ func strokeNumbers(r *Result, o *Organism, m *media.Properties, note noter) Wing
 			return "inputs: an amplitude without a frequency gives no Strouhal number; give the stroke frequency"
 		})
 	}
+}
+
+// wingNumbers sets the advance ratio and reduced frequency of a flapping
+// wing, and returns the wings (zero without a span or wing length).
+func wingNumbers(r *Result, o *Organism) Wings {
 	var wings Wings
 	if !math.IsNaN(o.Span) || !math.IsNaN(o.WingLength) {
 		wings = o.wings()
