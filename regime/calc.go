@@ -83,20 +83,15 @@ func (o *Organism) optionalInputs() [14]optionalInput {
 }
 
 // normalize marks every optional value left zero as not given (NaN), the
-// form the rest of this package reads.
-func (o *Organism) normalize() {
-	for _, in := range o.optionalInputs() {
-		if *in.v == 0 {
-			*in.v = math.NaN()
-		}
-	}
-}
-
-// checkOptional refuses a given optional value that is not positive or is
-// above its maximum.
-func (o *Organism) checkOptional() error {
-	for i, in := range o.optionalInputs() {
-		if v := *in.v; v == v && !(v > 0 && v <= in.max) {
+// form the rest of this package reads, and refuses a given one that is not
+// positive or is above its maximum.
+func (o *Organism) normalize() error {
+	ins := o.optionalInputs()
+	for i := range ins {
+		switch v := *ins[i].v; {
+		case v == 0:
+			*ins[i].v = math.NaN()
+		case v == v && !(v > 0 && v <= ins[i].max):
 			return optionalError(*o, i)
 		}
 	}
@@ -104,7 +99,7 @@ func (o *Organism) checkOptional() error {
 }
 
 // optionalError refuses o's optional value i. It takes a copy of o so that
-// the check above keeps o on the caller's stack.
+// normalize keeps o on the caller's stack.
 func optionalError(o Organism, i int) error {
 	in := o.optionalInputs()[i]
 	if in.max < math.MaxFloat64 {
@@ -238,8 +233,7 @@ func checkOrganism(o *Organism) error {
 	if !(o.Speed > 0) {
 		return positiveError("speed", o.Speed, "m/s", withUnit)
 	}
-	o.normalize()
-	return o.checkOptional()
+	return o.normalize()
 }
 
 // flowNumbers sets the shear rate, the viscosity there, the non-Newtonian
@@ -551,14 +545,13 @@ func bodyFrontal(b Body) (area, cd float64) {
 // from lo to hi m/s in steps. The curve's warnings are a new slice: the
 // medium's are copied into it, never appended to.
 func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps int) (PowerCurve, error) {
-	o.normalize()
+	if err := o.normalize(); err != nil {
+		return PowerCurve{}, err
+	}
 	if m.Medium != media.KindAir || math.IsNaN(o.Mass) || math.IsNaN(o.Span) {
 		return PowerCurve{}, errorf("a flight power curve needs a flyer in air with a mass and a wingspan")
 	}
 	if err := o.Body.Validate(); err != nil {
-		return PowerCurve{}, err
-	}
-	if err := o.checkOptional(); err != nil {
 		return PowerCurve{}, err
 	}
 	in := o.flightInput(m, m.DynamicViscosity, o.wings(), true)

@@ -30,7 +30,7 @@ func BenchmarkCalcBrief(b *testing.B) {
 		b.Run(c.name, func(b *testing.B) {
 			var r Result
 			for range b.N {
-				if err := CalcInto(&r, c.o, &c.m, Options{Brief: true, Screen: true}); err != nil {
+				if err := CalcInto(&r, c.o, &c.m, Options{Brief: true}); err != nil {
 					b.Fatal(err)
 				}
 			}
