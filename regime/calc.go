@@ -3,6 +3,7 @@ package regime
 import (
 	"fmt"
 	"math"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/media"
 )
@@ -51,61 +52,64 @@ func NewOrganism(b Body, speed float64) Organism {
 // optionalInput is one of the Organism's optional quantities: positive and
 // at most max when given; zero and NaN both mean not given.
 type optionalInput struct {
-	name string // as messages name it
-	unit string // SI
-	max  float64
-	v    *float64
+	name   string // as messages name it
+	unit   string // SI
+	max    float64
+	offset uintptr // of its float64 field in Organism
+}
+
+// value points at the input's field in o.
+func (in *optionalInput) value(o *Organism) *float64 {
+	return (*float64)(unsafe.Add(unsafe.Pointer(o), in.offset))
 }
 
 // optionalInputs are the Organism's optional quantities in the order they
 // are checked. A new optional quantity is a field of Organism and a line
-// here. (Pointers built per call, rather than accessor functions in a
-// package table, keep o on the caller's stack: batch work allocates
-// nothing.)
-func (o *Organism) optionalInputs() [14]optionalInput {
-	const none = math.MaxFloat64 // no upper bound
-	return [...]optionalInput{
-		{"frequency", "Hz", none, &o.Frequency},
-		{"amplitude", "m", none, &o.Amplitude},
-		{"mass", "kg", none, &o.Mass},
-		{"span", "m", none, &o.Span},
-		{"wing length", "m", none, &o.WingLength},
-		{"chord", "m", none, &o.Chord},
-		{"wing area", "m²", none, &o.WingArea},
-		{"stroke angle", "rad", none, &o.StrokeAngle},
-		{"diffusivity", "m²/s", none, &o.Diffusivity},
-		{"shear rate", "1/s", none, &o.ShearRate},
-		{"relaxation time", "s", none, &o.RelaxationTime},
-		{"induced-power factor", "", none, &o.InducedFactor},
-		{"profile-drag coefficient", "", none, &o.ProfileCD},
-		{"efficiency", "", 1, &o.Efficiency},
-	}
+// here. (Field offsets rather than accessor functions: batch work calls
+// normalize for every row, and a function value would make o escape to
+// the heap, an allocation per row.)
+var optionalInputs = [...]optionalInput{
+	{"frequency", "Hz", none, unsafe.Offsetof(Organism{}.Frequency)},
+	{"amplitude", "m", none, unsafe.Offsetof(Organism{}.Amplitude)},
+	{"mass", "kg", none, unsafe.Offsetof(Organism{}.Mass)},
+	{"span", "m", none, unsafe.Offsetof(Organism{}.Span)},
+	{"wing length", "m", none, unsafe.Offsetof(Organism{}.WingLength)},
+	{"chord", "m", none, unsafe.Offsetof(Organism{}.Chord)},
+	{"wing area", "m²", none, unsafe.Offsetof(Organism{}.WingArea)},
+	{"stroke angle", "rad", none, unsafe.Offsetof(Organism{}.StrokeAngle)},
+	{"diffusivity", "m²/s", none, unsafe.Offsetof(Organism{}.Diffusivity)},
+	{"shear rate", "1/s", none, unsafe.Offsetof(Organism{}.ShearRate)},
+	{"relaxation time", "s", none, unsafe.Offsetof(Organism{}.RelaxationTime)},
+	{"induced-power factor", "", none, unsafe.Offsetof(Organism{}.InducedFactor)},
+	{"profile-drag coefficient", "", none, unsafe.Offsetof(Organism{}.ProfileCD)},
+	{"efficiency", "", 1, unsafe.Offsetof(Organism{}.Efficiency)},
 }
+
+// none is the upper bound of an input that has none.
+const none = math.MaxFloat64
 
 // normalize marks every optional value left zero as not given (NaN), the
 // form the rest of this package reads, and refuses a given one that is not
 // positive or is above its maximum.
 func (o *Organism) normalize() error {
-	ins := o.optionalInputs()
-	for i := range ins {
-		switch v := *ins[i].v; {
-		case v == 0:
-			*ins[i].v = math.NaN()
-		case v == v && !(v > 0 && v <= ins[i].max):
-			return optionalError(*o, i)
+	for i := range optionalInputs {
+		in := &optionalInputs[i]
+		switch p := in.value(o); {
+		case *p == 0:
+			*p = math.NaN()
+		case *p == *p && !(*p > 0 && *p <= in.max):
+			return optionalError(in, *p)
 		}
 	}
 	return nil
 }
 
-// optionalError refuses o's optional value i. It takes a copy of o so that
-// normalize keeps o on the caller's stack.
-func optionalError(o Organism, i int) error {
-	in := o.optionalInputs()[i]
-	if in.max < math.MaxFloat64 {
-		return &InputError{Field: in.name, Value: *in.v, Min: 0, Max: in.max, Unit: in.unit}
+// optionalError refuses the value v of an optional input.
+func optionalError(in *optionalInput, v float64) error {
+	if in.max < none {
+		return &InputError{Field: in.name, Value: v, Min: 0, Max: in.max, Unit: in.unit}
 	}
-	return positiveError(in.name, *in.v, in.unit, bare)
+	return positiveError(in.name, v, in.unit, bare)
 }
 
 // Power kinds.
@@ -163,8 +167,8 @@ func Calc(o Organism, m media.Properties) (Result, error) {
 // callers that compute many rows and report little of each.
 type Options struct {
 	// Brief evaluates only the chosen drag law (Result.Drag.Estimates stays
-	// empty) and gives warnings their Code and Detail without Message text
-	// (the flight model's warnings keep theirs). The numbers are Calc's.
+	// empty) and gives warnings their Code and Detail without Message text.
+	// The numbers are Calc's.
 	Brief bool
 	// Screen adds warnings for measurements that look implausible: a speed
 	// in body lengths per second beyond what organisms of that size reach.
