@@ -398,7 +398,7 @@ func flightPower(r *Result, o *Organism, m *media.Properties, wings Wings, note 
 		r.Power.Kind = PowerGliding
 	case math.IsNaN(o.Frequency):
 		note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "wingbeat frequency", Value: math.NaN(), Relation: "not given: continuous flapping assumed"}, func() string {
-			return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work (calc and powercurve take --gliding, a table a wingbeat frequency of 0)"
+			return "flight: no wingbeat frequency given, so the power is that of continuous flapping; a gliding animal does no flapping work: give it as gliding (calc and powercurve take --gliding)"
 		})
 	}
 	r.Warnings = append(r.Warnings, fp.Warnings...)
