@@ -234,3 +234,22 @@ func resultText(r Result) string {
 	}
 	return fmt.Sprintf("%+v", r)
 }
+
+// A FlightInput literal without an induced-power factor gets
+// DefaultInducedFactor (1.15), not an error; below 1 is still refused.
+func TestFlightZeroInducedFactorIsDefault(t *testing.T) {
+	in := FlightInput{Mass: 0.04, Speed: 10, Density: 1.225, Viscosity: 1.79e-5, Wings: Wings{Span: 0.42, Area: 0.0168}}
+	got, err := Flight(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in.InducedFactor = DefaultInducedFactor
+	want, _ := Flight(in)
+	if got.Induced != want.Induced || got.Profile != want.Profile || got.Total != want.Total {
+		t.Errorf("k not given: %+v, want k = 1.15: %+v", got, want)
+	}
+	in.InducedFactor = 0.5
+	if _, err := Flight(in); err == nil {
+		t.Error("k = 0.5 accepted")
+	}
+}
