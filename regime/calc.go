@@ -10,8 +10,10 @@ import (
 
 // Organism is one organism's measurements, in SI units. Body and Speed are
 // required; every other number is optional and positive when given: leave
-// it zero (or NaN) when it was not measured, and [Calc] says in a warning
-// what it assumed instead.
+// it zero (or NaN) when it was not measured, and [Calc] uses the default
+// named beside the field; the [Result] shows what it used (Power.Kind
+// towing for want of an efficiency, for example), with a warning where the
+// default changes the answer much. A negative value is an [*InputError].
 type Organism struct {
 	Body      Body
 	Speed     float64 // m/s
