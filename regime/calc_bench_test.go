@@ -6,10 +6,10 @@ import (
 	"github.com/flowregime/flowregime/media"
 )
 
-// BenchmarkCalcChosen measures one organism's computation as batch work
+// BenchmarkCalcBrief measures one organism's computation as batch work
 // does it, for a swimmer and for a flapping flyer with a wing chord (whose
 // profile power is a phase average over the wingbeat).
-func BenchmarkCalcChosen(b *testing.B) {
+func BenchmarkCalcBrief(b *testing.B) {
 	water, err := media.FreshWater(12, media.StandardPressurePa)
 	if err != nil {
 		b.Fatal(err)
@@ -30,7 +30,7 @@ func BenchmarkCalcChosen(b *testing.B) {
 		b.Run(c.name, func(b *testing.B) {
 			var r Result
 			for range b.N {
-				if err := CalcChosenInto(&r, &c.o, &c.m); err != nil {
+				if err := CalcInto(&r, c.o, &c.m, Options{Brief: true}); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -132,7 +132,8 @@ func dragSweep(t testing.TB, b Body, m sweepMedium) sweepResult {
 	var prevLaw string
 	for i := 0; ; i++ {
 		o := NewOrganism(b, u)
-		r, err := CalcChosen(o, m.p)
+		var r Result
+		err := CalcInto(&r, o, &m.p, Options{Brief: true})
 		if err != nil {
 			t.Fatalf("%s at U = %g m/s: %v", b.Shape, u, err)
 		}

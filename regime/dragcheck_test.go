@@ -34,7 +34,7 @@ func TestProlateSeriesBranch(t *testing.T) {
 // and the bracket reported is the two ends' forces.
 func TestJoinEnds(t *testing.T) {
 	w := water20(t)
-	for _, l := range Laws {
+	for _, l := range laws {
 		j := l.Join
 		if j == nil {
 			continue
@@ -319,7 +319,8 @@ func TestBoundaryLayerLabelFollowsDrag(t *testing.T) {
 	nu := w.KinematicViscosity
 	for re := 1e3; re < 1e6; re *= 1.05 {
 		o := NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, re*nu/0.3)
-		r, err := CalcChosen(o, w)
+		var r Result
+		err := CalcInto(&r, o, &w, Options{Brief: true})
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -1,6 +1,8 @@
 package regime
 
 import (
+	"errors"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -179,37 +181,75 @@ func TestGlidingNeedsAFlyer(t *testing.T) {
 	}
 }
 
-// A flyer with a wingbeat frequency of 0 glides, with a warning saying so
-// (the way a table row asks for a glide); a swimmer's 0 is still refused.
-func TestZeroWingbeatGlides(t *testing.T) {
+// Zero means not given: a struct literal that leaves the optional values
+// zero gets exactly the result of one that sets them NaN, for a bird in air
+// (flapping assumed, with the warning saying so) and a fish in water; a
+// negative value is still refused, naming the field.
+func TestZeroMeansNotGiven(t *testing.T) {
 	air, _ := media.Air(media.AirConditions{TemperatureC: 15, PressurePa: math.NaN()})
-	o := NewOrganism(Body{Shape: Spheroid, Length: 0.16, Diameter: 0.035}, 10)
-	o.Mass, o.Span, o.WingArea, o.Frequency = 0.04, 0.42, 0.0168, 0
-	r, err := Calc(o, air)
+	bird := Body{Shape: Spheroid, Length: 0.16, Diameter: 0.035}
+	lit := Organism{Body: bird, Speed: 10, Mass: 0.04, Span: 0.42, WingArea: 0.0168}
+	nan := NewOrganism(bird, 10)
+	nan.Mass, nan.Span, nan.WingArea = 0.04, 0.42, 0.0168
+	fish := Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}
+	for _, c := range []struct {
+		name     string
+		lit, nan Organism
+		m        media.Properties
+	}{{"bird", lit, nan, air}, {"fish", Organism{Body: fish, Speed: 1}, NewOrganism(fish, 1), water20(t)}} {
+		a, err := Calc(c.lit, c.m)
+		if err != nil {
+			t.Fatalf("%s literal: %v", c.name, err)
+		}
+		b, err := Calc(c.nan, c.m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if sa, sb := resultText(a), resultText(b); sa != sb {
+			t.Errorf("%s: literal %s\nNaN %s", c.name, sa, sb)
+		}
+	}
+	r, _ := Calc(lit, air)
+	said := false
+	for _, w := range r.Warnings {
+		said = said || strings.Contains(w.Message, "no wingbeat frequency given")
+	}
+	if r.Power.Kind != PowerFlight || !said {
+		t.Errorf("a bird without a frequency: kind %q, warnings %v", r.Power.Kind, r.Warnings)
+	}
+	neg := Organism{Body: fish, Speed: 1, Frequency: -2}
+	var ie *InputError
+	if _, err := Calc(neg, water20(t)); !errors.As(err, &ie) || ie.Field != "frequency" || ie.Value != -2 || err.Error() != "regime: frequency must be positive, got -2" {
+		t.Errorf("a negative frequency: %v", err)
+	}
+}
+
+// resultText prints every number and warning of r (NaN as "NaN", the
+// flight model's parts through the pointer).
+func resultText(r Result) string {
+	fp := r.Power.Flight
+	r.Power.Flight = nil
+	if fp != nil {
+		return fmt.Sprintf("%+v %+v", r, *fp)
+	}
+	return fmt.Sprintf("%+v", r)
+}
+
+// A FlightInput literal without an induced-power factor gets
+// DefaultInducedFactor (1.15), not an error; below 1 is still refused.
+func TestFlightZeroInducedFactorIsDefault(t *testing.T) {
+	in := FlightInput{Mass: 0.04, Speed: 10, Density: 1.225, Viscosity: 1.79e-5, Wings: Wings{Span: 0.42, Area: 0.0168}}
+	got, err := Flight(in)
 	if err != nil {
 		t.Fatal(err)
 	}
-	said := false
-	for _, w := range r.Warnings {
-		said = said || strings.Contains(w.Message, "frequency of 0 is taken as gliding")
+	in.InducedFactor = DefaultInducedFactor
+	want, _ := Flight(in)
+	if got.Induced != want.Induced || got.Profile != want.Profile || got.Total != want.Total {
+		t.Errorf("k not given: %+v, want k = 1.15: %+v", got, want)
 	}
-	if r.Power.Kind != PowerGliding || !said {
-		t.Errorf("kind %q, warnings %v", r.Power.Kind, r.Warnings)
-	}
-	var rb Result
-	if err := CalcChosenInto(&rb, &o, &air); err != nil || rb.Power.Kind != PowerGliding {
-		t.Errorf("batch path: kind %q, %v", rb.Power.Kind, err)
-	}
-	if o.Frequency != 0 || o.Gliding {
-		t.Error("CalcChosenInto changed the caller's organism")
-	}
-	pc, err := OrganismPowerCurve(o, air, 3, 20, 18)
-	if err != nil || !pc.Gliding {
-		t.Errorf("power curve: gliding %v, %v", pc.Gliding, err)
-	}
-	fish := NewOrganism(Body{Shape: Spheroid, Length: 0.3, Diameter: 0.05}, 1)
-	fish.Frequency = 0
-	if _, err := Calc(fish, water20(t)); err == nil {
-		t.Error("a fish with tail-beat frequency 0 was accepted")
+	in.InducedFactor = 0.5
+	if _, err := Flight(in); err == nil {
+		t.Error("k = 0.5 accepted")
 	}
 }

@@ -1,7 +1,6 @@
 package regime
 
 import (
-	"fmt"
 	"math"
 )
 
@@ -66,10 +65,10 @@ func FergusonChurchSpeed(r, g, d, nu, c1, c2 float64) float64 {
 // checkGrain refuses a shape or roundness outside Dietrich's definitions.
 func checkGrain(csf, powers float64) error {
 	if !(csf >= dietrichCSFMin && csf <= 1) {
-		return fmt.Errorf("regime: Corey shape factor %g is outside 0.2–1, the range of Dietrich's (1982) data (1 for a sphere)", csf)
+		return errorf("Corey shape factor %g is outside 0.2–1, the range of Dietrich's (1982) data (1 for a sphere)", csf)
 	}
 	if !(powers > powersMin && powers <= powersMax) {
-		return fmt.Errorf("regime: a natural grain needs its Powers roundness, above 0 and at most 6 (6 perfectly round, about 3.5 for natural sand), got %g", powers)
+		return errorf("a natural grain needs its Powers roundness, above 0 and at most 6 (6 perfectly round, about 3.5 for natural sand), got %g", powers)
 	}
 	return nil
 }

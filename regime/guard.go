@@ -1,33 +1,8 @@
 package regime
 
 import (
-	"fmt"
 	"math"
 )
-
-// RangeError says that a result left the range of floating-point numbers
-// (it overflowed, underflowed to zero or became NaN) because an input is
-// far beyond any organism. It names the input most likely at fault: of the
-// inputs the result depends on, the one farthest from 1 in orders of
-// magnitude of its SI unit.
-type RangeError struct {
-	Input  string  // "length", "speed", …
-	Value  float64 // in SI units
-	Unit   string
-	Result string // "the Reynolds number overflows"
-}
-
-func (e *RangeError) Error() string {
-	size := "large"
-	if math.Abs(e.Value) < 1 {
-		size = "small"
-	}
-	unit := ""
-	if e.Unit != "" {
-		unit = " " + e.Unit
-	}
-	return fmt.Sprintf("regime: %s %.4g%s is too %s: %s; check its unit", e.Input, e.Value, unit, size, e.Result)
-}
 
 // quantity is one input a result depends on.
 type quantity struct {
@@ -48,7 +23,7 @@ func rangeError(result string, qs ...quantity) error {
 		}
 	}
 	if far < 0 {
-		return fmt.Errorf("regime: %s; check the inputs", result)
+		return errorf("%s; check the inputs", result)
 	}
 	return &RangeError{Input: worst.name, Value: worst.v, Unit: worst.unit, Result: result}
 }

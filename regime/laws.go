@@ -55,21 +55,21 @@ const (
 	Measured Shape = "measured" // a measured drag coefficient on a stated reference area
 )
 
-// Shapes lists the accepted shapes.
-var Shapes = []Shape{Sphere, Spheroid, Rod, Cylinder, Measured}
+// shapes lists the accepted shapes.
+var shapes = []Shape{Sphere, Spheroid, Rod, Cylinder, Measured}
 
 // ParseShape returns the shape named by s.
 func ParseShape(s string) (Shape, error) {
-	for _, sh := range Shapes {
+	for _, sh := range shapes {
 		if strings.EqualFold(s, string(sh)) {
 			return sh, nil
 		}
 	}
-	names := make([]string, len(Shapes))
-	for i, sh := range Shapes {
+	names := make([]string, len(shapes))
+	for i, sh := range shapes {
 		names[i] = string(sh)
 	}
-	return "", fmt.Errorf("regime: unknown shape %q; accepted: %s", s, strings.Join(names, ", "))
+	return "", errorf("unknown shape %q; accepted: %s", s, strings.Join(names, ", "))
 }
 
 // Body is an organism's size and shape.
@@ -90,23 +90,23 @@ const minRodAspect = 2
 // Validate checks the body's dimensions.
 func (b Body) Validate() error {
 	if !(b.Length > 0) || math.IsInf(b.Length, 0) {
-		return fmt.Errorf("regime: length must be a positive size, got %g m", b.Length)
+		return positiveError("length", b.Length, "m", size)
 	}
 	switch b.Shape {
 	case Sphere:
 	case Spheroid, Rod, Cylinder:
 		if !(b.Diameter > 0) || math.IsInf(b.Diameter, 0) {
-			return fmt.Errorf("regime: a %s needs a positive diameter as well as its length", b.Shape)
+			return errorf("a %s needs a positive diameter as well as its length", b.Shape)
 		}
 		if b.Shape != Cylinder && b.Diameter > b.Length {
-			return fmt.Errorf("regime: a %s's diameter (%g m) must not exceed its length (%g m); for a flattened body give the longest axis as length", b.Shape, b.Diameter, b.Length)
+			return errorf("a %s's diameter (%g m) must not exceed its length (%g m); for a flattened body give the longest axis as length", b.Shape, b.Diameter, b.Length)
 		}
 		if b.Shape == Rod && b.Length < minRodAspect*b.Diameter {
-			return fmt.Errorf("regime: a rod %g m long and %g m wide is too stout for slender-body theory (Cox 1970 fails below length = 2 × diameter, where its drag turns negative); give it as a spheroid", b.Length, b.Diameter)
+			return errorf("a rod %g m long and %g m wide is too stout for slender-body theory (Cox 1970 fails below length = 2 × diameter, where its drag turns negative); give it as a spheroid", b.Length, b.Diameter)
 		}
 	case Measured:
 		if !(b.DragCoefficient > 0) || !(b.ReferenceArea > 0) || math.IsInf(b.DragCoefficient, 0) || math.IsInf(b.ReferenceArea, 0) {
-			return fmt.Errorf("regime: a measured body needs a positive drag coefficient and reference area")
+			return errorf("a measured body needs a positive drag coefficient and reference area")
 		}
 	default:
 		_, err := ParseShape(string(b.Shape))
@@ -342,10 +342,10 @@ func rodFriction(b Body, _ Flow, re float64) (float64, float64) {
 	return BlasiusCf(re), math.Pi * b.Diameter * b.Length
 }
 
-// Laws lists every drag law, grouped by shape, in the order they are tried.
+// laws lists every drag law, grouped by shape, in the order they are tried.
 // Choice ranges lie inside published ranges; where two laws' ranges leave a
-// gap, a [Join] bridges it.
-var Laws = []Law{
+// gap, a [Join] bridges it. A new drag law is one entry here.
+var laws = []Law{
 	{Name: "creeping flow in a power-law fluid", Shape: Sphere, Source: "Renaud, Mauret & Chhabra 2004, Can. J. Chem. Eng. 82, 1066 (X(n) correction)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
 		ReMin: 0, ReMax: 0.1, ChooseLo: 0, ChooseHi: 0.1, basisLen: length, powerLaw: true, eval: endPowerLawCreeping.eval},
 	joined(Law{Name: "power-law creeping flow joined to the sphere laws", Shape: Sphere, Source: "the sphere laws at η(U/d) beyond creeping flow; the ends differ by X(n) ≤ 1.46 while measured corrections scatter over 1–1.8 (Coulson & Richardson, Chemical Engineering vol. 2, ch. 3)", Basis: "diameter, on η(U/d)", AreaName: frontalArea,
@@ -475,11 +475,25 @@ func sphereLawName(re float64) string {
 	return "standard drag curve"
 }
 
-// lawsByShape indexes Laws by shape, in order.
+// Laws returns a copy of the drag-law table, grouped by shape in the order
+// the laws are tried: each law's name, source, published range and the
+// range in which [Drag] chooses it. Changing the copy changes nothing here.
+func Laws() []Law {
+	out := append([]Law(nil), laws...)
+	for i := range out {
+		if j := out[i].Join; j != nil {
+			c := *j
+			out[i].Join = &c
+		}
+	}
+	return out
+}
+
+// lawsByShape indexes laws by shape, in order.
 var lawsByShape = func() map[Shape][]*Law {
 	m := map[Shape][]*Law{}
-	for i := range Laws {
-		m[Laws[i].Shape] = append(m[Laws[i].Shape], &Laws[i])
+	for i := range laws {
+		m[laws[i].Shape] = append(m[laws[i].Shape], &laws[i])
 	}
 	return m
 }()
@@ -533,9 +547,9 @@ type DragResult struct {
 // published range, each flagged in or out of range.
 func Drag(b Body, f Flow) (DragResult, error) { return drag(b, f, true) }
 
-// DragChosen is [Drag] without the other laws' estimates, and with
+// dragChosen is [Drag] without the other laws' estimates, and with
 // warnings that carry their codes only, for batch work.
-func DragChosen(b Body, f Flow) (DragResult, error) { return drag(b, f, false) }
+func dragChosen(b Body, f Flow) (DragResult, error) { return drag(b, f, false) }
 
 func (l *Law) estimate(b Body, f Flow) Estimate {
 	re := f.Density * f.Speed * l.basisLen(b) / f.Viscosity
@@ -585,13 +599,13 @@ func dragInto(res *DragResult, b Body, f Flow, all bool) error {
 		}
 	}
 	if chosen == nil {
-		return fmt.Errorf("regime: no drag law covers a %s at this Reynolds number", b.Shape)
+		return errorf("no drag law covers a %s at this Reynolds number", b.Shape)
 	}
 	res.Chosen = chosen.estimate(b, f)
 	if all {
 		res.Estimates = append(res.Estimates, res.Chosen)
-		for i := range Laws {
-			l := &Laws[i]
+		for i := range laws {
+			l := &laws[i]
 			if l.Shape != b.Shape || l == chosen || l.powerLaw && f.PowerLawN == 0 {
 				continue
 			}
@@ -658,11 +672,11 @@ func lawRange(e Estimate) string {
 func (f Flow) validate() error {
 	switch {
 	case !(f.Speed > 0) || math.IsInf(f.Speed, 0):
-		return fmt.Errorf("regime: speed must be positive, got %g m/s", f.Speed)
+		return positiveError("speed", f.Speed, "m/s", withUnit)
 	case !(f.Density > 0) || math.IsInf(f.Density, 0):
-		return fmt.Errorf("regime: fluid density must be positive, got %g kg/m³", f.Density)
+		return positiveError("fluid density", f.Density, "kg/m³", withUnit)
 	case !(f.Viscosity > 0) || math.IsInf(f.Viscosity, 0):
-		return fmt.Errorf("regime: fluid viscosity must be positive, got %g Pa·s", f.Viscosity)
+		return positiveError("fluid viscosity", f.Viscosity, "Pa·s", withUnit)
 	}
 	return nil
 }

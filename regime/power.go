@@ -44,11 +44,11 @@ func InducedVelocity(t, rho, a, v float64) float64 {
 // Wings describes a flapping or gliding animal's wings.
 type Wings struct {
 	Span        float64 // tip to tip, m
-	Length      float64 // one wing, root to tip, m; default Span/2
-	Area        float64 // both wings, m²
+	Length      float64 // one wing, root to tip, m; zero means Span/2
+	Area        float64 // both wings, m²; zero when not known
 	Frequency   float64 // wingbeat frequency, Hz; 0 when gliding
 	StrokeAngle float64 // peak-to-peak stroke amplitude Φ, rad
-	ProfileCD   float64 // profile-drag coefficient; NaN for the attached-flow default
+	ProfileCD   float64 // profile-drag coefficient; zero or NaN for the attached-flow default
 }
 
 // MeanChord returns the mean chord S/(2R) of the pair of wings.
@@ -66,7 +66,7 @@ type FlightInput struct {
 	Speed         float64 // m/s, level flight
 	Density       float64 // air, kg/m³
 	Viscosity     float64 // air, Pa·s
-	InducedFactor float64 // k ≥ 1
+	InducedFactor float64 // k ≥ 1; zero or NaN means DefaultInducedFactor
 	Disc          string  // DiscSpan or DiscStroke
 	Wings         Wings
 	BodyDrag      func(speed float64) float64 // drag of the body from the drag laws, N
@@ -192,18 +192,21 @@ const (
 // drag parts, with the profile drag of fixed wings ([GlideProfileCD] when
 // none is given), set its sink speed P/(mg) and glide ratio V/sink.
 func Flight(in FlightInput) (FlightPower, error) {
+	if in.InducedFactor == 0 || math.IsNaN(in.InducedFactor) {
+		in.InducedFactor = DefaultInducedFactor
+	}
 	w := in.Wings
 	switch {
 	case !(in.Mass > 0):
-		return FlightPower{}, fmt.Errorf("regime: flight power needs a positive mass")
+		return FlightPower{}, errorf("flight power needs a positive mass")
 	case !(w.Span > 0):
-		return FlightPower{}, fmt.Errorf("regime: flight power needs a positive wingspan")
+		return FlightPower{}, errorf("flight power needs a positive wingspan")
 	case !(in.Speed >= 0):
-		return FlightPower{}, fmt.Errorf("regime: flight speed must not be negative")
+		return FlightPower{}, errorf("flight speed must not be negative")
 	case !(in.InducedFactor >= 1):
-		return FlightPower{}, fmt.Errorf("regime: induced-power factor must be at least 1 (the ideal disc), got %g", in.InducedFactor)
+		return FlightPower{}, errorf("induced-power factor must be at least 1 (the ideal disc), got %g", in.InducedFactor)
 	case in.Gliding && !(in.Speed > 0):
-		return FlightPower{}, fmt.Errorf("regime: a glide needs a positive speed")
+		return FlightPower{}, errorf("a glide needs a positive speed")
 	}
 	if !(w.Length > 0) {
 		w.Length = w.Span / 2
@@ -217,11 +220,11 @@ func Flight(in FlightInput) (FlightPower, error) {
 		fp.DiscArea = math.Pi * w.Span * w.Span / 4
 	case DiscStroke:
 		if !(w.StrokeAngle > 0) {
-			return FlightPower{}, fmt.Errorf("regime: a stroke-swept disc needs the stroke angle")
+			return FlightPower{}, errorf("a stroke-swept disc needs the stroke angle")
 		}
 		fp.DiscArea = w.StrokeAngle * w.Length * w.Length
 	default:
-		return FlightPower{}, fmt.Errorf("regime: unknown disc %q; accepted: span, stroke", in.Disc)
+		return FlightPower{}, errorf("unknown disc %q; accepted: span, stroke", in.Disc)
 	}
 	k := in.InducedFactor
 	fp.HoverVelocity = HoverInducedVelocity(thrust, in.Density, fp.DiscArea)

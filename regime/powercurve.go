@@ -1,17 +1,16 @@
 package regime
 
 import (
-	"fmt"
 	"math"
 
 	"github.com/flowregime/flowregime/media"
 )
 
-// Minimize1D returns the x in [a, b] that minimises f, by Brent's method:
+// minimize1D returns the x in [a, b] that minimises f, by Brent's method:
 // golden-section search with parabolic interpolation, to a relative
 // tolerance tol in x (Brent, R. P. (1973), Algorithms for Minimization
 // without Derivatives, Prentice-Hall, ch. 5, procedure localmin).
-func Minimize1D(f func(float64) float64, a, b, tol float64) (x, fx float64) {
+func minimize1D(f func(float64) float64, a, b, tol float64) (x, fx float64) {
 	const cgold = 0.3819660112501051 // (3 − √5)/2
 	const eps = 1e-12
 	v := a + cgold*(b-a)
@@ -101,14 +100,14 @@ type PowerCurve struct {
 
 // FlightPowerCurve evaluates [Flight] from lo to hi in steps and finds the
 // speeds of minimum power (minimum of P) and maximum range (minimum of
-// P/V) with [Minimize1D] inside the bracket of the best grid point. A
+// P/V) with [minimize1D] inside the bracket of the best grid point. A
 // minimum at either end of the range is reported with a warning. For a
 // glide, P = m g × sink speed: the two speeds are those of minimum sink and
 // best glide, and there is no hover (NaN).
 func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, error) {
 	var pc PowerCurve
 	if !(lo > 0) || !(hi > lo) || steps < 3 {
-		return pc, fmt.Errorf("regime: a power curve needs 0 < from < to and at least 3 steps")
+		return pc, errorf("a power curve needs 0 < from < to and at least 3 steps")
 	}
 	total := func(v float64) float64 {
 		c := in
@@ -153,7 +152,7 @@ func FlightPowerCurve(in FlightInput, lo, hi float64, steps int) (PowerCurve, er
 		if best == 0 || best == len(pc.Points)-1 {
 			pc.Warnings = append(pc.Warnings, warnf(WarnModel, "power curve: the %s lies at the edge of %.3g–%.3g m/s; widen the range", name, lo, hi))
 		}
-		return Minimize1D(g, a, b, 1e-8)
+		return minimize1D(g, a, b, 1e-8)
 	}
 	pc.MinPowerSpeed, pc.MinPower = find(total, "minimum-power speed")
 	pc.MaxRangeSpeed, pc.MinCostOfTr = find(func(v float64) float64 { return total(v) / v }, "maximum-range speed")

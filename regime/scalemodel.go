@@ -1,7 +1,6 @@
 package regime
 
 import (
-	"fmt"
 	"math"
 
 	"github.com/flowregime/flowregime/media"
@@ -30,7 +29,7 @@ const (
 )
 
 // Prototype is the organism side of a scale model, in SI; Frequency,
-// Amplitude and Chord are NaN when not given.
+// Amplitude and Chord are zero (or NaN) when not given.
 type Prototype struct {
 	Length    float64 // m
 	Speed     float64 // m/s
@@ -87,11 +86,11 @@ func positive(vs ...float64) bool {
 // Check reports whether the prototype can be scaled.
 func (p Prototype) Check() error {
 	if !positive(p.Length, p.Speed, p.Nu, p.Rho) {
-		return fmt.Errorf("regime: the organism's length, speed and medium must be positive numbers")
+		return errorf("the organism's length, speed and medium must be positive numbers")
 	}
 	for _, v := range []float64{p.Frequency, p.Amplitude, p.Chord} {
-		if !math.IsNaN(v) && !positive(v) {
-			return fmt.Errorf("regime: frequency, amplitude and chord must be positive when given")
+		if v != 0 && !math.IsNaN(v) && !positive(v) {
+			return errorf("frequency, amplitude and chord must be positive when given")
 		}
 	}
 	return nil
@@ -101,11 +100,16 @@ func (p Prototype) Check() error {
 // viscosity nu (m²/s) and density rho (kg/m³) that matches the prototype's
 // Strouhal number and, by mode, its Reynolds or Froude number.
 func Similar(p Prototype, lm, nu, rho float64, mode string) (Similarity, error) {
+	for _, v := range []*float64{&p.Frequency, &p.Amplitude, &p.Chord} {
+		if *v == 0 {
+			*v = math.NaN() // not given
+		}
+	}
 	if err := p.Check(); err != nil {
 		return Similarity{}, err
 	}
 	if !positive(lm, nu, rho) {
-		return Similarity{}, fmt.Errorf("regime: the model's length and fluid must be positive numbers")
+		return Similarity{}, errorf("the model's length and fluid must be positive numbers")
 	}
 	lambda := lm / p.Length
 	var s float64 // U_m/U_p
@@ -115,7 +119,7 @@ func Similar(p Prototype, lm, nu, rho float64, mode string) (Similarity, error) 
 	case MatchFroude:
 		s = math.Sqrt(lambda)
 	default:
-		return Similarity{}, fmt.Errorf("regime: similarity mode %q; accepted: %s, %s", mode, MatchReynolds, MatchFroude)
+		return Similarity{}, errorf("similarity mode %q; accepted: %s, %s", mode, MatchReynolds, MatchFroude)
 	}
 	m := Similarity{Mode: mode, Scale: lambda, Length: lm, Nu: nu, Rho: rho,
 		Speed: p.Speed * s, SpeedRatio: s, Frequency: p.Frequency * s / lambda, FrequencyRatio: s / lambda,
@@ -125,7 +129,7 @@ func Similar(p Prototype, lm, nu, rho float64, mode string) (Similarity, error) 
 	m.Organism = groups(p.Length, p.Speed, p.Frequency, p.Amplitude, p.Chord, p.Nu)
 	m.Model = groups(lm, m.Speed, m.Frequency, m.Amplitude, m.Chord, nu)
 	if !positive(m.Speed, m.ForceRatio, m.PowerRatio, m.TimeRatio, m.Model.Reynolds, m.Model.Froude) {
-		return Similarity{}, fmt.Errorf("regime: a model %.4g times the organism's size in this fluid gives speeds or forces beyond floating-point range", lambda)
+		return Similarity{}, errorf("a model %.4g times the organism's size in this fluid gives speeds or forces beyond floating-point range", lambda)
 	}
 	return m, nil
 }

@@ -98,3 +98,19 @@ func TestSimilarRefusesOverflow(t *testing.T) {
 		t.Error("want an error for a model 1e-300 times the organism")
 	}
 }
+
+// A prototype literal that leaves the chord zero has no reduced frequency
+// (NaN, as with a NaN chord) and the example's other numbers unchanged.
+func TestSimilarZeroChordNotGiven(t *testing.T) {
+	p := fish
+	p.Chord = 0
+	m, err := Similar(p, 0.20, 1.0016e-3/998.21, 998.21, MatchReynolds)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !math.IsNaN(m.Model.ReducedFrequency) || !math.IsNaN(m.Organism.ReducedFrequency) || !math.IsNaN(m.Chord) {
+		t.Errorf("k %g / %g, chord %g: want NaN (not given)", m.Model.ReducedFrequency, m.Organism.ReducedFrequency, m.Chord)
+	}
+	near(t, "f_m", m.Frequency, 1.1901, 1e-4)
+	near(t, "St model", m.Model.Strouhal, 0.200, 1e-9)
+}

@@ -26,18 +26,9 @@ const (
 	maxRelativeSpeed = 1000.0
 )
 
-// Screen returns warnings for measurements that look implausible.
-// Strouhal-number and consistency checks are made by [Calc] itself.
-func Screen(o Organism, r *Result) []Warning {
-	var ws []Warning
-	screen(&o, r, true, &ws)
-	return ws
-}
-
-// ScreenInto adds [Screen]'s warnings to r.Warnings with their codes only,
-// for batch work.
-func ScreenInto(o *Organism, r *Result) { screen(o, r, false, &r.Warnings) }
-
+// screen adds to ws warnings for measurements that look implausible
+// ([Options].Screen). Strouhal-number and consistency checks are made by
+// [Calc] itself.
 func screen(o *Organism, r *Result, note noter, ws *[]Warning) {
 	bl := o.Speed / o.Body.Length
 	switch {

@@ -94,7 +94,7 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 	var s Settling
 	switch {
 	case p.natural() && !m.Newtonian():
-		return s, fmt.Errorf("regime: Dietrich's natural-grain factors are for Newtonian water and air; give a sphere in a non-Newtonian medium")
+		return s, errorf("Dietrich's natural-grain factors are for Newtonian water and air; give a sphere in a non-Newtonian medium")
 	case m.Newtonian():
 		s, err = sp.solve(m.DynamicViscosity)
 		if err == nil && p.natural() {
@@ -104,7 +104,7 @@ func Settle(p Particle, m media.Properties) (Settling, error) {
 		s, err = sp.nonNewtonian()
 	}
 	if err == nil && (math.IsInf(s.Speed, 0) || math.IsNaN(s.Speed) || math.IsInf(s.Force, 0)) {
-		return s, fmt.Errorf("regime: the settling speed is not a finite number; check the units of size and density")
+		return s, errorf("the settling speed is not a finite number; check the units of size and density")
 	}
 	return s, err
 }
@@ -123,15 +123,15 @@ type settleProblem struct {
 
 func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 	if !(p.Diameter > 0) || math.IsInf(p.Diameter, 0) {
-		return nil, fmt.Errorf("regime: particle diameter must be positive, got %g m", p.Diameter)
+		return nil, positiveError("particle diameter", p.Diameter, "m", withUnit)
 	}
 	if !(p.Density > 0) || math.IsInf(p.Density, 0) {
-		return nil, fmt.Errorf("regime: particle density must be positive, got %g kg/m³", p.Density)
+		return nil, positiveError("particle density", p.Density, "kg/m³", withUnit)
 	}
 	sp := &settleProblem{p: p, m: m, d: p.Diameter, phi: 1, drho: p.Density - m.Density,
 		law: "sphere laws", source: "Stokes 1851; Proudman & Pearson 1957; " + srcCGW, basis: "diameter", cd: SphereCD, reMax: 1e6}
 	if math.Abs(sp.drho) <= 1e-5*m.Density { // equal within the medium density's own accuracy
-		return nil, fmt.Errorf("regime: particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, m.Density)
+		return nil, errorf("particle density %.7g kg/m³ equals the medium's (%.7g kg/m³) within 1e-5: it neither sinks nor rises", p.Density, m.Density)
 	}
 	switch p.Shape {
 	case Sphere, "":
@@ -142,10 +142,10 @@ func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 		}
 	case Spheroid:
 		if p.natural() {
-			return nil, fmt.Errorf("regime: a particle is either a spheroid (length and diameter) or a natural grain (Corey shape factor and roundness), not both")
+			return nil, errorf("a particle is either a spheroid (length and diameter) or a natural grain (Corey shape factor and roundness), not both")
 		}
 		if !(p.Length >= p.Diameter) || math.IsInf(p.Length, 0) {
-			return nil, fmt.Errorf("regime: a spheroid's length must be at least its diameter")
+			return nil, errorf("a spheroid's length must be at least its diameter")
 		}
 		sp.d = math.Cbrt(p.Length * p.Diameter * p.Diameter)
 		sp.phi = Sphericity(p.Length, p.Diameter)
@@ -154,7 +154,7 @@ func newSettleProblem(p Particle, m media.Properties) (*settleProblem, error) {
 		sp.cd = func(re float64) float64 { return HaiderLevenspielCD(re, phi) }
 		sp.reMax = 2.6e5
 	default:
-		return nil, fmt.Errorf("regime: settling is computed for a sphere or spheroid, not %q", p.Shape)
+		return nil, errorf("settling is computed for a sphere or spheroid, not %q", p.Shape)
 	}
 	return sp, nil
 }
@@ -187,7 +187,7 @@ func (sp *settleProblem) solve(mu float64) (Settling, error) {
 	}
 	lo, hi := math.Log(1e-14), math.Log(1e8)
 	if f(lo) > 0 || f(hi) < 0 {
-		return s, fmt.Errorf("regime: terminal speed is outside 1e-14 < Re < 1e8; check the particle's size and density")
+		return s, errorf("terminal speed is outside 1e-14 < Re < 1e8; check the particle's size and density")
 	}
 	for range 200 {
 		mid := (lo + hi) / 2
@@ -263,7 +263,7 @@ func (sp *settleProblem) bracketed() (Settling, error) {
 		return s, nil
 	}
 	if fHi, _, err := excess(hi); err != nil || fHi < 0 {
-		return Settling{}, fmt.Errorf("regime: the terminal speed in this medium is above 1e4 m/s; check the units of size and density")
+		return Settling{}, errorf("the terminal speed in this medium is above 1e4 m/s; check the units of size and density")
 	}
 	for range 200 {
 		mid := (lo + hi) / 2
@@ -297,7 +297,7 @@ func (sp *settleProblem) dragAt(u float64) (Estimate, error) {
 	rh := sp.m.Rheology
 	mu := rh.ApparentViscosity(u / sp.d)
 	if !(mu > 0) || math.IsInf(mu, 0) {
-		return Estimate{}, fmt.Errorf("regime: apparent viscosity at %.3g 1/s is not a positive number", u/sp.d)
+		return Estimate{}, errorf("apparent viscosity at %.3g 1/s is not a positive number", u/sp.d)
 	}
 	f := Flow{Speed: u, Density: sp.m.Density, Viscosity: mu}
 	if pl, ok := model(rh).(media.PowerLaw); ok {

@@ -1,7 +1,6 @@
 package regime
 
 import (
-	"fmt"
 	"math"
 	"math/rand/v2"
 	"sort"
@@ -63,7 +62,7 @@ type Evaluator func(x []float64, r *Result) error
 // drag law. The same seed gives the same result.
 func MonteCarlo(inputs []UncertainInput, eval Evaluator, draws int, seed uint64) (Uncertainty, error) {
 	if draws < 10 {
-		return Uncertainty{}, fmt.Errorf("regime: at least 10 draws are needed, got %d", draws)
+		return Uncertainty{}, errorf("at least 10 draws are needed, got %d", draws)
 	}
 	src := rand.NewPCG(seed, 0x666c6f77) // "flow"
 	samplers := make([]func() float64, len(inputs))
@@ -100,7 +99,7 @@ func MonteCarlo(inputs []UncertainInput, eval Evaluator, draws int, seed uint64)
 	}
 	ok := draws - u.Failed
 	if ok == 0 {
-		return u, fmt.Errorf("regime: every draw failed; the uncertainty reaches impossible conditions")
+		return u, errorf("every draw failed; the uncertainty reaches impossible conditions")
 	}
 	for k := range u.RegimeProbability {
 		u.RegimeProbability[k] /= float64(ok)
@@ -225,7 +224,7 @@ func Linear(inputs []UncertainInput, eval Evaluator) (Uncertainty, error) {
 		up, err1 := step(1)
 		dn, err2 := step(-1)
 		if err1 != nil || err2 != nil {
-			return Uncertainty{}, fmt.Errorf("regime: linear propagation failed near the measured %s; use Monte Carlo", in.Name)
+			return Uncertainty{}, errorf("linear propagation failed near the measured %s; use Monte Carlo", in.Name)
 		}
 		for k := range variance {
 			d := (math.Log(up[k]) - math.Log(dn[k])) / (2 * h)

@@ -19,7 +19,7 @@ func TestReynoldsLogNormalClosedForm(t *testing.T) {
 	const l0, u0, sdl, sdu = 0.01, 0.05, 0.001, 0.01
 	eval := func(x []float64, r *Result) error {
 		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
-		return CalcChosenInto(r, &o, &w)
+		return CalcInto(r, o, &w, Options{Brief: true})
 	}
 	in := []UncertainInput{{"length", l0, sdl, true}, {"speed", u0, sdu, true}}
 	s := math.Sqrt(math.Log1p(0.01) + math.Log1p(0.04))
@@ -71,7 +71,7 @@ func TestRegimeProbabilityAtBoundary(t *testing.T) {
 	u := 1 * w.KinematicViscosity / d
 	eval := func(x []float64, r *Result) error {
 		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
-		return CalcChosenInto(r, &o, &w)
+		return CalcInto(r, o, &w, Options{Brief: true})
 	}
 	in := []UncertainInput{{"length", d, 0.1 * d, true}, {"speed", u, 0.1 * u, true}}
 	mc, _ := MonteCarlo(in, eval, 4000, 7)
@@ -98,9 +98,9 @@ func TestRegimeProbabilityAtBoundary(t *testing.T) {
 func TestMinimumPowerClosedForm(t *testing.T) {
 	const a, b = 40.0, 0.003
 	p := func(u float64) float64 { return a/u + b*u*u*u }
-	ump, _ := Minimize1D(p, 0.5, 50, 1e-10)
+	ump, _ := minimize1D(p, 0.5, 50, 1e-10)
 	checkRel(t, "U_mp", ump, math.Pow(a/(3*b), 0.25), 1e-7)
-	umr, _ := Minimize1D(func(u float64) float64 { return p(u) / u }, 0.5, 50, 1e-10)
+	umr, _ := minimize1D(func(u float64) float64 { return p(u) / u }, 0.5, 50, 1e-10)
 	checkRel(t, "U_mr", umr, math.Pow(a/b, 0.25), 1e-7)
 }
 
@@ -114,7 +114,7 @@ func TestFlightPowerCurveMinimum(t *testing.T) {
 	body := Body{Shape: Measured, Length: 0.3, DragCoefficient: cd, ReferenceArea: area}
 	in := FlightInput{Mass: m, Density: air.Density, Viscosity: air.DynamicViscosity, InducedFactor: 1.15, Wings: Wings{Span: span},
 		BodyDrag: func(u float64) float64 {
-			d, _ := DragChosen(body, Flow{Speed: u, Density: air.Density, Viscosity: air.DynamicViscosity})
+			d, _ := dragChosen(body, Flow{Speed: u, Density: air.Density, Viscosity: air.DynamicViscosity})
 			return d.Chosen.Force
 		}}
 	pc, err := FlightPowerCurve(in, 1, 30, 59)
@@ -156,7 +156,7 @@ func TestLinearAgainstMonteCarlo(t *testing.T) {
 	u := 50 * w.KinematicViscosity / 1e-3
 	eval := func(x []float64, r *Result) error {
 		o := NewOrganism(Body{Shape: Sphere, Length: x[0]}, x[1])
-		return CalcChosenInto(r, &o, &w)
+		return CalcInto(r, o, &w, Options{Brief: true})
 	}
 	in := []UncertainInput{{"length", 1e-3, 3e-5, true}, {"speed", u, 0.03 * u, true}}
 	lin, _ := Linear(in, eval)

@@ -334,10 +334,9 @@ func computeInput(in *inputs.Input, cfg *Config, mc *localMedia, seed uint64, s 
 		return outcome{}, err
 	}
 	r := &s.r
-	if err := regime.CalcChosenInto(r, &in.Organism, m); err != nil {
+	if err := regime.CalcInto(r, in.Organism, m, regime.Options{Brief: true, Screen: true}); err != nil {
 		return outcome{}, err
 	}
-	regime.ScreenInto(&in.Organism, r)
 	o := outcome{r: r}
 	if cfg.Uncertainty {
 		if us, idx := in.Uncertain(); len(us) > 0 {

@@ -341,7 +341,7 @@ func TestSweepBoundaries(t *testing.T) {
 		t.Fatal(err)
 	}
 	var stokesMax float64
-	for _, l := range regime.Laws {
+	for _, l := range regime.Laws() {
 		if l.Name == "Stokes" {
 			stokesMax = l.ChooseHi // where the sweep must mark the hand-over
 		}

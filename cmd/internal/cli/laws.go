@@ -24,7 +24,7 @@ func newLawsCmd(s Streams) *cobra.Command {
 				Shape, Law, Basis, Range, Chosen, Area, Source string
 			}
 			var js []lawJSON
-			for _, l := range regime.Laws {
+			for _, l := range regime.Laws() {
 				chosen := "listed only"
 				if l.ChooseHi > 0 {
 					chosen = fmt.Sprintf("%g < Re ≤ %s", l.ChooseLo, hi(l.ChooseHi))

@@ -158,7 +158,7 @@ func runSweep(o *sweepOptions, s Streams) error {
 		m, err := media.Lookup(in.Conditions)
 		var r regime.Result
 		if err == nil {
-			r, err = regime.CalcChosen(in.Organism, m)
+			err = regime.CalcInto(&r, in.Organism, &m, regime.Options{Brief: true})
 		}
 		if err != nil {
 			p.Error = trimPkg(err)

@@ -161,7 +161,7 @@ func DragFigure(c DragCase) (*Figure, error) {
 
 // isJoin reports whether the named law is one of regime's smooth joins.
 func isJoin(name string) bool {
-	for _, l := range regime.Laws {
+	for _, l := range regime.Laws() {
 		if l.Name == name {
 			return l.Join != nil
 		}

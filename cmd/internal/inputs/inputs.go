@@ -267,7 +267,7 @@ func bodyShape(hasDia, hasCD, hasArea bool, name, label string) (regime.Shape, e
 	if name != "" {
 		sh, err := regime.ParseShape(name)
 		if err != nil {
-			return shape, fmt.Errorf("%s: %s", label, strings.TrimPrefix(err.Error(), "regime: "))
+			return shape, fmt.Errorf("%s: %s", label, Reason(err))
 		}
 		shape = sh
 	}
@@ -280,7 +280,7 @@ func bodyShape(hasDia, hasCD, hasArea bool, name, label string) (regime.Shape, e
 // validBody is regime's check of a body, worded for a user.
 func validBody(b regime.Body) error {
 	if err := b.Validate(); err != nil {
-		return fmt.Errorf("%s", strings.TrimPrefix(err.Error(), "regime: "))
+		return fmt.Errorf("%s", Reason(err))
 	}
 	return nil
 }
@@ -379,7 +379,7 @@ func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
 	return us, idx
 }
 
-// Evaluator returns a function computing, with regime.CalcChosenInto, the
+// Evaluator returns a function computing, with regime.CalcInto (brief), the
 // result for values of the uncertain fields idx, with the medium from
 // lookup (media.LookupBrief, or a cache in front of it) for each. Every call
 // sets all of idx, so one copy of the input serves all draws.
@@ -393,6 +393,6 @@ func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (*media.Prope
 		if err != nil {
 			return err
 		}
-		return regime.CalcChosenInto(r, &d.Organism, m)
+		return regime.CalcInto(r, d.Organism, m, regime.Options{Brief: true})
 	}
 }

@@ -305,7 +305,7 @@ func sortedKeys(m map[string]int) []string {
 // registry (all of them, where laws of several shapes share the name).
 func lawSource(name string) string {
 	var srcs []string
-	for _, l := range regime.Laws {
+	for _, l := range regime.Laws() {
 		if l.Name == name && !slices.Contains(srcs, l.Source) {
 			srcs = append(srcs, l.Source)
 		}
