@@ -388,7 +388,8 @@ type localSearch func(res func(theta, r []float64), n int, theta []float64, maxI
 // The search goes startIterations from each start, then on from the best
 // of those to searchIterations in all. A parameter the data do not
 // identify creeps along a flat valley towards the edge of its range for
-// as long as it is let; only the best start is let go that far.
+// as long as it is let; only the best start is let go that far, except on
+// a thinned search, whose every optimum refine takes on to all points.
 const (
 	startIterations  = 30
 	searchIterations = 200
@@ -428,6 +429,10 @@ func fitWith(name string, pts []RheometerPoint, decades float64, searchN int, lo
 	search := thin(pts, searchN)
 	res := logResiduals(sp, natural, search)
 	bestF, bestTheta, best := math.Inf(1), []float64(nil), 0
+	iterations := startIterations
+	if len(search) < n {
+		iterations = searchIterations // refine takes every start on from where it stops
+	}
 	var found [][]float64 // each start's optimum on the search points
 	for _, st := range sp.starts(search) {
 		theta := make([]float64, k)
@@ -438,14 +443,14 @@ func fitWith(name string, pts []RheometerPoint, decades float64, searchN int, lo
 			}
 			theta[i] = s.theta(v)
 		}
-		th, f := local(res, len(search), theta, startIterations)
+		th, f := local(res, len(search), theta, iterations)
 		if f < bestF {
 			bestF, bestTheta, best = f, th, len(found)
 		}
 		found = append(found, th)
 	}
-	if bestTheta != nil {
-		bestTheta, bestF = local(res, len(search), bestTheta, searchIterations-startIterations)
+	if bestTheta != nil && iterations < searchIterations {
+		bestTheta, bestF = local(res, len(search), bestTheta, searchIterations-iterations)
 		found[best] = bestTheta
 	}
 	if bestTheta != nil && len(search) < n {
