@@ -26,7 +26,7 @@ func benchBatchOutput(b *testing.B, n int) []byte {
 	if err := survey.Generate(&in, n, 1); err != nil {
 		b.Fatal(err)
 	}
-	if _, err := batch.Run(context.Background(), &in, &out, func(batch.Reject) error { return nil }, batch.Config{Workers: 2}); err != nil {
+	if _, err := batch.Run(context.Background(), &in, &out, func(batch.Reject) error { return nil }, batch.Config{Workers: 2, InFormat: batch.CSV, OutFormat: batch.CSV}); err != nil {
 		b.Fatal(err)
 	}
 	return out.Bytes()
