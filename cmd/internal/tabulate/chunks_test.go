@@ -6,12 +6,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"math/rand/v2"
 	"sort"
 	"strings"
 	"testing"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/cmd/internal/survey"
 	"gonum.org/v1/gonum/stat"
 )
@@ -163,5 +165,22 @@ func TestChunksReadFailure(t *testing.T) {
 	_, err = Chunks(header, func() (batch.Chunk, error) { return batch.Chunk{}, io.EOF }, Spec{}, 2, func(batch.Record) {})
 	if err != nil {
 		t.Errorf("empty table: %v", err)
+	}
+}
+
+// number reads plain decimals by decimal.Parse and everything else as
+// before, through quantity.ParseDefault: for every text here both give the
+// same bits or both refuse. The values are strconv.ParseFloat's (decimal's
+// own tests hold it to that).
+func TestNumberAsParseDefault(t *testing.T) {
+	texts := []string{"7.3115", "-0", "+5", ".5", "5.", "1e-300", "4.9e-324", "1e400", "-1e400", " 3 ", "3 ", "Inf", "-Inf", "NaN",
+		"1_0", "0x10", "3±1", "−2", "", " ", "abc", "123456789012345678901234567890", "1.7976931348623157e308", "2e-5mm"}
+	for _, s := range texts {
+		v, ok := number([]string{s}, column{idx: 0})
+		old, err := quantity.ParseDefault(quantity.Number, strings.TrimSpace(s), "")
+		oldOK := strings.TrimSpace(s) != "" && err == nil && !math.IsNaN(old.SI)
+		if ok != oldOK || ok && math.Float64bits(v) != math.Float64bits(old.SI) {
+			t.Errorf("%q: %v %v, ParseDefault %v %v", s, v, ok, old.SI, oldOK)
+		}
 	}
 }
