@@ -129,7 +129,7 @@ func newLayout(header []string, spec Spec) (*layout, error) {
 		if err != nil {
 			return nil, fmt.Errorf("the input has no %q column; give batch output or a survey table", m)
 		}
-		l.metric = append(l.metric, c)
+		l.metric = append(l.metric, column{idx: c.idx}) // read as a plain number
 	}
 	regimeCol, err := find("regime")
 	if err != nil {
@@ -289,9 +289,8 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 	return l.summarise(groups), nil
 }
 
-// summarise turns the accumulators into groups sorted by key, each
-// group's quantiles and fits computed in a goroutine of its own, at most
-// GOMAXPROCS at a time.
+// summarise turns the accumulators into groups sorted by key, the groups
+// shared out among GOMAXPROCS goroutines.
 func (l *layout) summarise(s *groupSet) []Group {
 	accs := slices.Clone(s.order)
 	slices.SortFunc(accs, func(a, b *acc) int { return strings.Compare(a.id, b.id) })
