@@ -21,7 +21,7 @@
 //	rheology models              Newtonian … Casson    Ostwald; de Waele; Cross 1965; Carreau 1972;
 //	                                                   Yasuda et al. 1981; Bingham 1916;
 //	                                                   Herschel & Bulkley 1926; Casson 1959
-//	rheometer fits               FitRheology           gonum/optimize on log residuals; AICc
+//	rheometer fits               FitRheology           Levenberg–Marquardt on log residuals; AICc
 //	                                                   (Burnham & Anderson 2002)
 //	measured media               MediumFile            this package's schema, version 1
 //

@@ -7,7 +7,6 @@ import (
 
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/stat"
 )
 
@@ -55,8 +54,8 @@ const (
 // squares on log residuals, r = ln τ_model − ln τ (the same as log
 // residuals of apparent viscosity), which weights every decade of shear
 // rate alike. Parameters are kept physical by transforms (positive
-// parameters as exp θ; flow indices in 0.05–2). The minimum is found with
-// gonum/optimize (Nelder–Mead from several starts, then BFGS); standard
+// parameters as exp θ; flow indices in 0.05–2). The minimum is found by
+// Levenberg–Marquardt from several starts (levenbergMarquardt); standard
 // errors come from the Jacobian of the residuals in the natural parameters
 // at the optimum, s²(JᵀJ)⁻¹ with s² = SSR/(n − p). AICc = n ln(SSR/n) + 2k +
 // 2k(k+1)/(n − k − 1) with k = p + 1 counting the error variance (Burnham &
@@ -381,8 +380,33 @@ func cassonStarts(pts []RheometerPoint) [][]float64 {
 	return [][]float64{{math.Max(a*a, pts[0].Stress*0.01), math.Max(b*b, 1e-9)}, {pts[0].Stress * 0.5, math.Max(b*b, 1e-9)}}
 }
 
-// fitOne fits one model, searching on at most searchN of the points.
+// localSearch finds the least-squares optimum near theta of the n
+// residuals res writes, in at most maxIter iterations, returning it and
+// its sum of squares (never worse than theta's).
+type localSearch func(res func(theta, r []float64), n int, theta []float64, maxIter int) ([]float64, float64)
+
+// The search goes startIterations from each start, then on from the best
+// of those to searchIterations in all. A parameter the data do not
+// identify creeps along a flat valley towards the edge of its range for
+// as long as it is let; only the best start is let go that far, except on
+// a thinned search, whose every optimum refine takes on to all points.
+const (
+	startIterations  = 30
+	searchIterations = 200
+)
+
+// fitOne fits one model, searching on at most searchN of the points by
+// Levenberg–Marquardt from each start, which needs a few dozen
+// evaluations of the residuals where Nelder–Mead then BFGS on their sum of
+// squares needed thousands for the same optimum.
 func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) ModelFit {
+	return fitWith(name, pts, decades, searchN, func(res func(theta, r []float64), n int, theta []float64, maxIter int) ([]float64, float64) {
+		return levenbergMarquardt(res, theta, n, maxIter)
+	})
+}
+
+// fitWith is fitOne with the search from each start made by local.
+func fitWith(name string, pts []RheometerPoint, decades float64, searchN int, local localSearch) ModelFit {
 	sp := specs(pts)[name]
 	k := len(sp.params)
 	n := len(pts)
@@ -403,20 +427,12 @@ func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) Mod
 	// The search works on at most searchPoints of the points; a thinned
 	// fit is then refined on all of them.
 	search := thin(pts, searchN)
-	ssr := func(p []float64) float64 {
-		m := sp.build(p)
-		s := 0.0
-		for _, q := range search {
-			r := math.Log(m.Stress(q.ShearRate)) - math.Log(q.Stress)
-			s += r * r
-		}
-		if math.IsNaN(s) || math.IsInf(s, 0) {
-			return math.MaxFloat64
-		}
-		return s
+	res := logResiduals(sp, natural, search)
+	bestF, bestTheta, best := math.Inf(1), []float64(nil), 0
+	iterations := startIterations
+	if len(search) < n {
+		iterations = searchIterations // refine takes every start on from where it stops
 	}
-	obj := func(theta []float64) float64 { return ssr(natural(theta)) }
-	bestF, bestTheta := math.Inf(1), []float64(nil)
 	var found [][]float64 // each start's optimum on the search points
 	for _, st := range sp.starts(search) {
 		theta := make([]float64, k)
@@ -427,11 +443,15 @@ func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) Mod
 			}
 			theta[i] = s.theta(v)
 		}
-		th, f := minimise(obj, theta)
-		found = append(found, th)
+		th, f := local(res, len(search), theta, iterations)
 		if f < bestF {
-			bestF, bestTheta = f, th
+			bestF, bestTheta, best = f, th, len(found)
 		}
+		found = append(found, th)
+	}
+	if bestTheta != nil && iterations < searchIterations {
+		bestTheta, bestF = local(res, len(search), bestTheta, searchIterations-iterations)
+		found[best] = bestTheta
 	}
 	if bestTheta != nil && len(search) < n {
 		bestTheta, bestF = refine(sp, natural, pts, found)
@@ -658,35 +678,6 @@ func timeConstant(m Model) float64 {
 		return v.Lambda
 	}
 	return 0
-}
-
-// minimise runs Nelder–Mead then BFGS (numerical gradient) and returns the
-// best point found.
-func minimise(f func([]float64) float64, x0 []float64) ([]float64, float64) {
-	best, bestF := append([]float64{}, x0...), f(x0)
-	p := optimize.Problem{Func: f}
-	settings := &optimize.Settings{FuncEvaluations: 6000, Converger: &optimize.FunctionConverge{Absolute: 1e-14, Relative: 1e-12, Iterations: 60}}
-	if r, err := optimize.Minimize(p, x0, settings, &optimize.NelderMead{}); r != nil && (err == nil || r.F < bestF) {
-		if r.F < bestF {
-			best, bestF = r.X, r.F
-		}
-	}
-	p.Grad = func(grad, x []float64) {
-		h := 1e-6
-		xx := append([]float64{}, x...)
-		for i := range x {
-			xx[i] = x[i] + h
-			fp := f(xx)
-			xx[i] = x[i] - h
-			fm := f(xx)
-			xx[i] = x[i]
-			grad[i] = (fp - fm) / (2 * h)
-		}
-	}
-	if r, _ := optimize.Minimize(p, best, &optimize.Settings{FuncEvaluations: 3000}, &optimize.BFGS{}); r != nil && r.F < bestF {
-		best, bestF = r.X, r.F
-	}
-	return best, bestF
 }
 
 // standardErrors returns √diag(s²(JᵀJ)⁻¹) in the natural parameters, with the

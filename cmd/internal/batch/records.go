@@ -592,29 +592,61 @@ func (r *Reader) Header() []string { return r.header }
 // Next returns the next record, io.EOF after the last, or a read failure.
 func (r *Reader) Next() (Record, error) {
 	for len(r.recs) == 0 {
-		c, err := r.ck.next()
+		c, err := r.NextChunk()
 		if err != nil {
 			return Record{}, err
 		}
 		r.recs = r.recs[:0]
-		for _, l := range c.overlong {
-			r.recs = append(r.recs, Record{Line: l, Err: errOverlong})
-		}
-		r.fields = eachCSVRecord(c.data, r.ck.rule, r.fields, func(rec string, fields []string, err error, off int) {
-			if blank(rec) {
-				return
+		r.fields = c.Each(r.fields, func(rec Record) {
+			if rec.Err == nil {
+				rec.Fields = append([]string(nil), rec.Fields...)
 			}
-			if err == nil && len(fields) != len(r.header) {
-				err = fieldCountError(len(fields), len(r.header))
-			}
-			out := Record{Line: c.firstLine + off, Text: rec, Err: err}
-			if err == nil {
-				out.Fields = append([]string(nil), fields...)
-			}
-			r.recs = append(r.recs, out)
+			r.recs = append(r.recs, rec)
 		})
 	}
 	rec := r.recs[0]
 	r.recs = r.recs[1:]
 	return rec, nil
+}
+
+// Chunk is a run of whole records of a table, about 256 KiB, from
+// Reader.NextChunk; Each splits it, in any goroutine, so that the records
+// of one table can be split and used by several at once.
+type Chunk struct {
+	c      *chunk
+	rule   recordRule
+	header int
+}
+
+// NextChunk returns the next run of records, io.EOF after the last, or a
+// read failure. Next and NextChunk are not to be mixed on one Reader.
+func (r *Reader) NextChunk() (Chunk, error) {
+	c, err := r.ck.next()
+	if err != nil {
+		return Chunk{}, err
+	}
+	return Chunk{c: c, rule: r.ck.rule, header: len(r.header)}, nil
+}
+
+// Each calls fn with each record of the chunk in order, as Next returns
+// them, except that Fields and Text are substrings of the chunk and Fields
+// is valid only until fn returns. fields is a slice to reuse; the returned
+// one is for the next call.
+func (c Chunk) Each(fields []string, fn func(Record)) []string {
+	for _, l := range c.c.overlong {
+		fn(Record{Line: l, Err: errOverlong})
+	}
+	return eachCSVRecord(c.c.data, c.rule, fields, func(rec string, fields []string, err error, off int) {
+		if blank(rec) {
+			return
+		}
+		if err == nil && len(fields) != c.header {
+			err = fieldCountError(len(fields), c.header)
+		}
+		out := Record{Line: c.c.firstLine + off, Text: rec, Err: err}
+		if err == nil {
+			out.Fields = fields
+		}
+		fn(out)
+	})
 }

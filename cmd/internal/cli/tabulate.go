@@ -3,6 +3,7 @@ package cli
 import (
 	"context"
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"strings"
@@ -206,26 +207,20 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 	if err != nil {
 		return nil, 0, err
 	}
-	var readErr error
-	next := func() ([]string, error) {
-		for {
-			rec, err := tr.Next()
-			if err != nil {
-				if err != io.EOF {
-					readErr = err
-				}
-				return nil, err
-			}
-			if rec.Err == nil {
-				return rec.Fields, nil
-			}
-			rejected.Add(1)
-			reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
+	next := func() (batch.Chunk, error) {
+		c, err := tr.NextChunk()
+		if err != nil && err != io.EOF {
+			return c, readFailure{err}
 		}
+		return c, err
 	}
-	groups, err := tabulate.Tabulate(header, next, sp)
-	if readErr != nil {
-		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", readErr)
+	onReject := func(rec batch.Record) {
+		rejected.Add(1)
+		reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
+	}
+	groups, err := tabulate.Chunks(header, next, sp, cfg.Workers, onReject)
+	if rf := (readFailure{}); errors.As(err, &rf) {
+		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", rf.err)
 	}
 	if err != nil {
 		if pr != nil {
@@ -238,6 +233,12 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 	}
 	return groups, int(rejected.Load()), nil
 }
+
+// readFailure is a failure to read the table, told apart from a
+// summary's own errors.
+type readFailure struct{ err error }
+
+func (r readFailure) Error() string { return r.err.Error() }
 
 // rejectText says where a rejected row is and why, for stderr, with
 // control characters escaped.

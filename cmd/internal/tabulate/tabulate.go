@@ -7,15 +7,17 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"runtime"
 	"slices"
-	"sort"
 	"strings"
+	"sync"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/cmd/internal/batch"
+	"github.com/flowregime/flowregime/cmd/internal/decimal"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/regime"
-	"gonum.org/v1/gonum/stat"
 )
 
 // Metrics are the summarised computed columns.
@@ -55,10 +57,12 @@ type Group struct {
 // acc gathers one group's values: per metric (in the order of Metrics),
 // per regime (in the order of regime.Regimes) and per fit, in slices
 // rather than maps, so that a group costs a few hundred bytes besides its
-// values.
+// values. line is the line of the group's first row in the input.
 type acc struct {
+	id      string // key joined by NUL
 	key     []string
 	n       int
+	line    int
 	metric  [][]float64
 	regimes []int
 	fx, fy  [][]float64
@@ -85,9 +89,18 @@ type column struct {
 	si   bool // parse with units to SI
 }
 
-// Tabulate reads rows (header first) of a batch output and summarises them.
-// next returns io.EOF after the last row.
-func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Group, error) {
+// layout says where the values a summary reads are in a row.
+type layout struct {
+	spec   Spec
+	by     []int
+	metric []column // in the order of Metrics
+	regime int
+	fits   [][2]column // y, x
+}
+
+// newLayout finds the columns of spec, the metrics and the regime in
+// header.
+func newLayout(header []string, spec Spec) (*layout, error) {
 	find := func(name string) (column, error) {
 		for i, h := range header {
 			if strings.TrimSpace(h) == name {
@@ -103,27 +116,26 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		}
 		return column{}, fmt.Errorf("no column %q; columns are: %s", name, strings.Join(header, ", "))
 	}
-	var by []int
+	l := &layout{spec: spec}
 	for _, b := range spec.By {
 		c, err := find(b)
 		if err != nil {
 			return nil, fmt.Errorf("--by: %v", err)
 		}
-		by = append(by, c.idx)
+		l.by = append(l.by, c.idx)
 	}
-	metric := make([]int, len(Metrics))
-	for i, m := range Metrics {
+	for _, m := range Metrics {
 		c, err := find(m)
 		if err != nil {
 			return nil, fmt.Errorf("the input has no %q column; give batch output or a survey table", m)
 		}
-		metric[i] = c.idx
+		l.metric = append(l.metric, column{idx: c.idx}) // read as a plain number
 	}
 	regimeCol, err := find("regime")
 	if err != nil {
 		return nil, fmt.Errorf("the input has no \"regime\" column; give batch output or a survey table")
 	}
-	var fitCols [][2]column
+	l.regime = regimeCol.idx
 	for _, p := range spec.Fits {
 		y, err := find(p.Y)
 		if err != nil {
@@ -133,10 +145,133 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		if err != nil {
 			return nil, fmt.Errorf("--fit %s=%s: %v", p.Y, p.X, err)
 		}
-		fitCols = append(fitCols, [2]column{y, x})
+		l.fits = append(l.fits, [2]column{y, x})
 	}
-	groups := map[string]*acc{}
-	var order []string
+	return l, nil
+}
+
+// groupSet holds accumulators by key, in the order their groups first
+// appear.
+type groupSet struct {
+	byKey map[string]*acc
+	order []*acc
+	limit int    // most groups allowed; 0 for no limit
+	buf   []byte // the key being looked up
+}
+
+func newGroupSet(limit int) *groupSet {
+	return &groupSet{byKey: map[string]*acc{}, limit: limit}
+}
+
+// lookupKey is row's group key: its by fields joined by NUL, pointing
+// into row or into s.buf (valid until the next call).
+func (s *groupSet) lookupKey(l *layout, row []string) string {
+	field := func(c int) string {
+		if c < len(row) {
+			return row[c]
+		}
+		return ""
+	}
+	if len(l.by) == 1 {
+		return field(l.by[0])
+	}
+	s.buf = s.buf[:0]
+	for i, c := range l.by {
+		if i > 0 {
+			s.buf = append(s.buf, 0)
+		}
+		s.buf = append(s.buf, field(c)...)
+	}
+	return unsafe.String(unsafe.SliceData(s.buf), len(s.buf))
+}
+
+// group returns the accumulator of row's group, made if it is new (the
+// row is then on line); TooManyGroups past the limit.
+func (s *groupSet) group(l *layout, row []string, line int) (*acc, error) {
+	k := s.lookupKey(l, row)
+	if a, ok := s.byKey[k]; ok {
+		return a, nil
+	}
+	key := make([]string, len(l.by))
+	for i, c := range l.by {
+		if c < len(row) {
+			key[i] = strings.Clone(row[c])
+		}
+	}
+	return s.insert(l, strings.Clone(k), key, line)
+}
+
+// insert makes the accumulator of a new group.
+func (s *groupSet) insert(l *layout, k string, key []string, line int) (*acc, error) {
+	if s.limit > 0 && len(s.order) == s.limit {
+		return nil, TooManyGroups{By: l.spec.By}
+	}
+	a := &acc{id: k, key: key, line: line, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regime.Regimes)),
+		fx: make([][]float64, len(l.fits)), fy: make([][]float64, len(l.fits))}
+	s.byKey[k] = a
+	s.order = append(s.order, a)
+	return a, nil
+}
+
+// add adds row to a.
+func (l *layout) add(a *acc, row []string) {
+	a.n++
+	for i, c := range l.metric {
+		if v, ok := number(row, c); ok {
+			a.metric[i] = append(a.metric[i], v)
+		}
+	}
+	if l.regime < len(row) {
+		if i := slices.Index(regime.Regimes, row[l.regime]); i >= 0 {
+			a.regimes[i]++
+		}
+	}
+	for i, fc := range l.fits {
+		y, oky := number(row, fc[0])
+		x, okx := number(row, fc[1])
+		if oky && okx {
+			a.fy[i] = append(a.fy[i], y)
+			a.fx[i] = append(a.fx[i], x)
+		}
+	}
+}
+
+// merge adds the rows of partial p, which come after those of s, to s.
+// On TooManyGroups it returns the line of the first row past the limit.
+func (s *groupSet) merge(l *layout, p *groupSet) (int, error) {
+	for _, pa := range p.order {
+		a, ok := s.byKey[pa.id]
+		if !ok {
+			if s.limit > 0 && len(s.order) == s.limit {
+				return pa.line, TooManyGroups{By: l.spec.By}
+			}
+			s.byKey[pa.id] = pa
+			s.order = append(s.order, pa)
+			continue
+		}
+		a.n += pa.n
+		for i := range a.metric {
+			a.metric[i] = append(a.metric[i], pa.metric[i]...)
+		}
+		for i := range a.regimes {
+			a.regimes[i] += pa.regimes[i]
+		}
+		for i := range a.fx {
+			a.fx[i] = append(a.fx[i], pa.fx[i]...)
+			a.fy[i] = append(a.fy[i], pa.fy[i]...)
+		}
+	}
+	return 0, nil
+}
+
+// Tabulate reads rows (header first) of a batch output and summarises them.
+// next returns io.EOF after the last row.
+func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Group, error) {
+	l, err := newLayout(header, spec)
+	if err != nil {
+		return nil, err
+	}
+	groups := newGroupSet(MaxGroups)
 	for {
 		row, err := next()
 		if err == io.EOF {
@@ -145,67 +280,71 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		if err != nil {
 			return nil, err
 		}
-		key := make([]string, len(by))
-		for i, c := range by {
-			if c < len(row) {
-				key[i] = row[c]
-			}
+		a, err := groups.group(l, row, 0)
+		if err != nil {
+			return nil, err
 		}
-		k := strings.Join(key, "\x00")
-		g, ok := groups[k]
-		if !ok {
-			if len(groups) == MaxGroups {
-				return nil, TooManyGroups{By: spec.By}
-			}
-			g = &acc{key: key, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regime.Regimes)),
-				fx: make([][]float64, len(fitCols)), fy: make([][]float64, len(fitCols))}
-			groups[k] = g
-			order = append(order, k)
-		}
-		g.n++
-		for i, c := range metric {
-			if v, ok := number(row, column{idx: c}); ok {
-				g.metric[i] = append(g.metric[i], v)
-			}
-		}
-		if regimeCol.idx < len(row) {
-			if i := slices.Index(regime.Regimes, row[regimeCol.idx]); i >= 0 {
-				g.regimes[i]++
-			}
-		}
-		for i, fc := range fitCols {
-			y, oky := number(row, fc[0])
-			x, okx := number(row, fc[1])
-			if oky && okx {
-				g.fy[i] = append(g.fy[i], y)
-				g.fx[i] = append(g.fx[i], x)
-			}
-		}
+		l.add(a, row)
 	}
-	sort.Strings(order)
-	out := make([]Group, 0, len(order))
-	for _, k := range order {
-		a := groups[k]
-		g := Group{Key: a.key, N: a.n, Stats: map[string]Stat{}, Regimes: map[string]float64{}}
-		for i, m := range Metrics {
-			g.Stats[m] = summarise(a.metric[i])
-		}
-		for i, r := range regime.Regimes {
-			g.Regimes[r] = float64(a.regimes[i]) / float64(a.n)
-		}
-		for i, p := range spec.Fits {
-			g.Fits = append(g.Fits, FitResult{Pair: p, Fit: ScalingFit(a.fx[i], a.fy[i])})
-		}
-		out = append(out, g)
-	}
-	return out, nil
+	return l.summarise(groups), nil
 }
 
+// summarise turns the accumulators into groups sorted by key, the groups
+// shared out among GOMAXPROCS goroutines.
+func (l *layout) summarise(s *groupSet) []Group {
+	accs := slices.Clone(s.order)
+	slices.SortFunc(accs, func(a, b *acc) int { return strings.Compare(a.id, b.id) })
+	out := make([]Group, len(accs))
+	work := make(chan int)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(accs)) {
+		wg.Go(func() {
+			for i := range work {
+				out[i] = l.summariseGroup(accs[i])
+			}
+		})
+	}
+	for i := range accs {
+		work <- i
+	}
+	close(work)
+	wg.Wait()
+	return out
+}
+
+// summariseGroup is one group's summary. It reorders a's values.
+func (l *layout) summariseGroup(a *acc) Group {
+	g := Group{Key: a.key, N: a.n, Stats: map[string]Stat{}, Regimes: map[string]float64{}}
+	for i, m := range Metrics {
+		g.Stats[m] = summarise(a.metric[i])
+	}
+	for i, r := range regime.Regimes {
+		g.Regimes[r] = float64(a.regimes[i]) / float64(a.n)
+	}
+	for i, p := range l.spec.Fits {
+		g.Fits = append(g.Fits, FitResult{Pair: p, Fit: ScalingFit(a.fx[i], a.fy[i])})
+	}
+	return g
+}
+
+// number reads column c of row: a plain decimal number at once (as
+// strconv.ParseFloat reads it, by decimal.Parse), anything else through
+// quantity.ParseDefault, in SI units for a quantity column. Empty, NaN and
+// unreadable cells give false.
 func number(row []string, c column) (float64, bool) {
 	if c.idx >= len(row) {
 		return 0, false
 	}
-	s := strings.TrimSpace(row[c.idx])
+	s := row[c.idx]
+	if s == "" {
+		return 0, false
+	}
+	if !c.si {
+		if f, ok := decimal.Parse(s); ok && !math.IsInf(f, 0) {
+			return f + 0, true // + 0 as ParseDefault's conversion adds it: −0 reads as 0
+		}
+	}
+	s = strings.TrimSpace(s)
 	if s == "" {
 		return 0, false
 	}
@@ -221,17 +360,24 @@ func number(row []string, c column) (float64, bool) {
 }
 
 // summarise returns the median and the 5th and 95th percentiles by the
-// empirical quantile (gonum stat.Quantile, stat.Empirical: the smallest
-// sample at or above the fraction p).
+// empirical quantile (as gonum stat.Quantile with stat.Empirical gives it:
+// the smallest sample at or above the fraction p), found by selection
+// rather than by sorting all of v, which it reorders.
 func summarise(v []float64) Stat {
 	s := Stat{N: len(v), Median: math.NaN(), P5: math.NaN(), P95: math.NaN()}
 	if len(v) == 0 {
 		return s
 	}
-	sorted := append([]float64(nil), v...)
-	sort.Float64s(sorted)
-	s.Median = stat.Quantile(0.5, stat.Empirical, sorted, nil)
-	s.P5 = stat.Quantile(0.05, stat.Empirical, sorted, nil)
-	s.P95 = stat.Quantile(0.95, stat.Empirical, sorted, nil)
+	i95, i50, i5 := empiricalIndex(0.95, len(v)), empiricalIndex(0.5, len(v)), empiricalIndex(0.05, len(v))
+	s.P95 = selectNth(v, i95)
+	s.Median = selectNth(v[:i95+1], i50)
+	s.P5 = selectNth(v[:i50+1], i5)
 	return s
+}
+
+// empiricalIndex is the index in n sorted values of the empirical
+// p-quantile: the first i with i + 1 ≥ p n, as gonum's empiricalQuantile
+// counts.
+func empiricalIndex(p float64, n int) int {
+	return max(0, int(math.Ceil(p*float64(n)))-1)
 }
