@@ -153,6 +153,7 @@ func air(c AirConditions, brief bool) (Properties, error) {
 		return Properties{}, fmt.Errorf("media: relative humidity %.4g %% is outside 0–100 %%", c.HumidityPercent)
 	}
 	p := blank("air")
+	p.Gas = true
 	p.AltitudeM = c.AltitudeM
 	p.GeopotentialM = GeopotentialHeight(c.AltitudeM)
 	p.HumidityPercent = c.HumidityPercent

@@ -86,10 +86,18 @@ type Properties struct {
 	GeopotentialM     float64 // geopotential height, m'
 	HumidityPercent   float64 // relative humidity, %
 
+	// Gas is true for a gas (the built-in air, or a medium file that says
+	// "gas": true): organisms in it fly, so flight power and the flyers'
+	// Strouhal screen apply, and settling particles slip (Cunningham) when
+	// the temperature and pressure are known. Physics reads this, never
+	// the name.
+	Gas bool
+
 	Rheology Rheology // nil for a Newtonian fluid
 
 	Methods  []string
 	Warnings []Warning
+	Assumed  []Default // conditions Lookup filled in because they were not given
 }
 
 // ApparentViscosity returns the viscosity in Pa·s at the given shear rate

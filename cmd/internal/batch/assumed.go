@@ -101,7 +101,7 @@ func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) [
 		if nan(c.HumidityPercent) {
 			out = append(out, AssumedHumidity)
 		}
-	case m.Medium != media.KindFreshWater && m.Medium != media.KindSeawater && media.IsMediumFile(c.Medium):
+	case m.Medium != media.KindFreshWater && m.Medium != media.KindSeawater && inputs.IsMediumFile(c.Medium):
 		// a measured medium: its file fixes its properties
 	default:
 		if nan(c.TemperatureC) {
