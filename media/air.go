@@ -27,6 +27,9 @@ var ussaLayers = []struct{ h, t, p, lapse float64 }{
 // height (m'), H = r₀ z / (r₀ + z) (USSA-76 eq. 18).
 func GeopotentialHeight(z float64) float64 { return ussaR0 * z / (ussaR0 + z) }
 
+// geometricAltitude is the inverse of GeopotentialHeight: z = r₀ H / (r₀ − H).
+func geometricAltitude(h float64) float64 { return ussaR0 * h / (ussaR0 - h) }
+
 // StandardAtmosphere returns the temperature (K) and pressure (Pa) of the US
 // Standard Atmosphere 1976 (= ISO 2533:1975) at geopotential height h (m'),
 // for −5 km ≤ h ≤ 32 km: the troposphere and the lower stratosphere.
@@ -147,10 +150,10 @@ func Air(c AirConditions) (Properties, error) { return air(c, false) }
 // air is [Air]; brief leaves out the method notes and the warnings' texts.
 func air(c AirConditions, brief bool) (Properties, error) {
 	if !finite(c.OffsetK, c.AltitudeM, c.HumidityPercent) || math.IsInf(c.TemperatureC, 0) || math.IsInf(c.PressurePa, 0) {
-		return Properties{}, fmt.Errorf("media: air needs finite altitude, humidity and temperature offset")
+		return Properties{}, errorf("air needs finite altitude, humidity and temperature offset")
 	}
 	if c.HumidityPercent < 0 || c.HumidityPercent > 100 {
-		return Properties{}, fmt.Errorf("media: relative humidity %.4g %% is outside 0–100 %%", c.HumidityPercent)
+		return Properties{}, outOfRange("relative humidity", FieldHumidity, c.HumidityPercent, 0, 100, "%", "relative humidity %.4g %% is outside 0–100 %%", c.HumidityPercent)
 	}
 	p := blank("air")
 	p.Gas = true
@@ -159,7 +162,8 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	p.HumidityPercent = c.HumidityPercent
 	stdT, stdP := StandardAtmosphere(p.GeopotentialM)
 	if math.IsNaN(stdT) {
-		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range (with --pressure and --temp it is only reported)", c.AltitudeM, p.GeopotentialM)
+		return Properties{}, outOfRange("altitude", FieldAltitude, c.AltitudeM, geometricAltitude(ussaLowH), geometricAltitude(ussaTopH), "m",
+			"altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range", c.AltitudeM, p.GeopotentialM)
 	}
 	p.PressurePa = c.PressurePa
 	if math.IsNaN(p.PressurePa) {
@@ -169,10 +173,10 @@ func air(c AirConditions, brief bool) (Properties, error) {
 		})
 	}
 	if p.PressurePa <= 0 {
-		return Properties{}, fmt.Errorf("media: air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
+		return Properties{}, outOfRange("air pressure", FieldPressure, p.PressurePa, 0, AirMaxPressurePa, "Pa", "air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
 	}
 	if p.PressurePa > AirMaxPressurePa {
-		return Properties{}, fmt.Errorf("media: air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
+		return Properties{}, outOfRange("air pressure", FieldPressure, p.PressurePa, 0, AirMaxPressurePa, "Pa", "air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
 	}
 	if math.IsNaN(c.TemperatureC) {
 		p.TemperatureC = stdT - ZeroCelsiusK + c.OffsetK
@@ -184,11 +188,11 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	}
 	tK := p.TemperatureC + ZeroCelsiusK
 	if tK <= 0 {
-		return Properties{}, fmt.Errorf("media: air temperature %.4g °C is below absolute zero", p.TemperatureC)
+		return Properties{}, errorf("air temperature %.4g °C is below absolute zero", p.TemperatureC)
 	}
 	h := c.HumidityPercent / 100
 	if h > 0 && SaturationVapourPressure(tK) >= p.PressurePa {
-		return Properties{}, fmt.Errorf("media: at %.4g °C the saturation vapour pressure exceeds the air pressure %.6g Pa; humid air cannot exist there", p.TemperatureC, p.PressurePa)
+		return Properties{}, errorf("at %.4g °C the saturation vapour pressure exceeds the air pressure %.6g Pa; humid air cannot exist there", p.TemperatureC, p.PressurePa)
 	}
 	p.Density = MoistAirDensity(tK, p.PressurePa, h, 0.0004)
 	p.DynamicViscosity = SutherlandViscosity(tK)

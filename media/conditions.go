@@ -151,7 +151,7 @@ func lookup(c Conditions, brief bool) (Properties, error) {
 	c = c.stated()
 	for _, v := range c.fields() {
 		if math.IsInf(*v, 0) {
-			return Properties{}, fmt.Errorf("media: conditions must be finite numbers, not infinity")
+			return Properties{}, errorf("conditions must be finite numbers, not infinity")
 		}
 	}
 	p, err := lookupStated(c, brief)
@@ -166,7 +166,7 @@ func lookupStated(c Conditions, brief bool) (Properties, error) {
 	switch strings.ToLower(c.Medium) {
 	case KindAir:
 		if !math.IsNaN(c.DepthM) || !math.IsNaN(c.SalinityPractical) {
-			return Properties{}, fmt.Errorf("media: depth and salinity apply to water, not air; use altitude or pressure")
+			return Properties{}, errorf("depth and salinity apply to water, not air; use altitude or pressure")
 		}
 		return air(AirConditions{
 			TemperatureC: c.TemperatureC, OffsetK: or(c.TemperatureOffset, 0),
@@ -174,16 +174,16 @@ func lookupStated(c Conditions, brief bool) (Properties, error) {
 		}, brief)
 	case KindFreshWater, KindSeawater:
 		if !math.IsNaN(c.HumidityPercent) || !math.IsNaN(c.TemperatureOffset) {
-			return Properties{}, fmt.Errorf("media: humidity and temperature offset apply to air, not water")
+			return Properties{}, errorf("humidity and temperature offset apply to air, not water")
 		}
 		return water(c, brief)
 	case "":
-		return Properties{}, fmt.Errorf("media: no medium given; accepted: %s", strings.Join(Kinds, ", "))
+		return Properties{}, errorf("no medium given; accepted: %s", strings.Join(Kinds, ", "))
 	default:
 		if p, ok, err := lookupLab(c, brief); ok {
 			return p, err
 		}
-		return Properties{}, fmt.Errorf("media: %w %q; accepted: %s, %s, or a medium file (.json)", ErrUnknownMedium, c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
+		return Properties{}, errorf("%w %q; accepted: %s, %s, or a medium file (.json)", ErrUnknownMedium, c.Medium, strings.Join(Kinds, ", "), strings.Join(LabKinds, ", "))
 	}
 }
 
@@ -247,22 +247,22 @@ func (c Conditions) defaults(p Properties) []Default {
 func water(c Conditions, brief bool) (Properties, error) {
 	sea := strings.ToLower(c.Medium) == KindSeawater
 	if !sea && !math.IsNaN(c.SalinityPractical) && c.SalinityPractical != 0 {
-		return Properties{}, fmt.Errorf("media: fresh water has no salinity; use seawater for salty water")
+		return Properties{}, errorf("fresh water has no salinity; use seawater for salty water")
 	}
 	t := or(c.TemperatureC, DefaultWaterTemperatureC)
 	depth := or(c.DepthM, 0)
 	if depth < 0 {
-		return Properties{}, fmt.Errorf("media: depth %.4g m is negative; give a depth of 0 m or more below the surface", depth)
+		return Properties{}, outOfRange("depth", FieldDepth, depth, 0, MaxWaterDepthM, "m", "depth %.4g m is negative; give a depth of 0 m or more below the surface", depth)
 	}
 	if depth > MaxWaterDepthM {
-		return Properties{}, fmt.Errorf("media: depth %.6g m is beyond the deepest accepted, %g m (the deepest ocean, the Challenger Deep, is about 10.9 km); give a depth of 0–%g m", depth, MaxWaterDepthM, MaxWaterDepthM)
+		return Properties{}, outOfRange("depth", FieldDepth, depth, 0, MaxWaterDepthM, "m", "depth %.6g m is beyond the deepest accepted, %g m (the deepest ocean, the Challenger Deep, is about 10.9 km); give a depth of 0–%g m", depth, MaxWaterDepthM, MaxWaterDepthM)
 	}
 	surface := StandardPressurePa
 	var notes []string
 	if alt := or(c.AltitudeM, 0); alt != 0 {
 		_, ps := StandardAtmosphere(GeopotentialHeight(alt))
 		if math.IsNaN(ps) {
-			return Properties{}, fmt.Errorf("media: surface altitude %.6g m is outside −5 km to 32 km", alt)
+			return Properties{}, outOfRange("surface altitude", FieldAltitude, alt, geometricAltitude(ussaLowH), geometricAltitude(ussaTopH), "m", "surface altitude %.6g m is outside −5 km to 32 km", alt)
 		}
 		surface = ps
 		if !brief {
@@ -279,7 +279,7 @@ func water(c Conditions, brief bool) (Properties, error) {
 			if depth > 0 {
 				lat := or(c.LatitudeDeg, DefaultLatitudeDeg)
 				if lat < -90 || lat > 90 {
-					return Properties{}, fmt.Errorf("media: latitude %.4g° is outside −90° to 90°", lat)
+					return Properties{}, outOfRange("latitude", FieldLatitude, lat, -90, 90, "°", "latitude %.4g° is outside −90° to 90°", lat)
 				}
 				p = surface + SeaPressureAtDepth(depth, lat)*1e4
 				if !brief {

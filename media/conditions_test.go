@@ -1,6 +1,7 @@
 package media
 
 import (
+	"errors"
 	"math"
 	"testing"
 )
@@ -149,5 +150,45 @@ func TestMediumFileZeroConditions(t *testing.T) {
 	p, err := f.At(Conditions{})
 	if err != nil || len(p.Warnings) != 0 {
 		t.Errorf("warnings %v, err %v", p.Warnings, err)
+	}
+}
+
+// A condition out of range is a *RangeError naming the field, its value and
+// the accepted range, with the message unchanged. The deepest accepted
+// depth is MaxWaterDepthM; latitude is bounded by definition.
+func TestRangeErrors(t *testing.T) {
+	for _, c := range []struct {
+		c        Conditions
+		field    Field
+		min, max float64
+		text     string
+	}{
+		{Conditions{Medium: KindSeawater, DepthM: -3}, FieldDepth, 0, MaxWaterDepthM,
+			"media: depth -3 m is negative; give a depth of 0 m or more below the surface"},
+		{Conditions{Medium: KindSeawater, DepthM: 100, LatitudeDeg: 91}, FieldLatitude, -90, 90,
+			"media: latitude 91° is outside −90° to 90°"},
+		{Conditions{Medium: KindAir, HumidityPercent: 120}, FieldHumidity, 0, 100,
+			"media: relative humidity 120 % is outside 0–100 %"},
+	} {
+		_, err := Lookup(c.c)
+		var re *RangeError
+		if !errors.As(err, &re) {
+			t.Errorf("%+v: %v is not a RangeError", c.c, err)
+			continue
+		}
+		if re.Field != c.field || re.Min != c.min || re.Max != c.max || err.Error() != c.text {
+			t.Errorf("got %s %v [%v, %v] %q, want %s [%v, %v] %q", re.Field, re.Value, re.Min, re.Max, err, c.field, c.min, c.max, c.text)
+		}
+		if re.Reason() != c.text[len("media: "):] {
+			t.Errorf("Reason %q", re.Reason())
+		}
+	}
+	_, err := Lookup(Conditions{Medium: "mercury"})
+	if !errors.Is(err, ErrUnknownMedium) {
+		t.Errorf("unknown medium: %v", err)
+	}
+	var r interface{ Reason() string }
+	if !errors.As(err, &r) || r.Reason() != err.Error()[len("media: "):] {
+		t.Errorf("unknown medium has no Reason: %v", err)
 	}
 }

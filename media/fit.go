@@ -74,7 +74,7 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 	sort.Slice(pts, func(i, j int) bool { return pts[i].ShearRate < pts[j].ShearRate })
 	rep.N = len(pts)
 	if rep.N < 3 {
-		return rep, fmt.Errorf("media: %d usable points; a fit needs at least 3 (5 or more to compare models)", rep.N)
+		return rep, errorf("%d usable points; a fit needs at least 3 (5 or more to compare models)", rep.N)
 	}
 	rep.MinRate, rep.MaxRate = pts[0].ShearRate, pts[rep.N-1].ShearRate
 	decades := math.Log10(rep.MaxRate / rep.MinRate)
@@ -102,7 +102,7 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 		}
 	}
 	if best < 0 {
-		return rep, fmt.Errorf("media: no model could be fitted to the data")
+		return rep, errorf("no model could be fitted to the data")
 	}
 	rep.Best = rep.Fits[best].Model.Name()
 	minStress := pts[0].Stress

@@ -97,12 +97,12 @@ func ReadMediumFile(r io.Reader) (MediumFile, error) {
 	if err := dec.Decode(&f); err != nil {
 		var se *json.SyntaxError
 		if errors.As(err, &se) {
-			return f, fmt.Errorf("media: medium file is not valid JSON (at byte %d): %v", se.Offset, err)
+			return f, errorf("medium file is not valid JSON (at byte %d): %v", se.Offset, err)
 		}
-		return f, fmt.Errorf("media: medium file: %v", err)
+		return f, errorf("medium file: %v", err)
 	}
 	if dec.More() {
-		return f, fmt.Errorf("media: medium file has text after its JSON object")
+		return f, errorf("medium file has text after its JSON object")
 	}
 	return f, f.Check()
 }
@@ -111,17 +111,17 @@ func ReadMediumFile(r io.Reader) (MediumFile, error) {
 func (f MediumFile) Check() error {
 	switch {
 	case f.Format != MediumFileFormat:
-		return fmt.Errorf("media: not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
+		return errorf("not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
 	case f.Version < 1:
-		return fmt.Errorf("media: medium file has no valid \"version\" (want %d)", MediumFileVersion)
+		return errorf("medium file has no valid \"version\" (want %d)", MediumFileVersion)
 	case f.Version > MediumFileVersionTemperature:
-		return fmt.Errorf("media: medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersionTemperature)
+		return errorf("medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersionTemperature)
 	case !(f.Density > 0) || math.IsInf(f.Density, 0):
-		return fmt.Errorf("media: medium file needs a positive \"density_kg_m3\"")
+		return errorf("medium file needs a positive \"density_kg_m3\"")
 	case !(f.ShearRateRange[0] > 0) || !(f.ShearRateRange[1] >= f.ShearRateRange[0]) || math.IsInf(f.ShearRateRange[1], 0):
-		return fmt.Errorf("media: \"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
+		return errorf("\"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
 	case f.RelaxationTime != nil && !(*f.RelaxationTime > 0):
-		return fmt.Errorf("media: \"relaxation_time_s\" must be positive")
+		return errorf("\"relaxation_time_s\" must be positive")
 	}
 	if err := f.checkTemperature(); err != nil {
 		return err
@@ -137,9 +137,9 @@ func (f MediumFile) checkTemperature() error {
 	case d == nil:
 		return nil
 	case f.Version < MediumFileVersionTemperature:
-		return fmt.Errorf("media: \"temperature_dependence\" needs \"version\": %d", MediumFileVersionTemperature)
+		return errorf("\"temperature_dependence\" needs \"version\": %d", MediumFileVersionTemperature)
 	case f.TemperatureC == nil || !finite(*f.TemperatureC):
-		return fmt.Errorf("media: \"temperature_dependence\" needs \"temperature_C\", the temperature the model was fitted at")
+		return errorf("\"temperature_dependence\" needs \"temperature_C\", the temperature the model was fitted at")
 	}
 	return d.Check()
 }

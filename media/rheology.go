@@ -1,7 +1,6 @@
 package media
 
 import (
-	"fmt"
 	"math"
 	"sort"
 )
@@ -171,25 +170,25 @@ func NewModel(name string, p map[string]float64) (Model, error) {
 	}
 	names, ok := need[name]
 	if !ok {
-		return nil, fmt.Errorf("media: unknown rheology model %q; accepted: %v", name, ModelNames)
+		return nil, errorf("unknown rheology model %q; accepted: %v", name, ModelNames)
 	}
 	for _, n := range names {
 		v, ok := p[n]
 		if !ok {
-			return nil, fmt.Errorf("media: model %s needs parameter %q", name, n)
+			return nil, errorf("model %s needs parameter %q", name, n)
 		}
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, fmt.Errorf("media: parameter %q must be a finite number", n)
+			return nil, errorf("parameter %q must be a finite number", n)
 		}
 		min := 0.0
 		if n == PYield || n == PInfinite {
 			if v < 0 {
-				return nil, fmt.Errorf("media: parameter %q must not be negative, got %g", n, v)
+				return nil, errorf("parameter %q must not be negative, got %g", n, v)
 			}
 			continue
 		}
 		if !(v > min) {
-			return nil, fmt.Errorf("media: parameter %q must be positive, got %g", n, v)
+			return nil, errorf("parameter %q must be positive, got %g", n, v)
 		}
 	}
 	extra := []string{}
@@ -204,7 +203,7 @@ func NewModel(name string, p map[string]float64) (Model, error) {
 	}
 	if len(extra) > 0 {
 		sort.Strings(extra)
-		return nil, fmt.Errorf("media: model %s has no parameter %v; it takes %v", name, extra, names)
+		return nil, errorf("model %s has no parameter %v; it takes %v", name, extra, names)
 	}
 	g := func(n string) float64 { return p[n] }
 	switch name {
@@ -228,7 +227,7 @@ func NewModel(name string, p map[string]float64) (Model, error) {
 
 func checkInf(m Model, eta0, etaInf float64) (Model, error) {
 	if etaInf > eta0 {
-		return nil, fmt.Errorf("media: infinite-shear viscosity %g Pa·s exceeds zero-shear viscosity %g Pa·s", etaInf, eta0)
+		return nil, errorf("infinite-shear viscosity %g Pa·s exceeds zero-shear viscosity %g Pa·s", etaInf, eta0)
 	}
 	return m, nil
 }

@@ -117,26 +117,26 @@ func Seawater(tC, sp, pPa float64) (Properties, error) { return seawater(tC, sp,
 // warnings' texts.
 func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 	if !finite(tC, sp, pPa) {
-		return Properties{}, fmt.Errorf("media: sea water needs finite temperature, salinity and pressure")
+		return Properties{}, errorf("sea water needs finite temperature, salinity and pressure")
 	}
 	if sp < 0 {
-		return Properties{}, fmt.Errorf("media: salinity %.4g is negative; give a practical salinity of 0 or more", sp)
+		return Properties{}, outOfRange("salinity", FieldSalinity, sp, 0, PracticalFromAbsolute(MaxSalinityGkg), "", "salinity %.4g is negative; give a practical salinity of 0 or more", sp)
 	}
 	if pPa < StandardPressurePa*0.5 {
-		return Properties{}, fmt.Errorf("media: sea-water pressure %.6g Pa is below half an atmosphere; give an absolute pressure (sea surface 101325 Pa)", pPa)
+		return Properties{}, errorf("sea-water pressure %.6g Pa is below half an atmosphere; give an absolute pressure (sea surface 101325 Pa)", pPa)
 	}
 	dbar := (pPa - StandardPressurePa) / 1e4
 	if tf := SeawaterFreezingC(sp, math.Max(dbar, 0)); tC < tf-1e-9 {
-		return Properties{}, fmt.Errorf("media: sea water of salinity %.4g at %.4g °C and %.5g dbar is below its freezing point (%.3f °C); give a temperature at or above it", sp, tC, dbar, tf)
+		return Properties{}, errorf("sea water of salinity %.4g at %.4g °C and %.5g dbar is below its freezing point (%.3f °C); give a temperature at or above it", sp, tC, dbar, tf)
 	}
 	if tb := waterBoilingC(pPa); tC > tb {
-		return Properties{}, fmt.Errorf("media: sea water at %.4g °C and %.6g Pa is above the boiling point of water (%.4g °C)", tC, pPa, tb)
+		return Properties{}, errorf("sea water at %.4g °C and %.6g Pa is above the boiling point of water (%.4g °C)", tC, pPa, tb)
 	}
 	if sr := AbsoluteFromPractical(sp); sr >= MaxSalinityGkg {
-		return Properties{}, fmt.Errorf("media: salinity %.4g (%.4g g/kg) is impossible: salt per kilogram of sea water must stay below 1000 g/kg", sp, sr)
+		return Properties{}, outOfRange("salinity", FieldSalinity, sp, 0, PracticalFromAbsolute(MaxSalinityGkg), "", "salinity %.4g (%.4g g/kg) is impossible: salt per kilogram of sea water must stay below 1000 g/kg", sp, sr)
 	}
 	if tC > SeawaterMaxTemperatureC {
-		return Properties{}, fmt.Errorf("media: sea water at %.4g °C is above %g °C, the highest accepted: EOS-80 (published for −2–40 °C) gives a density that rises with temperature beyond it; give a lower temperature", tC, SeawaterMaxTemperatureC)
+		return Properties{}, errorf("sea water at %.4g °C is above %g °C, the highest accepted: EOS-80 (published for −2–40 °C) gives a density that rises with temperature beyond it; give a lower temperature", tC, SeawaterMaxTemperatureC)
 	}
 	if err := checkWaterPressure("sea-water", pPa); err != nil {
 		return Properties{}, err

@@ -80,7 +80,7 @@ func (p *processor) process(c *chunk) result {
 			o.ignored = true
 		}
 		if err != nil {
-			rj := Reject{Line: line, Row: row, Reason: strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: "), Record: strings.Clone(rec)}
+			rj := Reject{Line: line, Row: row, Reason: inputs.Reason(err), Record: strings.Clone(rec)}
 			var fe *inputs.FieldError
 			if errors.As(err, &fe) {
 				rj.Reason = fe.Err.Error()

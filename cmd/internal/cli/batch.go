@@ -376,7 +376,11 @@ func checkMediumFlag(medium string) (string, error) {
 			return "", fmt.Errorf("--medium: cannot read %s: %v", medium, errors.Unwrap(err))
 		}
 		if _, err := inputs.LoadMediumFile(medium); err != nil {
-			return "", usagef("--medium: %s", strings.ReplaceAll(err.Error(), "media: ", ""))
+			msg := inputs.Reason(err)
+			if fe := (*inputs.MediumFileError)(nil); errors.As(err, &fe) {
+				msg = fe.Path + ": " + inputs.Reason(fe.Err)
+			}
+			return "", usagef("--medium: %s", msg)
 		}
 		abs, err := filepath.Abs(medium)
 		if err != nil {

@@ -79,13 +79,5 @@ func lookupError(err error) error {
 	return fmt.Errorf("%s", trimPkg(err))
 }
 
-// trimPkg removes the library's "media: " or "regime: " prefix for users.
-func trimPkg(err error) string {
-	s := err.Error()
-	for _, p := range []string{"media: ", "regime: "} {
-		if len(s) > len(p) && s[:len(p)] == p {
-			return s[len(p):]
-		}
-	}
-	return s
-}
+// trimPkg is a library error's message for users (inputs.Reason).
+func trimPkg(err error) string { return inputs.Reason(err) }

@@ -40,10 +40,19 @@ func LoadMediumFile(path string) (media.MediumFile, error) {
 	defer fh.Close()
 	f, err := media.ReadMediumFile(fh)
 	if err != nil {
-		return f, fmt.Errorf("%s: %w", path, err)
+		return f, &MediumFileError{Path: path, Err: err}
 	}
 	return f, nil
 }
+
+// MediumFileError is a medium file that was read but is not a valid one.
+type MediumFileError struct {
+	Path string
+	Err  error // from media.ReadMediumFile
+}
+
+func (e *MediumFileError) Error() string { return e.Path + ": " + e.Err.Error() }
+func (e *MediumFileError) Unwrap() error { return e.Err }
 
 // openRegular opens path for reading if it is a regular file of at most
 // limit bytes, and refuses it otherwise.
