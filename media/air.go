@@ -117,14 +117,14 @@ const (
 	cipmCheckedError                 = 3e-4
 )
 
-// CIPMWithinPrintedPrecision reports whether the CIPM-2007 density's error
+// cipmWithinPrintedPrecision reports whether the CIPM-2007 density's error
 // at tC (°C) and pPa stays below [PrintedPrecision]. Its stated range is
 // 15–27 °C and 600–1100 hPa with a relative uncertainty of 22 ppm (Picard et
 // al. 2008); beyond it the stated uncertainty no longer holds, but against
 // the reference equation for air it stays within 0.03 % at −20–40 °C up to
 // 5 MPa, below the printed precision. Only outside that checked region is
 // the density flagged.
-func CIPMWithinPrintedPrecision(tC, pPa float64) bool {
+func cipmWithinPrintedPrecision(tC, pPa float64) bool {
 	return cipmCheckedError < PrintedPrecision && tC >= cipmCheckedMinC && tC <= cipmCheckedMaxC && pPa <= cipmCheckedMaxPa
 }
 
@@ -203,17 +203,17 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			"viscosity: Sutherland's law with ISO 2533 constants (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), dry air",
 		)
 	}
-	if !CIPMWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
+	if !cipmWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
 		d := Detail{Quantity: "air temperature", Value: p.TemperatureC, Unit: "°C", Relation: "outside −20–40 °C where CIPM-2007 was checked"}
 		if p.PressurePa > cipmCheckedMaxPa {
 			d = Detail{Quantity: "air pressure", Value: p.PressurePa / 1e6, Unit: "MPa", Relation: "> 5 MPa where CIPM-2007 was checked"}
 		}
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
 			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa and checked to 0.03 %% at −20–40 °C up to 5 MPa; used at %.4g °C and %.5g hPa, its error may show in 3 significant digits", p.TemperatureC, p.PressurePa/100)
 		})
 	}
 	if tK < 100 || tK > 1900 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}

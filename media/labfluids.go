@@ -63,8 +63,8 @@ func ParseLabFluid(name string) (kind string, fraction float64, ok bool, err err
 	return k, v, true, nil
 }
 
-// LabFluidName returns the name [Lookup] reads for a lab fluid.
-func LabFluidName(kind string, fraction float64) string {
+// labFluidName returns the name [Lookup] reads for a lab fluid.
+func labFluidName(kind string, fraction float64) string {
 	return kind + ":" + strconv.FormatFloat(fraction, 'g', 6, 64)
 }
 
@@ -88,7 +88,7 @@ func lookupLab(c Conditions, brief bool) (p Properties, ok bool, err error) {
 		return p, true, err
 	}
 	if !math.IsNaN(c.DepthM) || !math.IsNaN(c.PressurePa) {
-		AddWarning(&p.Warnings, brief, WarnIgnored, func() string {
+		addWarning(&p.Warnings, brief, WarnIgnored, func() string {
 			return "medium: depth and pressure are ignored for a lab fluid, whose properties are taken at atmospheric pressure"
 		})
 	}
@@ -156,7 +156,7 @@ func glycerol(w, tC float64, brief bool) (Properties, error) {
 	if tC < glycerolColdC || tC > chengMaxC {
 		return Properties{}, errorf("glycerol–water at %.4g °C: outside %.0f to %.0f °C the mixture freezes or boils at atmospheric pressure, and Cheng's formula has no data", tC, glycerolColdC, chengMaxC)
 	}
-	p := blank(LabFluidName(KindGlycerol, w))
+	p := blank(labFluidName(KindGlycerol, w))
 	p.TemperatureC, p.PressurePa = tC, StandardPressurePa
 	p.DynamicViscosity = GlycerolViscosity(w, tC)
 	p.Density = GlycerolDensity(w, tC)
@@ -168,12 +168,12 @@ func glycerol(w, tC float64, brief bool) (Properties, error) {
 		return "density: Volk & Kähler 2018, Exp. Fluids 59:75 (data 15–30 °C)"
 	})
 	if tC < chengMinC {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return fmt.Sprintf("medium: %.4g °C is below Cheng's 0–100 °C; water-rich mixtures freeze below 0 °C", tC)
 		})
 	}
 	if tC < volkMinC || tC > volkMaxC {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return fmt.Sprintf("medium: %.4g °C is outside the 15–30 °C of the density data behind Volk & Kähler's model", tC)
 		})
 	}
@@ -188,27 +188,27 @@ const (
 	hotGlycerolC        = 40.0 // above this, evaporation of water changes the mixture
 )
 
-// GlycerolSensitivity returns the relative change of ν per °C at (w, tC),
+// glycerolSensitivity returns the relative change of ν per °C at (w, tC),
 // in % per °C, by a central difference over ±0.5 °C.
-func GlycerolSensitivity(w, tC float64) float64 {
+func glycerolSensitivity(w, tC float64) float64 {
 	lo, hi := GlycerolKinematicViscosity(w, tC-0.5), GlycerolKinematicViscosity(w, tC+0.5)
 	return 100 * (hi - lo) / GlycerolKinematicViscosity(w, tC)
 }
 
 func glycerolCautions(p *Properties, w, tC float64, brief bool) {
-	if s := GlycerolSensitivity(w, tC); math.Abs(s) > steepPercentPerK {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+	if s := glycerolSensitivity(w, tC); math.Abs(s) > steepPercentPerK {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			return fmt.Sprintf("medium: the viscosity of this mixture changes by %.3g %% per °C; hold the tank within ±0.2 °C and log its temperature", s)
 		})
 	}
 	if w >= hygroscopicFraction {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			drop := 100 * (1 - GlycerolKinematicViscosity(w-0.01, tC)/GlycerolKinematicViscosity(w, tC))
 			return fmt.Sprintf("medium: concentrated glycerol takes up water from the air; here one percent more water lowers ν by %.3g %%; cover the tank and check the viscosity or density before each run", drop)
 		})
 	}
 	if tC > hotGlycerolC {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			return fmt.Sprintf("medium: at %.4g °C water evaporates from the mixture and raises its glycerol fraction; cover the tank and check the mixture", tC)
 		})
 	}

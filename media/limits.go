@@ -72,7 +72,7 @@ func warnHighPressure(ws *[]Warning, brief bool, what, method string, pPa float6
 	if pPa <= IF97MaxPressurePa {
 		return
 	}
-	AddDetailed(ws, brief, WarnOutOfRange, Detail{Quantity: "pressure", Value: pPa / 1e6, Unit: "MPa", Relation: "> 100 MPa: " + method + " extrapolated"}, func() string {
+	addDetailed(ws, brief, WarnOutOfRange, Detail{Quantity: "pressure", Value: pPa / 1e6, Unit: "MPa", Relation: "> 100 MPa: " + method + " extrapolated"}, func() string {
 		return fmt.Sprintf("%s: %.4g MPa is above the 100 MPa limit of %s; extrapolated (for pure water at 0–40 °C within 0.05 %% of IAPWS-95 up to 200 MPa, measured)", what, pPa/1e6, method)
 	})
 }

@@ -32,9 +32,9 @@ type Detail struct {
 	Relation string
 }
 
-// AddDetailed is [AddWarning] with the warning's [Detail], which is kept
+// addDetailed is [addWarning] with the warning's [Detail], which is kept
 // even when brief.
-func AddDetailed(ws *[]Warning, brief bool, code string, d Detail, msg func() string) {
+func addDetailed(ws *[]Warning, brief bool, code string, d Detail, msg func() string) {
 	w := Warning{Code: code, Detail: d}
 	if !brief {
 		w.Message = msg()
@@ -51,10 +51,10 @@ const (
 	WarnIgnored     = "conditions-ignored"
 )
 
-// AddWarning appends a warning with its code to ws, and with its text from
+// addWarning appends a warning with its code to ws, and with its text from
 // msg unless brief: work that reads only the codes, such as a batch over a
 // survey, formats nothing.
-func AddWarning(ws *[]Warning, brief bool, code string, msg func() string) {
+func addWarning(ws *[]Warning, brief bool, code string, msg func() string) {
 	w := Warning{Code: code}
 	if !brief {
 		w.Message = msg()

@@ -163,27 +163,27 @@ func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 	// above 60 of salinity (0.01 % at 60, 0.07 % at 80) and above 60 °C
 	// (0.02 % at 60 °C, 0.2 % at 80 °C), per the measurements quoted below.
 	if sp > seaDensityVisibleSalinity {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "practical salinity", Value: sp, Relation: "> 60: EOS-80 density extrapolated (range 0–42)"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "practical salinity", Value: sp, Relation: "> 60: EOS-80 density extrapolated (range 0–42)"}, func() string {
 			return fmt.Sprintf("sea water: practical salinity %.4g is above the EOS-80 range 0–42; density is extrapolated (above TEOS-10 by 0.01 %% at 60, 0.07 %% at 80, 0.3 %% at 100, 0.9 %% at 120, measured at the surface)", sp)
 		})
 	}
 	if tC < -2 || tC > seaDensityVisibleC {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "outside −2–60 °C: EOS-80 density extrapolated (range −2–40 °C)"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "outside −2–60 °C: EOS-80 density extrapolated (range −2–40 °C)"}, func() string {
 			return fmt.Sprintf("sea water: %.4g °C is outside the EOS-80 range −2 to 40 °C; density is extrapolated (its pure-water part is 0.02 %% above IAPWS-95 at 60 °C, 0.2 %% at 80 °C, 1.1 %% at 100 °C, measured)", tC)
 		})
 	}
 	if dbar > 10000 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea pressure", Value: dbar, Unit: "dbar", Relation: "> 10000: EOS-80 extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea pressure", Value: dbar, Unit: "dbar", Relation: "> 10000: EOS-80 extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: sea pressure %.5g dbar is above the EOS-80 limit of 10000 dbar (and the Saunders–Fofonoff depth relation's); extrapolated (for pure water at 0–40 °C within 0.05 %% of IAPWS-95 up to 200 MPa, measured)", dbar)
 		})
 	}
 	if tC < 0 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: Sharqawy viscosity extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: Sharqawy viscosity extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: %.4g °C is below the 0 °C lower limit of the Sharqawy et al. viscosity correlation; viscosity is extrapolated", tC)
 		})
 	}
 	if p.SalinityAbsolute > 150 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "salinity", Value: p.SalinityAbsolute, Unit: "g/kg", Relation: "> 150: Sharqawy viscosity extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "salinity", Value: p.SalinityAbsolute, Unit: "g/kg", Relation: "> 150: Sharqawy viscosity extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: %.4g g/kg is above the 150 g/kg limit of the Sharqawy et al. viscosity correlation", p.SalinityAbsolute)
 		})
 	}

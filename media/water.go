@@ -174,7 +174,7 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 		}
 	}
 	if tC < 0 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: IAPWS-IF97 extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: IAPWS-IF97 extrapolated"}, func() string {
 			return fmt.Sprintf("fresh water: %.4g °C is below 0 °C; IAPWS-IF97 region 1 starts at 273.15 K and is extrapolated here", tC)
 		})
 	}
