@@ -5,16 +5,6 @@ import (
 	"fmt"
 )
 
-// Every error this package returns has a Reason method giving its message
-// for people without the "media: " prefix that Error adds:
-//
-//	var r interface{ Reason() string }
-//	if errors.As(err, &r) { fmt.Println(r.Reason()) }
-//
-// A condition outside the accepted range is a [*RangeError], which also
-// says which quantity, its value and the range; a medium name not known is
-// [ErrUnknownMedium] (test with errors.Is).
-
 // mediaError is an error of this package.
 type mediaError struct {
 	reason  string
