@@ -70,7 +70,7 @@ type Rheology interface {
 
 // Properties is a fluid at fixed conditions.
 type Properties struct {
-	Medium             string  // "air", "freshwater", "seawater" or a measured fluid's name
+	Medium             string  // "air", "freshwater", "seawater" or a measured fluid's name; for people only: physics reads the properties
 	TemperatureC       float64 // °C (ITS-90)
 	PressurePa         float64 // absolute pressure, Pa
 	Density            float64 // kg/m³
