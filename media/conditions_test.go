@@ -192,3 +192,32 @@ func TestRangeErrors(t *testing.T) {
 		t.Errorf("unknown medium has no Reason: %v", err)
 	}
 }
+
+// A brief lookup gives the same numbers and warning codes with no text:
+// no methods, no assumed list, no warning messages. Air at 50 °C is
+// outside where CIPM-2007 was checked, so it carries a warning.
+func TestBriefLookup(t *testing.T) {
+	c := Conditions{Medium: KindAir, TemperatureC: 50}
+	full, err := Lookup(c)
+	if err != nil {
+		t.Fatal(err)
+	}
+	brief, err := Options{Brief: true}.Lookup(c)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if full.Density != brief.Density || full.DynamicViscosity != brief.DynamicViscosity || !brief.Gas {
+		t.Errorf("brief %v %v, full %v %v", brief.Density, brief.DynamicViscosity, full.Density, full.DynamicViscosity)
+	}
+	if len(full.Methods) == 0 || len(full.Assumed) == 0 || len(full.Warnings) == 0 {
+		t.Fatalf("full lookup lacks methods, defaults or warnings: %+v", full)
+	}
+	if brief.Methods != nil || brief.Assumed != nil || len(brief.Warnings) != len(full.Warnings) {
+		t.Errorf("brief lookup has methods %v, assumed %v, warnings %v", brief.Methods, brief.Assumed, brief.Warnings)
+	}
+	for i, w := range brief.Warnings {
+		if w.Message != "" || w.Code != full.Warnings[i].Code {
+			t.Errorf("brief warning %d: %+v, full %+v", i, w, full.Warnings[i])
+		}
+	}
+}
