@@ -79,5 +79,6 @@ func lookupError(err error) error {
 	return fmt.Errorf("%s", trimPkg(err))
 }
 
-// trimPkg is a library error's message for users (inputs.Reason).
+// trimPkg is a library error's message for users, without its package
+// prefix.
 func trimPkg(err error) string { return inputs.Reason(err) }

@@ -7,14 +7,15 @@ import (
 	"github.com/flowregime/flowregime/media"
 )
 
-// Reason is a library error's message for people: a media error's Reason
-// (its message without the "media: " prefix) with the command line's advice
-// where the library has none to give, or a regime error without its
-// "regime: " prefix.
+// Reason is a library error's message for a user: media's and regime's
+// errors give it by their Reason method (the message without the package
+// prefix), with the command line's advice added where the library, which
+// knows no flags, gives none; any other error loses a leading "media: " or
+// "regime: ".
 func Reason(err error) string {
 	r, ok := err.(interface{ Reason() string })
 	if !ok {
-		return strings.TrimPrefix(err.Error(), "regime: ")
+		return strings.TrimPrefix(strings.TrimPrefix(err.Error(), "media: "), "regime: ")
 	}
 	s := r.Reason()
 	var re *media.RangeError
