@@ -27,6 +27,9 @@ var ussaLayers = []struct{ h, t, p, lapse float64 }{
 // height (m'), H = r₀ z / (r₀ + z) (USSA-76 eq. 18).
 func GeopotentialHeight(z float64) float64 { return ussaR0 * z / (ussaR0 + z) }
 
+// geometricAltitude is the inverse of GeopotentialHeight: z = r₀ H / (r₀ − H).
+func geometricAltitude(h float64) float64 { return ussaR0 * h / (ussaR0 - h) }
+
 // StandardAtmosphere returns the temperature (K) and pressure (Pa) of the US
 // Standard Atmosphere 1976 (= ISO 2533:1975) at geopotential height h (m'),
 // for −5 km ≤ h ≤ 32 km: the troposphere and the lower stratosphere.
@@ -114,14 +117,14 @@ const (
 	cipmCheckedError                 = 3e-4
 )
 
-// CIPMWithinPrintedPrecision reports whether the CIPM-2007 density's error
+// cipmWithinPrintedPrecision reports whether the CIPM-2007 density's error
 // at tC (°C) and pPa stays below [PrintedPrecision]. Its stated range is
 // 15–27 °C and 600–1100 hPa with a relative uncertainty of 22 ppm (Picard et
 // al. 2008); beyond it the stated uncertainty no longer holds, but against
 // the reference equation for air it stays within 0.03 % at −20–40 °C up to
 // 5 MPa, below the printed precision. Only outside that checked region is
 // the density flagged.
-func CIPMWithinPrintedPrecision(tC, pPa float64) bool {
+func cipmWithinPrintedPrecision(tC, pPa float64) bool {
 	return cipmCheckedError < PrintedPrecision && tC >= cipmCheckedMinC && tC <= cipmCheckedMaxC && pPa <= cipmCheckedMaxPa
 }
 
@@ -147,18 +150,20 @@ func Air(c AirConditions) (Properties, error) { return air(c, false) }
 // air is [Air]; brief leaves out the method notes and the warnings' texts.
 func air(c AirConditions, brief bool) (Properties, error) {
 	if !finite(c.OffsetK, c.AltitudeM, c.HumidityPercent) || math.IsInf(c.TemperatureC, 0) || math.IsInf(c.PressurePa, 0) {
-		return Properties{}, fmt.Errorf("media: air needs finite altitude, humidity and temperature offset")
+		return Properties{}, errorf("air needs finite altitude, humidity and temperature offset")
 	}
 	if c.HumidityPercent < 0 || c.HumidityPercent > 100 {
-		return Properties{}, fmt.Errorf("media: relative humidity %.4g %% is outside 0–100 %%", c.HumidityPercent)
+		return Properties{}, outOfRange("relative humidity", FieldHumidity, c.HumidityPercent, 0, 100, "%", "relative humidity %.4g %% is outside 0–100 %%", c.HumidityPercent)
 	}
 	p := blank("air")
+	p.Gas = true
 	p.AltitudeM = c.AltitudeM
 	p.GeopotentialM = GeopotentialHeight(c.AltitudeM)
 	p.HumidityPercent = c.HumidityPercent
 	stdT, stdP := StandardAtmosphere(p.GeopotentialM)
 	if math.IsNaN(stdT) {
-		return Properties{}, fmt.Errorf("media: altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range (with --pressure and --temp it is only reported)", c.AltitudeM, p.GeopotentialM)
+		return Properties{}, outOfRange("altitude", FieldAltitude, c.AltitudeM, geometricAltitude(ussaLowH), geometricAltitude(ussaTopH), "m",
+			"altitude %.6g m (geopotential %.6g m') is outside the standard atmosphere implemented here, −5 km to 32 km geopotential; give an altitude in that range", c.AltitudeM, p.GeopotentialM)
 	}
 	p.PressurePa = c.PressurePa
 	if math.IsNaN(p.PressurePa) {
@@ -168,10 +173,10 @@ func air(c AirConditions, brief bool) (Properties, error) {
 		})
 	}
 	if p.PressurePa <= 0 {
-		return Properties{}, fmt.Errorf("media: air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
+		return Properties{}, outOfRange("air pressure", FieldPressure, p.PressurePa, 0, AirMaxPressurePa, "Pa", "air pressure %.6g Pa is not positive; give an absolute pressure", p.PressurePa)
 	}
 	if p.PressurePa > AirMaxPressurePa {
-		return Properties{}, fmt.Errorf("media: air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
+		return Properties{}, outOfRange("air pressure", FieldPressure, p.PressurePa, 0, AirMaxPressurePa, "Pa", "air pressure %.4g MPa is above %g MPa, the highest accepted: beyond it the CIPM-2007 density departs from the reference equation for air (Lemmon et al. 2000) by 1–4 %% at 20 MPa and more above", p.PressurePa/1e6, AirMaxPressurePa/1e6)
 	}
 	if math.IsNaN(c.TemperatureC) {
 		p.TemperatureC = stdT - ZeroCelsiusK + c.OffsetK
@@ -183,11 +188,11 @@ func air(c AirConditions, brief bool) (Properties, error) {
 	}
 	tK := p.TemperatureC + ZeroCelsiusK
 	if tK <= 0 {
-		return Properties{}, fmt.Errorf("media: air temperature %.4g °C is below absolute zero", p.TemperatureC)
+		return Properties{}, errorf("air temperature %.4g °C is below absolute zero", p.TemperatureC)
 	}
 	h := c.HumidityPercent / 100
 	if h > 0 && SaturationVapourPressure(tK) >= p.PressurePa {
-		return Properties{}, fmt.Errorf("media: at %.4g °C the saturation vapour pressure exceeds the air pressure %.6g Pa; humid air cannot exist there", p.TemperatureC, p.PressurePa)
+		return Properties{}, errorf("at %.4g °C the saturation vapour pressure exceeds the air pressure %.6g Pa; humid air cannot exist there", p.TemperatureC, p.PressurePa)
 	}
 	p.Density = MoistAirDensity(tK, p.PressurePa, h, 0.0004)
 	p.DynamicViscosity = SutherlandViscosity(tK)
@@ -198,17 +203,17 @@ func air(c AirConditions, brief bool) (Properties, error) {
 			"viscosity: Sutherland's law with ISO 2533 constants (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), dry air",
 		)
 	}
-	if !CIPMWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
+	if !cipmWithinPrintedPrecision(p.TemperatureC, p.PressurePa) {
 		d := Detail{Quantity: "air temperature", Value: p.TemperatureC, Unit: "°C", Relation: "outside −20–40 °C where CIPM-2007 was checked"}
 		if p.PressurePa > cipmCheckedMaxPa {
 			d = Detail{Quantity: "air pressure", Value: p.PressurePa / 1e6, Unit: "MPa", Relation: "> 5 MPa where CIPM-2007 was checked"}
 		}
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, d, func() string {
 			return fmt.Sprintf("air: CIPM-2007 density is specified for 15–27 °C and 600–1100 hPa and checked to 0.03 %% at −20–40 °C up to 5 MPa; used at %.4g °C and %.5g hPa, its error may show in 3 significant digits", p.TemperatureC, p.PressurePa/100)
 		})
 	}
 	if tK < 100 || tK > 1900 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "air temperature", Value: tK, Unit: "K", Relation: "outside 100–1900 K for Sutherland's law"}, func() string {
 			return fmt.Sprintf("air: Sutherland's law is published for about 100–1900 K; used at %.4g K", tK)
 		})
 	}

@@ -73,7 +73,7 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 	sort.Slice(pts, func(i, j int) bool { return pts[i].ShearRate < pts[j].ShearRate })
 	rep.N = len(pts)
 	if rep.N < 3 {
-		return rep, fmt.Errorf("media: %d usable points; a fit needs at least 3 (5 or more to compare models)", rep.N)
+		return rep, errorf("%d usable points; a fit needs at least 3 (5 or more to compare models)", rep.N)
 	}
 	rep.MinRate, rep.MaxRate = pts[0].ShearRate, pts[rep.N-1].ShearRate
 	decades := math.Log10(rep.MaxRate / rep.MinRate)
@@ -101,7 +101,7 @@ func FitRheology(points []RheometerPoint) (FitReport, error) {
 		}
 	}
 	if best < 0 {
-		return rep, fmt.Errorf("media: no model could be fitted to the data")
+		return rep, errorf("no model could be fitted to the data")
 	}
 	rep.Best = rep.Fits[best].Model.Name()
 	minStress := pts[0].Stress
@@ -252,38 +252,41 @@ func (s paramSpec) atBound(v float64) bool {
 var nSpec = paramSpec{name: PFlowIndex, lo: 0.05, hi: 2}
 
 type modelSpec struct {
-	params []paramSpec
-	build  func(p []float64) Model
-	starts func(pts []RheometerPoint) [][]float64
+	params  []paramSpec
+	build   func(p []float64) Model
+	starts  func(pts []RheometerPoint) [][]float64
+	plateau bool // the first parameter is fitted as η₀ − η∞
 }
 
-// specs returns the models with search ranges. Time constants are kept
-// within 1e-3/γ̇_max to 1e3/γ̇_min and plateau viscosities within 1e3 times
-// the largest measured viscosity, so that a plateau model fitted to data
-// without a plateau stops at a stated bound instead of drifting to
-// meaningless numbers.
-func specs(pts []RheometerPoint) map[string]modelSpec {
-	pos := func(n string) paramSpec { return paramSpec{name: n} }
+// searchRanges are the search ranges of the plateau models' parameters.
+type searchRanges struct{ eta0, etaInf, lambda paramSpec }
+
+// pos is a positive parameter searched without bounds.
+func pos(n string) paramSpec { return paramSpec{name: n} }
+
+// spec returns the named model of the model table with search ranges. Time
+// constants are kept within 1e-3/γ̇_max to 1e3/γ̇_min and plateau
+// viscosities within 1e3 times the largest measured viscosity, so that a
+// plateau model fitted to data without a plateau stops at a stated bound
+// instead of drifting to meaningless numbers.
+func spec(name string, pts []RheometerPoint) modelSpec {
+	d, _ := modelDefOf(name)
 	lo, hi := etaRange(pts)
-	eta0 := paramSpec{name: PZero, lo: math.Log(lo * 1e-6), hi: math.Log(hi * 1e3), log: true}
-	etaInf := paramSpec{name: PInfinite, lo: math.Log(lo * 1e-9), hi: math.Log(hi * 1e3), log: true}
-	lam := paramSpec{name: PTime, lo: math.Log(1e-3 / pts[len(pts)-1].ShearRate), hi: math.Log(1e3 / pts[0].ShearRate), log: true}
-	return map[string]modelSpec{
-		ModelNewtonian: {[]paramSpec{pos(PViscosity)}, func(p []float64) Model { return Newtonian{p[0]} },
-			func(pts []RheometerPoint) [][]float64 { return [][]float64{{geoMeanViscosity(pts)}} }},
-		ModelPowerLaw: {[]paramSpec{pos(PConsistency), nSpec}, func(p []float64) Model { return PowerLaw{p[0], p[1]} },
-			func(pts []RheometerPoint) [][]float64 { k, n := logLogLine(pts); return [][]float64{{k, clampN(n)}} }},
-		ModelCross: {[]paramSpec{eta0, etaInf, lam, {name: PTransition, lo: 0.1, hi: 3}},
-			func(p []float64) Model { return Cross{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(false)},
-		ModelCarreau: {[]paramSpec{eta0, etaInf, lam, nSpec},
-			func(p []float64) Model { return Carreau{p[0] + p[1], p[1], p[2], p[3]} }, plateauStarts(true)},
-		ModelCarreauYasuda: {[]paramSpec{eta0, etaInf, lam, nSpec, {name: PTransition, lo: 0.1, hi: 10}},
-			func(p []float64) Model { return CarreauYasuda{p[0] + p[1], p[1], p[2], p[3], p[4]} }, plateauStartsA},
-		ModelBingham: {[]paramSpec{pos(PYield), pos(PPlastic)}, func(p []float64) Model { return Bingham{p[0], p[1]} }, binghamStarts},
-		ModelHerschelBulkley: {[]paramSpec{pos(PYield), pos(PConsistency), nSpec},
-			func(p []float64) Model { return HerschelBulkley{p[0], p[1], p[2]} }, hbStarts},
-		ModelCasson: {[]paramSpec{pos(PYield), pos(PPlastic)}, func(p []float64) Model { return Casson{p[0], p[1]} }, cassonStarts},
+	r := searchRanges{
+		eta0:   paramSpec{name: PZero, lo: math.Log(lo * 1e-6), hi: math.Log(hi * 1e3), log: true},
+		etaInf: paramSpec{name: PInfinite, lo: math.Log(lo * 1e-9), hi: math.Log(hi * 1e3), log: true},
+		lambda: paramSpec{name: PTime, lo: math.Log(1e-3 / pts[len(pts)-1].ShearRate), hi: math.Log(1e3 / pts[0].ShearRate), log: true},
 	}
+	sp := modelSpec{params: d.search(r), starts: d.starts, plateau: d.plateau()}
+	sp.build = func(p []float64) Model {
+		var q params
+		copy(q[:], p)
+		if sp.plateau {
+			q[0] += q[1]
+		}
+		return d.make(q)
+	}
+	return sp
 }
 
 // For Cross and Carreau models the fitted parameters are η₀ − η∞ and η∞, so
@@ -407,7 +410,7 @@ func fitOne(name string, pts []RheometerPoint, decades float64, searchN int) Mod
 
 // fitWith is fitOne with the search from each start made by local.
 func fitWith(name string, pts []RheometerPoint, decades float64, searchN int, local localSearch) ModelFit {
-	sp := specs(pts)[name]
+	sp := spec(name, pts)
 	k := len(sp.params)
 	n := len(pts)
 	var mf ModelFit
@@ -438,7 +441,7 @@ func fitWith(name string, pts []RheometerPoint, decades float64, searchN int, lo
 		theta := make([]float64, k)
 		for i, s := range sp.params {
 			v := st[i]
-			if (name == ModelCross || name == ModelCarreau || name == ModelCarreauYasuda) && i == 0 {
+			if sp.plateau && i == 0 {
 				v = math.Max(st[0]-st[1], st[0]*1e-3) // η₀ − η∞
 			}
 			theta[i] = s.theta(v)
@@ -668,18 +671,6 @@ func levenbergMarquardt(res func(theta, r []float64), theta []float64, n, maxIte
 	return x, f
 }
 
-func timeConstant(m Model) float64 {
-	switch v := m.(type) {
-	case Cross:
-		return v.Lambda
-	case Carreau:
-		return v.Lambda
-	case CarreauYasuda:
-		return v.Lambda
-	}
-	return 0
-}
-
 // standardErrors returns √diag(s²(JᵀJ)⁻¹) in the natural parameters, with the
 // Jacobian of the log residuals by central differences.
 func standardErrors(sp modelSpec, p []float64, pts []RheometerPoint, ssr float64, name string) []float64 {
@@ -687,7 +678,7 @@ func standardErrors(sp modelSpec, p []float64, pts []RheometerPoint, ssr float64
 	// Differentiate with respect to the reported parameters: for plateau
 	// models η₀ rather than η₀ − η∞.
 	rep := append([]float64{}, p...)
-	plateau := name == ModelCross || name == ModelCarreau || name == ModelCarreauYasuda
+	plateau := sp.plateau
 	if plateau {
 		rep[0] = p[0] + p[1]
 	}

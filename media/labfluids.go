@@ -45,7 +45,7 @@ func ParseLabFluid(name string) (kind string, fraction float64, ok bool, err err
 		return "", 0, false, nil
 	}
 	if !found || strings.TrimSpace(text) == "" {
-		return k, 0, true, fmt.Errorf("media: %s needs its mass fraction, e.g. %s:0.6 or %s:60%%", k, k, k)
+		return k, 0, true, errorf("%s needs its mass fraction, e.g. %s:0.6 or %s:60%%", k, k, k)
 	}
 	text = strings.TrimSpace(text)
 	scale := 1.0
@@ -54,17 +54,17 @@ func ParseLabFluid(name string) (kind string, fraction float64, ok bool, err err
 	}
 	v, perr := strconv.ParseFloat(text, 64)
 	if perr != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return k, 0, true, fmt.Errorf("media: %s mass fraction %q is not a number; give e.g. %s:0.6 or %s:60%%", k, text, k, k)
+		return k, 0, true, errorf("%s mass fraction %q is not a number; give e.g. %s:0.6 or %s:60%%", k, text, k, k)
 	}
 	v *= scale
 	if v < 0 || v > 1 {
-		return k, 0, true, fmt.Errorf("media: %s mass fraction %.4g is outside 0 to 1 (0 %% to 100 %%)", k, v)
+		return k, 0, true, errorf("%s mass fraction %.4g is outside 0 to 1 (0 %% to 100 %%)", k, v)
 	}
 	return k, v, true, nil
 }
 
-// LabFluidName returns the name [Lookup] reads for a lab fluid.
-func LabFluidName(kind string, fraction float64) string {
+// labFluidName returns the name [Lookup] reads for a lab fluid.
+func labFluidName(kind string, fraction float64) string {
 	return kind + ":" + strconv.FormatFloat(fraction, 'g', 6, 64)
 }
 
@@ -76,7 +76,7 @@ func lookupLab(c Conditions, brief bool) (p Properties, ok bool, err error) {
 		return p, ok, err
 	}
 	if !math.IsNaN(c.HumidityPercent) || !math.IsNaN(c.TemperatureOffset) || !math.IsNaN(c.SalinityPractical) || !math.IsNaN(c.AltitudeM) {
-		return p, true, fmt.Errorf("media: humidity, temperature offset, salinity and altitude do not apply to %s solutions", kind)
+		return p, true, errorf("humidity, temperature offset, salinity and altitude do not apply to %s solutions", kind)
 	}
 	t := or(c.TemperatureC, DefaultWaterTemperatureC)
 	if kind == KindGlycerol {
@@ -88,7 +88,7 @@ func lookupLab(c Conditions, brief bool) (p Properties, ok bool, err error) {
 		return p, true, err
 	}
 	if !math.IsNaN(c.DepthM) || !math.IsNaN(c.PressurePa) {
-		AddWarning(&p.Warnings, brief, WarnIgnored, func() string {
+		addWarning(&p.Warnings, brief, WarnIgnored, func() string {
 			return "medium: depth and pressure are ignored for a lab fluid, whose properties are taken at atmospheric pressure"
 		})
 	}
@@ -151,12 +151,12 @@ func Glycerol(w, tC float64) (Properties, error) { return glycerol(w, tC, false)
 
 func glycerol(w, tC float64, brief bool) (Properties, error) {
 	if !finite(w, tC) || w < 0 || w > 1 {
-		return Properties{}, fmt.Errorf("media: glycerol mass fraction must be a number from 0 to 1")
+		return Properties{}, errorf("glycerol mass fraction must be a number from 0 to 1")
 	}
 	if tC < glycerolColdC || tC > chengMaxC {
-		return Properties{}, fmt.Errorf("media: glycerol–water at %.4g °C: outside %.0f to %.0f °C the mixture freezes or boils at atmospheric pressure, and Cheng's formula has no data", tC, glycerolColdC, chengMaxC)
+		return Properties{}, errorf("glycerol–water at %.4g °C: outside %.0f to %.0f °C the mixture freezes or boils at atmospheric pressure, and Cheng's formula has no data", tC, glycerolColdC, chengMaxC)
 	}
-	p := blank(LabFluidName(KindGlycerol, w))
+	p := blank(labFluidName(KindGlycerol, w))
 	p.TemperatureC, p.PressurePa = tC, StandardPressurePa
 	p.DynamicViscosity = GlycerolViscosity(w, tC)
 	p.Density = GlycerolDensity(w, tC)
@@ -168,12 +168,12 @@ func glycerol(w, tC float64, brief bool) (Properties, error) {
 		return "density: Volk & Kähler 2018, Exp. Fluids 59:75 (data 15–30 °C)"
 	})
 	if tC < chengMinC {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return fmt.Sprintf("medium: %.4g °C is below Cheng's 0–100 °C; water-rich mixtures freeze below 0 °C", tC)
 		})
 	}
 	if tC < volkMinC || tC > volkMaxC {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return fmt.Sprintf("medium: %.4g °C is outside the 15–30 °C of the density data behind Volk & Kähler's model", tC)
 		})
 	}
@@ -188,27 +188,27 @@ const (
 	hotGlycerolC        = 40.0 // above this, evaporation of water changes the mixture
 )
 
-// GlycerolSensitivity returns the relative change of ν per °C at (w, tC),
+// glycerolSensitivity returns the relative change of ν per °C at (w, tC),
 // in % per °C, by a central difference over ±0.5 °C.
-func GlycerolSensitivity(w, tC float64) float64 {
+func glycerolSensitivity(w, tC float64) float64 {
 	lo, hi := GlycerolKinematicViscosity(w, tC-0.5), GlycerolKinematicViscosity(w, tC+0.5)
 	return 100 * (hi - lo) / GlycerolKinematicViscosity(w, tC)
 }
 
 func glycerolCautions(p *Properties, w, tC float64, brief bool) {
-	if s := GlycerolSensitivity(w, tC); math.Abs(s) > steepPercentPerK {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+	if s := glycerolSensitivity(w, tC); math.Abs(s) > steepPercentPerK {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			return fmt.Sprintf("medium: the viscosity of this mixture changes by %.3g %% per °C; hold the tank within ±0.2 °C and log its temperature", s)
 		})
 	}
 	if w >= hygroscopicFraction {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			drop := 100 * (1 - GlycerolKinematicViscosity(w-0.01, tC)/GlycerolKinematicViscosity(w, tC))
 			return fmt.Sprintf("medium: concentrated glycerol takes up water from the air; here one percent more water lowers ν by %.3g %%; cover the tank and check the viscosity or density before each run", drop)
 		})
 	}
 	if tC > hotGlycerolC {
-		AddWarning(&p.Warnings, brief, WarnLabCaution, func() string {
+		addWarning(&p.Warnings, brief, WarnLabCaution, func() string {
 			return fmt.Sprintf("medium: at %.4g °C water evaporates from the mixture and raises its glycerol fraction; cover the tank and check the mixture", tC)
 		})
 	}
@@ -240,12 +240,15 @@ type OutOfReachError struct {
 	TC        float64
 }
 
-func (e *OutOfReachError) Error() string {
+func (e *OutOfReachError) Error() string { return "media: " + e.Reason() }
+
+// Reason is the message without the "media: " prefix.
+func (e *OutOfReachError) Reason() string {
 	at := ""
 	if !math.IsNaN(e.TC) {
 		at = fmt.Sprintf(" at %.4g °C", e.TC)
 	}
-	return fmt.Sprintf("media: %s%s spans kinematic viscosities %.4g to %.4g m²/s; %.4g m²/s is outside", e.Fluid, at, e.Low, e.High, e.Want)
+	return fmt.Sprintf("%s%s spans kinematic viscosities %.4g to %.4g m²/s; %.4g m²/s is outside", e.Fluid, at, e.Low, e.High, e.Want)
 }
 
 // GlycerolFractionFor returns the glycerol mass fraction whose mixture has
@@ -254,10 +257,10 @@ func (e *OutOfReachError) Error() string {
 // *OutOfReachError when nu lies outside water's to pure glycerol's.
 func GlycerolFractionFor(nu, tC float64) (float64, error) {
 	if !finite(nu, tC) || nu <= 0 {
-		return 0, fmt.Errorf("media: the wanted kinematic viscosity must be a positive number")
+		return 0, errorf("the wanted kinematic viscosity must be a positive number")
 	}
 	if tC < glycerolColdC || tC > chengMaxC {
-		return 0, fmt.Errorf("media: glycerol–water at %.4g °C is outside %.0f to %.0f °C", tC, glycerolColdC, chengMaxC)
+		return 0, errorf("glycerol–water at %.4g °C is outside %.0f to %.0f °C", tC, glycerolColdC, chengMaxC)
 	}
 	lo, hi := GlycerolKinematicViscosity(0, tC), GlycerolKinematicViscosity(1, tC)
 	if nu < lo || nu > hi {
@@ -272,7 +275,7 @@ func GlycerolFractionFor(nu, tC float64) (float64, error) {
 // returns an *OutOfReachError when nu is outside the mixture's range there.
 func GlycerolTemperatureFor(w, nu float64) (float64, error) {
 	if !finite(w, nu) || w < 0 || w > 1 || nu <= 0 {
-		return 0, fmt.Errorf("media: give a mass fraction from 0 to 1 and a positive kinematic viscosity")
+		return 0, errorf("give a mass fraction from 0 to 1 and a positive kinematic viscosity")
 	}
 	cold, hot := GlycerolKinematicViscosity(w, chengMinC), GlycerolKinematicViscosity(w, chengMaxC)
 	if nu > cold || nu < hot {

@@ -61,7 +61,7 @@ const (
 // checkWaterPressure refuses a water pressure beyond [WaterMaxPressurePa].
 func checkWaterPressure(what string, pPa float64) error {
 	if pPa > WaterMaxPressurePa {
-		return fmt.Errorf("media: %s pressure %.4g MPa is above %g MPa, the highest accepted: IAPWS-IF97 region 1 and EOS-80 end at 100 MPa and beyond 200 MPa their extrapolation departs from IAPWS-95 (by 700 MPa the density is negative)", what, pPa/1e6, WaterMaxPressurePa/1e6)
+		return outOfRange(what+" pressure", FieldPressure, pPa, 0, WaterMaxPressurePa, "Pa", "%s pressure %.4g MPa is above %g MPa, the highest accepted: IAPWS-IF97 region 1 and EOS-80 end at 100 MPa and beyond 200 MPa their extrapolation departs from IAPWS-95 (by 700 MPa the density is negative)", what, pPa/1e6, WaterMaxPressurePa/1e6)
 	}
 	return nil
 }
@@ -72,7 +72,7 @@ func warnHighPressure(ws *[]Warning, brief bool, what, method string, pPa float6
 	if pPa <= IF97MaxPressurePa {
 		return
 	}
-	AddDetailed(ws, brief, WarnOutOfRange, Detail{Quantity: "pressure", Value: pPa / 1e6, Unit: "MPa", Relation: "> 100 MPa: " + method + " extrapolated"}, func() string {
+	addDetailed(ws, brief, WarnOutOfRange, Detail{Quantity: "pressure", Value: pPa / 1e6, Unit: "MPa", Relation: "> 100 MPa: " + method + " extrapolated"}, func() string {
 		return fmt.Sprintf("%s: %.4g MPa is above the 100 MPa limit of %s; extrapolated (for pure water at 0–40 °C within 0.05 %% of IAPWS-95 up to 200 MPa, measured)", what, pPa/1e6, method)
 	})
 }
@@ -91,7 +91,7 @@ func checkPhysical(p *Properties) error {
 			if !math.IsNaN(p.SalinityPractical) {
 				at += fmt.Sprintf(", practical salinity %.4g", p.SalinityPractical)
 			}
-			return fmt.Errorf("media: %s: the %s comes out as %.4g, which is not physical; the conditions are beyond its methods' range", at, q.name, q.v)
+			return errorf("%s: the %s comes out as %.4g, which is not physical; the conditions are beyond its methods' range", at, q.name, q.v)
 		}
 	}
 	return nil

@@ -21,7 +21,7 @@ func BenchmarkLookup(b *testing.B) {
 		for _, l := range []struct {
 			name string
 			f    func(Conditions) (Properties, error)
-		}{{"", Lookup}, {"/brief", LookupBrief}} {
+		}{{"", Lookup}, {"/brief", Options{Brief: true}.Lookup}} {
 			b.Run(c.name+l.name, func(b *testing.B) {
 				for i := range b.N {
 					cc := c.c

@@ -6,11 +6,8 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"io/fs"
 	"math"
-	"os"
 	"strings"
-	"syscall"
 )
 
 // Medium file schema, version 1. A medium file describes a measured fluid:
@@ -28,8 +25,15 @@ import (
 //	  "fit": {"points": 20, "r_squared": 0.999, "rms_relative_error": 0.02,
 //	          "aicc": -150, "residuals": "log stress"},   // optional
 //	  "class": "yield-stress",               // optional
-//	  "relaxation_time_s": 0.5               // optional, for viscoelastic fluids
+//	  "relaxation_time_s": 0.5,              // optional, for viscoelastic fluids
+//	  "gas": false                           // optional, default false
 //	}
+//
+// "gas": true says the fluid is a gas ([Properties.Gas]): organisms in it
+// fly. It is what switches the physics, never "name". A file does not carry
+// a pressure, so slip correction of settling particles is not applied to
+// it. Readers from before this key refuse a file that sets it (unknown
+// fields are an error), rather than treating a gas as a liquid.
 //
 // Version 2 adds one optional field, the change of viscosity with
 // temperature (see [TemperatureDependence]); it needs "temperature_C":
@@ -62,6 +66,7 @@ type MediumFile struct {
 	Fit            *FitQuality        `json:"fit,omitempty"`
 	Class          string             `json:"class,omitempty"`
 	RelaxationTime *float64           `json:"relaxation_time_s,omitempty"`
+	Gas            bool               `json:"gas,omitempty"`
 
 	TemperatureDependence *TemperatureDependence `json:"temperature_dependence,omitempty"`
 }
@@ -75,10 +80,15 @@ type FitQuality struct {
 	Residuals string  `json:"residuals"`
 }
 
-// ReadMediumFile decodes and checks a medium file.
+// MaxMediumFileBytes is the largest medium file read; real ones are well
+// under 2 kB.
+const MaxMediumFileBytes = 1 << 20
+
+// ReadMediumFile decodes and checks a medium file of at most
+// [MaxMediumFileBytes].
 func ReadMediumFile(r io.Reader) (MediumFile, error) {
 	var f MediumFile
-	b, err := io.ReadAll(io.LimitReader(r, 1<<20))
+	b, err := io.ReadAll(io.LimitReader(r, MaxMediumFileBytes))
 	if err != nil {
 		return f, err
 	}
@@ -87,12 +97,12 @@ func ReadMediumFile(r io.Reader) (MediumFile, error) {
 	if err := dec.Decode(&f); err != nil {
 		var se *json.SyntaxError
 		if errors.As(err, &se) {
-			return f, fmt.Errorf("media: medium file is not valid JSON (at byte %d): %v", se.Offset, err)
+			return f, errorf("medium file is not valid JSON (at byte %d): %v", se.Offset, err)
 		}
-		return f, fmt.Errorf("media: medium file: %v", err)
+		return f, errorf("medium file: %v", err)
 	}
 	if dec.More() {
-		return f, fmt.Errorf("media: medium file has text after its JSON object")
+		return f, errorf("medium file has text after its JSON object")
 	}
 	return f, f.Check()
 }
@@ -101,17 +111,17 @@ func ReadMediumFile(r io.Reader) (MediumFile, error) {
 func (f MediumFile) Check() error {
 	switch {
 	case f.Format != MediumFileFormat:
-		return fmt.Errorf("media: not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
+		return errorf("not a medium file: \"format\" is %q, want %q", f.Format, MediumFileFormat)
 	case f.Version < 1:
-		return fmt.Errorf("media: medium file has no valid \"version\" (want %d)", MediumFileVersion)
+		return errorf("medium file has no valid \"version\" (want %d)", MediumFileVersion)
 	case f.Version > MediumFileVersionTemperature:
-		return fmt.Errorf("media: medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersionTemperature)
+		return errorf("medium file version %d is newer than this flowregime reads (%d); upgrade flowregime", f.Version, MediumFileVersionTemperature)
 	case !(f.Density > 0) || math.IsInf(f.Density, 0):
-		return fmt.Errorf("media: medium file needs a positive \"density_kg_m3\"")
+		return errorf("medium file needs a positive \"density_kg_m3\"")
 	case !(f.ShearRateRange[0] > 0) || !(f.ShearRateRange[1] >= f.ShearRateRange[0]) || math.IsInf(f.ShearRateRange[1], 0):
-		return fmt.Errorf("media: \"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
+		return errorf("\"shear_rate_range_1_s\" must be [min, max] with 0 < min ≤ max")
 	case f.RelaxationTime != nil && !(*f.RelaxationTime > 0):
-		return fmt.Errorf("media: \"relaxation_time_s\" must be positive")
+		return errorf("\"relaxation_time_s\" must be positive")
 	}
 	if err := f.checkTemperature(); err != nil {
 		return err
@@ -120,10 +130,6 @@ func (f MediumFile) Check() error {
 	return err
 }
 
-// MaxMediumFileBytes is the largest medium file read; real ones are well
-// under 2 kB.
-const MaxMediumFileBytes = 1 << 20
-
 // checkTemperature validates the optional temperature dependence.
 func (f MediumFile) checkTemperature() error {
 	d := f.TemperatureDependence
@@ -131,65 +137,11 @@ func (f MediumFile) checkTemperature() error {
 	case d == nil:
 		return nil
 	case f.Version < MediumFileVersionTemperature:
-		return fmt.Errorf("media: \"temperature_dependence\" needs \"version\": %d", MediumFileVersionTemperature)
+		return errorf("\"temperature_dependence\" needs \"version\": %d", MediumFileVersionTemperature)
 	case f.TemperatureC == nil || !finite(*f.TemperatureC):
-		return fmt.Errorf("media: \"temperature_dependence\" needs \"temperature_C\", the temperature the model was fitted at")
+		return errorf("\"temperature_dependence\" needs \"temperature_C\", the temperature the model was fitted at")
 	}
 	return d.Check()
-}
-
-// LoadMediumFile reads and checks the medium file at path. Only a regular
-// file of at most MaxMediumFileBytes is read: it is opened without waiting
-// (a FIFO would otherwise block until a writer comes) and checked before
-// any byte is read.
-func LoadMediumFile(path string) (MediumFile, error) {
-	fh, err := openRegular(path, MaxMediumFileBytes)
-	if err != nil {
-		return MediumFile{}, fmt.Errorf("media: cannot read medium file: %v", err)
-	}
-	defer fh.Close()
-	f, err := ReadMediumFile(fh)
-	if err != nil {
-		return f, fmt.Errorf("%s: %w", path, err)
-	}
-	return f, nil
-}
-
-// openRegular opens path for reading if it is a regular file of at most
-// limit bytes, and refuses it otherwise.
-func openRegular(path string, limit int64) (*os.File, error) {
-	fh, err := os.OpenFile(path, os.O_RDONLY|syscall.O_NONBLOCK, 0)
-	if err != nil {
-		return nil, err
-	}
-	info, err := fh.Stat()
-	switch {
-	case err != nil:
-	case !info.Mode().IsRegular():
-		err = fmt.Errorf("%s is %s, not a regular file", path, fileKind(info.Mode()))
-	case info.Size() > limit:
-		err = fmt.Errorf("%s has %d bytes; a medium file has at most %d", path, info.Size(), limit)
-	}
-	if err != nil {
-		fh.Close()
-		return nil, err
-	}
-	return fh, nil
-}
-
-// fileKind names the kind of a file that is not a regular one.
-func fileKind(m fs.FileMode) string {
-	switch {
-	case m.IsDir():
-		return "a folder"
-	case m&fs.ModeNamedPipe != 0:
-		return "a named pipe (FIFO)"
-	case m&fs.ModeDevice != 0:
-		return "a device"
-	case m&fs.ModeSocket != 0:
-		return "a socket"
-	}
-	return "a special file"
 }
 
 // MeasuredRheology is a fitted model with the range it was measured over.
@@ -216,6 +168,7 @@ func (f MediumFile) Properties() (Properties, error) {
 		p.TemperatureC = *f.TemperatureC
 	}
 	p.Density = f.Density
+	p.Gas = f.Gas
 	ref := math.Sqrt(f.ShearRateRange[0] * f.ShearRateRange[1])
 	p.DynamicViscosity = m.ApparentViscosity(ref)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
@@ -241,6 +194,7 @@ func (f MediumFile) Properties() (Properties, error) {
 // says so when it does not); the other conditions cannot change it, and a
 // warning says so when c sets any of them.
 func (f MediumFile) At(c Conditions) (Properties, error) {
+	c = c.stated()
 	p, err := f.PropertiesAt(c.TemperatureC)
 	if err != nil {
 		return p, err
@@ -263,6 +217,3 @@ func (p Properties) ExtrapolationWarning(shearRate float64) *Warning {
 	}
 	return &Warning{Code: WarnExtrapolate, Message: fmt.Sprintf("medium: the organism's shear rate %.3g 1/s is outside the measured %.3g–%.3g 1/s; the %s model is extrapolated", shearRate, mr.MinRate, mr.MaxRate, mr.Name())}
 }
-
-// IsMediumFile reports whether a medium name is a path to a medium file.
-func IsMediumFile(name string) bool { return strings.HasSuffix(strings.ToLower(name), ".json") }

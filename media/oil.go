@@ -33,20 +33,20 @@ type Oil struct {
 // liquids, Part II, Phil. Mag. 17, 698–732: μ = A exp(b/T).
 func FitOil(name string, density float64, pts []ViscosityPoint) (Oil, error) {
 	if len(pts) < 2 {
-		return Oil{}, fmt.Errorf("media: an oil needs two or more measured (temperature, viscosity) points, got %d", len(pts))
+		return Oil{}, errorf("an oil needs two or more measured (temperature, viscosity) points, got %d", len(pts))
 	}
 	if !finite(density) || density <= 0 {
-		return Oil{}, fmt.Errorf("media: the oil's density must be a positive number")
+		return Oil{}, errorf("the oil's density must be a positive number")
 	}
 	ps := append([]ViscosityPoint(nil), pts...)
 	sort.Slice(ps, func(i, j int) bool { return ps[i].TemperatureC < ps[j].TemperatureC })
 	var sx, sy, sxx, sxy float64
 	for i, p := range ps {
 		if !finite(p.TemperatureC, p.Viscosity) || p.Viscosity <= 0 || p.TemperatureC <= -ZeroCelsiusK {
-			return Oil{}, fmt.Errorf("media: oil point %.4g °C, %.4g Pa·s: give a temperature above absolute zero and a positive viscosity", p.TemperatureC, p.Viscosity)
+			return Oil{}, errorf("oil point %.4g °C, %.4g Pa·s: give a temperature above absolute zero and a positive viscosity", p.TemperatureC, p.Viscosity)
 		}
 		if i > 0 && p.TemperatureC == ps[i-1].TemperatureC {
-			return Oil{}, fmt.Errorf("media: two oil points at %.4g °C; give points at different temperatures", p.TemperatureC)
+			return Oil{}, errorf("two oil points at %.4g °C; give points at different temperatures", p.TemperatureC)
 		}
 		x, y := 1/(p.TemperatureC+ZeroCelsiusK), math.Log(p.Viscosity)
 		sx, sy, sxx, sxy = sx+x, sy+y, sxx+x*x, sxy+x*y
@@ -55,7 +55,7 @@ func FitOil(name string, density float64, pts []ViscosityPoint) (Oil, error) {
 	b := (n*sxy - sx*sy) / (n*sxx - sx*sx)
 	a := (sy - b*sx) / n
 	if !(b > 0) {
-		return Oil{}, fmt.Errorf("media: the oil's viscosity does not fall as its temperature rises; check the points")
+		return Oil{}, errorf("the oil's viscosity does not fall as its temperature rises; check the points")
 	}
 	o := Oil{Name: name, Density: density, A: a, B: b, MinC: ps[0].TemperatureC, MaxC: ps[len(ps)-1].TemperatureC}
 	for _, p := range ps {
@@ -80,7 +80,7 @@ const oilReachC = 10.0
 // range, an error more than 10 °C beyond it.
 func (o Oil) Properties(tC float64) (Properties, error) {
 	if !finite(tC) || tC < o.MinC-oilReachC || tC > o.MaxC+oilReachC {
-		return Properties{}, fmt.Errorf("media: %s was measured at %.4g–%.4g °C; %.4g °C is more than %.0f °C beyond, measure it there", o.Name, o.MinC, o.MaxC, tC, oilReachC)
+		return Properties{}, errorf("%s was measured at %.4g–%.4g °C; %.4g °C is more than %.0f °C beyond, measure it there", o.Name, o.MinC, o.MaxC, tC, oilReachC)
 	}
 	p := blank(o.Name)
 	p.TemperatureC, p.PressurePa = tC, StandardPressurePa
@@ -100,7 +100,7 @@ func (o Oil) Properties(tC float64) (Properties, error) {
 // *OutOfReachError when that lies more than 10 °C beyond the measured range.
 func (o Oil) TemperatureFor(nu float64) (float64, error) {
 	if !finite(nu) || nu <= 0 {
-		return 0, fmt.Errorf("media: the wanted kinematic viscosity must be a positive number")
+		return 0, errorf("the wanted kinematic viscosity must be a positive number")
 	}
 	tK := o.B / (math.Log(nu*o.Density) - o.A)
 	lo, hi := o.MinC-oilReachC, o.MaxC+oilReachC

@@ -32,9 +32,9 @@ type Detail struct {
 	Relation string
 }
 
-// AddDetailed is [AddWarning] with the warning's [Detail], which is kept
+// addDetailed is [addWarning] with the warning's [Detail], which is kept
 // even when brief.
-func AddDetailed(ws *[]Warning, brief bool, code string, d Detail, msg func() string) {
+func addDetailed(ws *[]Warning, brief bool, code string, d Detail, msg func() string) {
 	w := Warning{Code: code, Detail: d}
 	if !brief {
 		w.Message = msg()
@@ -51,10 +51,10 @@ const (
 	WarnIgnored     = "conditions-ignored"
 )
 
-// AddWarning appends a warning with its code to ws, and with its text from
+// addWarning appends a warning with its code to ws, and with its text from
 // msg unless brief: work that reads only the codes, such as a batch over a
 // survey, formats nothing.
-func AddWarning(ws *[]Warning, brief bool, code string, msg func() string) {
+func addWarning(ws *[]Warning, brief bool, code string, msg func() string) {
 	w := Warning{Code: code}
 	if !brief {
 		w.Message = msg()
@@ -70,7 +70,7 @@ type Rheology interface {
 
 // Properties is a fluid at fixed conditions.
 type Properties struct {
-	Medium             string  // "air", "freshwater", "seawater" or a measured fluid's name
+	Medium             string  // "air", "freshwater", "seawater" or a measured fluid's name; for people only: physics reads the properties
 	TemperatureC       float64 // °C (ITS-90)
 	PressurePa         float64 // absolute pressure, Pa
 	Density            float64 // kg/m³
@@ -86,10 +86,18 @@ type Properties struct {
 	GeopotentialM     float64 // geopotential height, m'
 	HumidityPercent   float64 // relative humidity, %
 
+	// Gas is true for a gas (the built-in air, or a medium file that says
+	// "gas": true): organisms in it fly, so flight power and the flyers'
+	// Strouhal screen apply, and settling particles slip (Cunningham) when
+	// the temperature and pressure are known. Physics reads this, never
+	// the name.
+	Gas bool
+
 	Rheology Rheology // nil for a Newtonian fluid
 
 	Methods  []string
 	Warnings []Warning
+	Assumed  []Default // conditions Lookup filled in because they were not given
 }
 
 // ApparentViscosity returns the viscosity in Pa·s at the given shear rate

@@ -1,7 +1,6 @@
 package media
 
 import (
-	"fmt"
 	"math"
 	"sort"
 )
@@ -35,8 +34,8 @@ const (
 	ModelCasson          = "casson"
 )
 
-// ModelNames lists every model in a fixed order.
-var ModelNames = []string{ModelNewtonian, ModelPowerLaw, ModelCross, ModelCarreau, ModelCarreauYasuda, ModelBingham, ModelHerschelBulkley, ModelCasson}
+// ModelNames lists every model in a fixed order, that of the model table.
+var ModelNames = modelNames()
 
 // Parameter names.
 const (
@@ -147,15 +146,128 @@ func (m Casson) Stress(g float64) float64 {
 func (m Casson) ApparentViscosity(g float64) float64 { return m.Stress(g) / g }
 func (m Casson) Params() []Param                     { return []Param{{PYield, m.TauY}, {PPlastic, m.EtaC}} }
 
+// A model is one entry of modelDefs, the one place that lists the models:
+// its name, its parameters (names with units, in the order make takes
+// them), its constructor, the parameters that are its yield stress or time
+// constant, and how FitRheology searches for it (fit.go). A model with an
+// infinite-shear viscosity (PInfinite) is checked to have η∞ ≤ η₀ and is
+// fitted in η₀ − η∞.
+type modelDef struct {
+	name   string
+	params []string
+	make   func(p params) Model
+	yield  func(Model) (float64, bool) // nil: no yield stress
+	lambda func(Model) (float64, bool) // nil: no time constant
+	search func(r searchRanges) []paramSpec
+	starts func(pts []RheometerPoint) [][]float64
+}
+
+// params holds a model's parameters in its params order.
+type params [5]float64
+
+// field returns a getter of a value of models of type T.
+func field[T Model](get func(T) float64) func(Model) (float64, bool) {
+	return func(m Model) (float64, bool) {
+		v, ok := m.(T)
+		if !ok {
+			return 0, false
+		}
+		return get(v), true
+	}
+}
+
+var modelDefs = []modelDef{
+	{name: ModelNewtonian, params: []string{PViscosity},
+		make:   func(p params) Model { return Newtonian{p[0]} },
+		search: func(r searchRanges) []paramSpec { return []paramSpec{pos(PViscosity)} },
+		starts: func(pts []RheometerPoint) [][]float64 { return [][]float64{{geoMeanViscosity(pts)}} }},
+	{name: ModelPowerLaw, params: []string{PConsistency, PFlowIndex},
+		make:   func(p params) Model { return PowerLaw{p[0], p[1]} },
+		search: func(r searchRanges) []paramSpec { return []paramSpec{pos(PConsistency), nSpec} },
+		starts: func(pts []RheometerPoint) [][]float64 { k, n := logLogLine(pts); return [][]float64{{k, clampN(n)}} }},
+	{name: ModelCross, params: []string{PZero, PInfinite, PTime, PTransition},
+		make:   func(p params) Model { return Cross{p[0], p[1], p[2], p[3]} },
+		lambda: field(func(m Cross) float64 { return m.Lambda }),
+		search: func(r searchRanges) []paramSpec {
+			return []paramSpec{r.eta0, r.etaInf, r.lambda, {name: PTransition, lo: 0.1, hi: 3}}
+		},
+		starts: plateauStarts(false)},
+	{name: ModelCarreau, params: []string{PZero, PInfinite, PTime, PFlowIndex},
+		make:   func(p params) Model { return Carreau{p[0], p[1], p[2], p[3]} },
+		lambda: field(func(m Carreau) float64 { return m.Lambda }),
+		search: func(r searchRanges) []paramSpec { return []paramSpec{r.eta0, r.etaInf, r.lambda, nSpec} },
+		starts: plateauStarts(true)},
+	{name: ModelCarreauYasuda, params: []string{PZero, PInfinite, PTime, PFlowIndex, PTransition},
+		make:   func(p params) Model { return CarreauYasuda{p[0], p[1], p[2], p[3], p[4]} },
+		lambda: field(func(m CarreauYasuda) float64 { return m.Lambda }),
+		search: func(r searchRanges) []paramSpec {
+			return []paramSpec{r.eta0, r.etaInf, r.lambda, nSpec, {name: PTransition, lo: 0.1, hi: 10}}
+		},
+		starts: plateauStartsA},
+	{name: ModelBingham, params: []string{PYield, PPlastic},
+		make:   func(p params) Model { return Bingham{p[0], p[1]} },
+		yield:  field(func(m Bingham) float64 { return m.TauY }),
+		search: func(r searchRanges) []paramSpec { return []paramSpec{pos(PYield), pos(PPlastic)} },
+		starts: binghamStarts},
+	{name: ModelHerschelBulkley, params: []string{PYield, PConsistency, PFlowIndex},
+		make:   func(p params) Model { return HerschelBulkley{p[0], p[1], p[2]} },
+		yield:  field(func(m HerschelBulkley) float64 { return m.TauY }),
+		search: func(r searchRanges) []paramSpec { return []paramSpec{pos(PYield), pos(PConsistency), nSpec} },
+		starts: hbStarts},
+	{name: ModelCasson, params: []string{PYield, PPlastic},
+		make:   func(p params) Model { return Casson{p[0], p[1]} },
+		yield:  field(func(m Casson) float64 { return m.TauY }),
+		search: func(r searchRanges) []paramSpec { return []paramSpec{pos(PYield), pos(PPlastic)} },
+		starts: cassonStarts},
+}
+
+func modelNames() []string {
+	names := make([]string, len(modelDefs))
+	for i, d := range modelDefs {
+		names[i] = d.name
+	}
+	return names
+}
+
+// modelDefOf returns the table entry of the named model.
+func modelDefOf(name string) (*modelDef, bool) {
+	for i := range modelDefs {
+		if modelDefs[i].name == name {
+			return &modelDefs[i], true
+		}
+	}
+	return nil, false
+}
+
+// plateau reports whether the model has an infinite-shear viscosity, so
+// that η∞ ≤ η₀ is required and fits work in η₀ − η∞.
+func (d *modelDef) plateau() bool {
+	for _, n := range d.params {
+		if n == PInfinite {
+			return true
+		}
+	}
+	return false
+}
+
 // YieldStress returns the model's yield stress (Pa), 0 for models without one.
 func YieldStress(m Model) float64 {
-	switch v := m.(type) {
-	case Bingham:
-		return v.TauY
-	case HerschelBulkley:
-		return v.TauY
-	case Casson:
-		return v.TauY
+	return valueOf(m, func(d *modelDef) func(Model) (float64, bool) { return d.yield })
+}
+
+// timeConstant returns the model's time constant (s), 0 for models without one.
+func timeConstant(m Model) float64 {
+	return valueOf(m, func(d *modelDef) func(Model) (float64, bool) { return d.lambda })
+}
+
+// valueOf returns the value that the table's getter gives for m, or 0.
+func valueOf(m Model, getter func(d *modelDef) func(Model) (float64, bool)) float64 {
+	for i := range modelDefs {
+		if g := getter(&modelDefs[i]); g != nil {
+			if v, ok := g(m); ok {
+				return v
+			}
+		}
 	}
 	return 0
 }
@@ -163,33 +275,29 @@ func YieldStress(m Model) float64 {
 // NewModel builds the named model from parameters keyed by their names,
 // checking that every parameter is present, finite and physical.
 func NewModel(name string, p map[string]float64) (Model, error) {
-	need := map[string][]string{
-		ModelNewtonian: {PViscosity}, ModelPowerLaw: {PConsistency, PFlowIndex},
-		ModelCross: {PZero, PInfinite, PTime, PTransition}, ModelCarreau: {PZero, PInfinite, PTime, PFlowIndex},
-		ModelCarreauYasuda: {PZero, PInfinite, PTime, PFlowIndex, PTransition}, ModelBingham: {PYield, PPlastic},
-		ModelHerschelBulkley: {PYield, PConsistency, PFlowIndex}, ModelCasson: {PYield, PPlastic},
-	}
-	names, ok := need[name]
+	d, ok := modelDefOf(name)
 	if !ok {
-		return nil, fmt.Errorf("media: unknown rheology model %q; accepted: %v", name, ModelNames)
+		return nil, errorf("unknown rheology model %q; accepted: %v", name, ModelNames)
 	}
-	for _, n := range names {
+	names := d.params
+	var vals params
+	for i, n := range names {
 		v, ok := p[n]
 		if !ok {
-			return nil, fmt.Errorf("media: model %s needs parameter %q", name, n)
+			return nil, errorf("model %s needs parameter %q", name, n)
 		}
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, fmt.Errorf("media: parameter %q must be a finite number", n)
+			return nil, errorf("parameter %q must be a finite number", n)
 		}
-		min := 0.0
+		vals[i] = v
 		if n == PYield || n == PInfinite {
 			if v < 0 {
-				return nil, fmt.Errorf("media: parameter %q must not be negative, got %g", n, v)
+				return nil, errorf("parameter %q must not be negative, got %g", n, v)
 			}
 			continue
 		}
-		if !(v > min) {
-			return nil, fmt.Errorf("media: parameter %q must be positive, got %g", n, v)
+		if !(v > 0) {
+			return nil, errorf("parameter %q must be positive, got %g", n, v)
 		}
 	}
 	extra := []string{}
@@ -204,31 +312,10 @@ func NewModel(name string, p map[string]float64) (Model, error) {
 	}
 	if len(extra) > 0 {
 		sort.Strings(extra)
-		return nil, fmt.Errorf("media: model %s has no parameter %v; it takes %v", name, extra, names)
+		return nil, errorf("model %s has no parameter %v; it takes %v", name, extra, names)
 	}
-	g := func(n string) float64 { return p[n] }
-	switch name {
-	case ModelNewtonian:
-		return Newtonian{g(PViscosity)}, nil
-	case ModelPowerLaw:
-		return PowerLaw{g(PConsistency), g(PFlowIndex)}, nil
-	case ModelCross:
-		return checkInf(Cross{g(PZero), g(PInfinite), g(PTime), g(PTransition)}, g(PZero), g(PInfinite))
-	case ModelCarreau:
-		return checkInf(Carreau{g(PZero), g(PInfinite), g(PTime), g(PFlowIndex)}, g(PZero), g(PInfinite))
-	case ModelCarreauYasuda:
-		return checkInf(CarreauYasuda{g(PZero), g(PInfinite), g(PTime), g(PFlowIndex), g(PTransition)}, g(PZero), g(PInfinite))
-	case ModelBingham:
-		return Bingham{g(PYield), g(PPlastic)}, nil
-	case ModelHerschelBulkley:
-		return HerschelBulkley{g(PYield), g(PConsistency), g(PFlowIndex)}, nil
+	if d.plateau() && p[PInfinite] > p[PZero] {
+		return nil, errorf("infinite-shear viscosity %g Pa·s exceeds zero-shear viscosity %g Pa·s", p[PInfinite], p[PZero])
 	}
-	return Casson{g(PYield), g(PPlastic)}, nil
-}
-
-func checkInf(m Model, eta0, etaInf float64) (Model, error) {
-	if etaInf > eta0 {
-		return nil, fmt.Errorf("media: infinite-shear viscosity %g Pa·s exceeds zero-shear viscosity %g Pa·s", etaInf, eta0)
-	}
-	return m, nil
+	return d.make(vals), nil
 }

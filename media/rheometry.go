@@ -113,21 +113,21 @@ func rotational(rs []Reading, c *FlowCurve) []Reading {
 // or an error saying why none exist.
 func slopesOf(x, y []float64, window int, what string) (s, se []float64, err error) {
 	if len(x) < 3 {
-		return nil, nil, fmt.Errorf("media: the %s correction needs a local slope, and that needs 3 usable readings or more (have %d)", what, len(x))
+		return nil, nil, errorf("the %s correction needs a local slope, and that needs 3 usable readings or more (have %d)", what, len(x))
 	}
 	s, se, err = LocalSlopes(x, y, window)
 	if err != nil {
-		return nil, nil, fmt.Errorf("media: the %s correction: %v", what, trimMedia(err))
+		return nil, nil, errorf("the %s correction: %v", what, trimMedia(err))
 	}
 	return s, se, nil
 }
 
+// trimMedia is the message of err without the package prefix.
 func trimMedia(err error) string {
-	m := err.Error()
-	if len(m) > 7 && m[:7] == "media: " {
-		return m[7:]
+	if r, ok := err.(interface{ Reason() string }); ok {
+		return r.Reason()
 	}
-	return m
+	return err.Error()
 }
 
 // judge rejects points whose values overflowed, adds the per-point notes
@@ -199,7 +199,7 @@ func (g Couette) Name() string { return GeometryCouette }
 // Check refuses an impossible geometry.
 func (g Couette) Check() error {
 	if !positive(g.BobRadius, g.CupRadius, g.BobLength) || !(g.CupRadius > g.BobRadius) {
-		return fmt.Errorf("media: a concentric cylinder needs positive bob radius, cup radius and bob length, with the cup wider than the bob (have bob %g m, cup %g m, length %g m)", g.BobRadius, g.CupRadius, g.BobLength)
+		return errorf("a concentric cylinder needs positive bob radius, cup radius and bob length, with the cup wider than the bob (have bob %g m, cup %g m, length %g m)", g.BobRadius, g.CupRadius, g.BobLength)
 	}
 	return nil
 }
@@ -297,7 +297,7 @@ func (g ConePlate) Name() string { return GeometryConePlate }
 // Check refuses an impossible geometry.
 func (g ConePlate) Check() error {
 	if !positive(g.Radius, g.Angle) || g.Angle >= math.Pi/4 {
-		return fmt.Errorf("media: a cone and plate needs a positive radius and a cone angle between 0 and 45° (have %g m, %g rad)", g.Radius, g.Angle)
+		return errorf("a cone and plate needs a positive radius and a cone angle between 0 and 45° (have %g m, %g rad)", g.Radius, g.Angle)
 	}
 	return nil
 }
@@ -329,7 +329,7 @@ func (g ParallelPlate) Name() string { return GeometryParallelPlate }
 // Check refuses an impossible geometry.
 func (g ParallelPlate) Check() error {
 	if !positive(g.Radius, g.Gap) {
-		return fmt.Errorf("media: parallel plates need a positive radius and gap (have %g m, %g m)", g.Radius, g.Gap)
+		return errorf("parallel plates need a positive radius and gap (have %g m, %g m)", g.Radius, g.Gap)
 	}
 	return nil
 }

@@ -17,7 +17,7 @@ func (g Capillary) Name() string { return GeometryCapillary }
 // Check refuses an impossible geometry.
 func (g Capillary) Check() error {
 	if !positive(g.Diameter, g.Length) || g.FluidDensity < 0 || math.IsInf(g.FluidDensity, 0) || math.IsNaN(g.FluidDensity) {
-		return fmt.Errorf("media: a capillary needs a positive diameter and length (have %g m, %g m)", g.Diameter, g.Length)
+		return errorf("a capillary needs a positive diameter and length (have %g m, %g m)", g.Diameter, g.Length)
 	}
 	return nil
 }
@@ -190,13 +190,13 @@ func (g FallingBall) Name() string { return GeometryFallingBall }
 func (g FallingBall) Check() error {
 	switch {
 	case !positive(g.BallDiameter, g.TubeDiameter, g.BallDensity, g.FluidDensity):
-		return fmt.Errorf("media: a falling ball needs a positive ball diameter, tube diameter, ball density and fluid density")
+		return errorf("a falling ball needs a positive ball diameter, tube diameter, ball density and fluid density")
 	case g.BallDiameter >= g.TubeDiameter:
-		return fmt.Errorf("media: the ball (%g m) must be narrower than the tube (%g m)", g.BallDiameter, g.TubeDiameter)
+		return errorf("the ball (%g m) must be narrower than the tube (%g m)", g.BallDiameter, g.TubeDiameter)
 	case g.BallDensity <= g.FluidDensity:
-		return fmt.Errorf("media: the ball (%g kg/m³) must be denser than the fluid (%g kg/m³) to fall", g.BallDensity, g.FluidDensity)
+		return errorf("the ball (%g kg/m³) must be denser than the fluid (%g kg/m³) to fall", g.BallDensity, g.FluidDensity)
 	case g.Wall != WallHabermanSayre && g.Wall != WallFaxen:
-		return fmt.Errorf("media: unknown wall correction %q; accepted: %s, %s", g.Wall, WallHabermanSayre, WallFaxen)
+		return errorf("unknown wall correction %q; accepted: %s, %s", g.Wall, WallHabermanSayre, WallFaxen)
 	}
 	return nil
 }
@@ -253,7 +253,7 @@ func (g FallingBall) Reduce(rs []Reading, _ int) (FlowCurve, error) {
 	}}
 	f := g.WallFactor()
 	if !(f > 0) {
-		return c, fmt.Errorf("media: the %s wall correction is not positive at λ = %.3g; use a narrower ball", g.Wall, lambda)
+		return c, errorf("the %s wall correction is not positive at λ = %.3g; use a narrower ball", g.Wall, lambda)
 	}
 	// One implementation of Haberman & Sayre states validity for λ ≤ 0.8.
 	if lambda > 0.8 {

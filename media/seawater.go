@@ -117,26 +117,26 @@ func Seawater(tC, sp, pPa float64) (Properties, error) { return seawater(tC, sp,
 // warnings' texts.
 func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 	if !finite(tC, sp, pPa) {
-		return Properties{}, fmt.Errorf("media: sea water needs finite temperature, salinity and pressure")
+		return Properties{}, errorf("sea water needs finite temperature, salinity and pressure")
 	}
 	if sp < 0 {
-		return Properties{}, fmt.Errorf("media: salinity %.4g is negative; give a practical salinity of 0 or more", sp)
+		return Properties{}, outOfRange("salinity", FieldSalinity, sp, 0, PracticalFromAbsolute(MaxSalinityGkg), "", "salinity %.4g is negative; give a practical salinity of 0 or more", sp)
 	}
 	if pPa < StandardPressurePa*0.5 {
-		return Properties{}, fmt.Errorf("media: sea-water pressure %.6g Pa is below half an atmosphere; give an absolute pressure (sea surface 101325 Pa)", pPa)
+		return Properties{}, errorf("sea-water pressure %.6g Pa is below half an atmosphere; give an absolute pressure (sea surface 101325 Pa)", pPa)
 	}
 	dbar := (pPa - StandardPressurePa) / 1e4
 	if tf := SeawaterFreezingC(sp, math.Max(dbar, 0)); tC < tf-1e-9 {
-		return Properties{}, fmt.Errorf("media: sea water of salinity %.4g at %.4g °C and %.5g dbar is below its freezing point (%.3f °C); give a temperature at or above it", sp, tC, dbar, tf)
+		return Properties{}, errorf("sea water of salinity %.4g at %.4g °C and %.5g dbar is below its freezing point (%.3f °C); give a temperature at or above it", sp, tC, dbar, tf)
 	}
 	if tb := waterBoilingC(pPa); tC > tb {
-		return Properties{}, fmt.Errorf("media: sea water at %.4g °C and %.6g Pa is above the boiling point of water (%.4g °C)", tC, pPa, tb)
+		return Properties{}, errorf("sea water at %.4g °C and %.6g Pa is above the boiling point of water (%.4g °C)", tC, pPa, tb)
 	}
 	if sr := AbsoluteFromPractical(sp); sr >= MaxSalinityGkg {
-		return Properties{}, fmt.Errorf("media: salinity %.4g (%.4g g/kg) is impossible: salt per kilogram of sea water must stay below 1000 g/kg", sp, sr)
+		return Properties{}, outOfRange("salinity", FieldSalinity, sp, 0, PracticalFromAbsolute(MaxSalinityGkg), "", "salinity %.4g (%.4g g/kg) is impossible: salt per kilogram of sea water must stay below 1000 g/kg", sp, sr)
 	}
 	if tC > SeawaterMaxTemperatureC {
-		return Properties{}, fmt.Errorf("media: sea water at %.4g °C is above %g °C, the highest accepted: EOS-80 (published for −2–40 °C) gives a density that rises with temperature beyond it; give a lower temperature", tC, SeawaterMaxTemperatureC)
+		return Properties{}, errorf("sea water at %.4g °C is above %g °C, the highest accepted: EOS-80 (published for −2–40 °C) gives a density that rises with temperature beyond it; give a lower temperature", tC, SeawaterMaxTemperatureC)
 	}
 	if err := checkWaterPressure("sea-water", pPa); err != nil {
 		return Properties{}, err
@@ -163,27 +163,27 @@ func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 	// above 60 of salinity (0.01 % at 60, 0.07 % at 80) and above 60 °C
 	// (0.02 % at 60 °C, 0.2 % at 80 °C), per the measurements quoted below.
 	if sp > seaDensityVisibleSalinity {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "practical salinity", Value: sp, Relation: "> 60: EOS-80 density extrapolated (range 0–42)"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "practical salinity", Value: sp, Relation: "> 60: EOS-80 density extrapolated (range 0–42)"}, func() string {
 			return fmt.Sprintf("sea water: practical salinity %.4g is above the EOS-80 range 0–42; density is extrapolated (above TEOS-10 by 0.01 %% at 60, 0.07 %% at 80, 0.3 %% at 100, 0.9 %% at 120, measured at the surface)", sp)
 		})
 	}
 	if tC < -2 || tC > seaDensityVisibleC {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "outside −2–60 °C: EOS-80 density extrapolated (range −2–40 °C)"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "outside −2–60 °C: EOS-80 density extrapolated (range −2–40 °C)"}, func() string {
 			return fmt.Sprintf("sea water: %.4g °C is outside the EOS-80 range −2 to 40 °C; density is extrapolated (its pure-water part is 0.02 %% above IAPWS-95 at 60 °C, 0.2 %% at 80 °C, 1.1 %% at 100 °C, measured)", tC)
 		})
 	}
 	if dbar > 10000 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea pressure", Value: dbar, Unit: "dbar", Relation: "> 10000: EOS-80 extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea pressure", Value: dbar, Unit: "dbar", Relation: "> 10000: EOS-80 extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: sea pressure %.5g dbar is above the EOS-80 limit of 10000 dbar (and the Saunders–Fofonoff depth relation's); extrapolated (for pure water at 0–40 °C within 0.05 %% of IAPWS-95 up to 200 MPa, measured)", dbar)
 		})
 	}
 	if tC < 0 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: Sharqawy viscosity extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "sea water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: Sharqawy viscosity extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: %.4g °C is below the 0 °C lower limit of the Sharqawy et al. viscosity correlation; viscosity is extrapolated", tC)
 		})
 	}
 	if p.SalinityAbsolute > 150 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "salinity", Value: p.SalinityAbsolute, Unit: "g/kg", Relation: "> 150: Sharqawy viscosity extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "salinity", Value: p.SalinityAbsolute, Unit: "g/kg", Relation: "> 150: Sharqawy viscosity extrapolated"}, func() string {
 			return fmt.Sprintf("sea water: %.4g g/kg is above the 150 g/kg limit of the Sharqawy et al. viscosity correlation", p.SalinityAbsolute)
 		})
 	}

@@ -1,7 +1,6 @@
 package media
 
 import (
-	"fmt"
 	"math"
 	"sort"
 
@@ -21,17 +20,17 @@ import (
 // x and y must be positive and finite; at least two distinct x are needed.
 func LocalSlopes(x, y []float64, window int) (slope, se []float64, err error) {
 	if len(x) != len(y) {
-		return nil, nil, fmt.Errorf("media: %d x values but %d y values", len(x), len(y))
+		return nil, nil, errorf("%d x values but %d y values", len(x), len(y))
 	}
 	lx, ly := make([]float64, len(x)), make([]float64, len(y))
 	for i := range x {
 		if !(x[i] > 0) || !(y[i] > 0) || math.IsInf(x[i], 0) || math.IsInf(y[i], 0) {
-			return nil, nil, fmt.Errorf("media: point %d (%g, %g) is not positive and finite", i+1, x[i], y[i])
+			return nil, nil, errorf("point %d (%g, %g) is not positive and finite", i+1, x[i], y[i])
 		}
 		lx[i], ly[i] = math.Log(x[i]), math.Log(y[i])
 	}
 	if distinct(lx) < 2 {
-		return nil, nil, fmt.Errorf("media: a slope needs readings at two different settings or more")
+		return nil, nil, errorf("a slope needs readings at two different settings or more")
 	}
 	window = max(window, 3)
 	slope, se = make([]float64, len(x)), make([]float64, len(x))

@@ -87,12 +87,12 @@ func Sucrose(w, tC float64) (Properties, error) { return sucrose(w, tC, false) }
 
 func sucrose(w, tC float64, brief bool) (Properties, error) {
 	if !finite(w, tC) || w < 0 || w > SucroseMaxFraction() {
-		return Properties{}, fmt.Errorf("media: sucrose viscosity is tabulated for mass fractions 0 to %.2g; %.4g is outside", SucroseMaxFraction(), w)
+		return Properties{}, errorf("sucrose viscosity is tabulated for mass fractions 0 to %.2g; %.4g is outside", SucroseMaxFraction(), w)
 	}
 	if math.Abs(tC-sucroseTableC) > sucroseToleranceC {
-		return Properties{}, fmt.Errorf("media: sucrose solutions are tabulated at 20 °C only, not %.4g °C; hold the tank at 20 °C or measure the solution and give it as a medium file", tC)
+		return Properties{}, errorf("sucrose solutions are tabulated at 20 °C only, not %.4g °C; hold the tank at 20 °C or measure the solution and give it as a medium file", tC)
 	}
-	p := blank(LabFluidName(KindSucrose, w))
+	p := blank(labFluidName(KindSucrose, w))
 	p.TemperatureC, p.PressurePa = sucroseTableC, StandardPressurePa
 	p.Density, p.DynamicViscosity = SucroseProperties(w)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
@@ -100,12 +100,12 @@ func sucrose(w, tC float64, brief bool) (Properties, error) {
 		return "density and viscosity: CRC Handbook of Chemistry and Physics, 102nd ed. (2021), concentrative properties of aqueous solutions, sucrose at 20 °C, interpolated (ln viscosity: monotone cubic)"
 	})
 	if tC != sucroseTableC {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return fmt.Sprintf("medium: sucrose is tabulated at 20 °C; the 20 °C values are used for %.4g °C", tC)
 		})
 	}
 	if w > sucroseSparseW {
-		AddWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
+		addWarning(&p.Warnings, brief, WarnOutOfRange, func() string {
 			return "medium: above 50 % sucrose the table's rows are 10 % apart; the interpolated viscosity is less certain there"
 		})
 	}
@@ -117,7 +117,7 @@ func sucrose(w, tC float64, brief bool) (Properties, error) {
 // when nu is outside the table.
 func SucroseFractionFor(nu float64) (float64, error) {
 	if !finite(nu) || nu <= 0 {
-		return 0, fmt.Errorf("media: the wanted kinematic viscosity must be a positive number")
+		return 0, errorf("the wanted kinematic viscosity must be a positive number")
 	}
 	nuAt := func(w float64) float64 { rho, mu := SucroseProperties(w); return mu / rho }
 	lo, hi := nuAt(0), nuAt(SucroseMaxFraction())

@@ -71,28 +71,28 @@ func (d TemperatureDependence) Check() error {
 	switch d.Method {
 	case TempArrhenius:
 		if d.ActivationEnergy == nil || !finite(*d.ActivationEnergy) {
-			return fmt.Errorf("media: \"arrhenius\" needs \"activation_energy_J_mol\"")
+			return errorf("\"arrhenius\" needs \"activation_energy_J_mol\"")
 		}
 		if !rangeOK {
-			return fmt.Errorf("media: \"arrhenius\" needs \"range_C\": [low, high], the temperatures the activation energy was measured over")
+			return errorf("\"arrhenius\" needs \"range_C\": [low, high], the temperatures the activation energy was measured over")
 		}
 	case TempWaterRatio:
 		if !rangeOK {
-			return fmt.Errorf("media: \"water-ratio\" needs \"range_C\": [low, high], the temperatures it is trusted over")
+			return errorf("\"water-ratio\" needs \"range_C\": [low, high], the temperatures it is trusted over")
 		}
 	case TempTable:
 		if len(d.Table) < 2 {
-			return fmt.Errorf("media: \"table\" needs \"viscosity_table\" with two temperatures or more")
+			return errorf("\"table\" needs \"viscosity_table\" with two temperatures or more")
 		}
 		seen := map[float64]bool{}
 		for _, p := range d.Table {
 			if !finite(p.TemperatureC) || p.TemperatureC <= -ZeroCelsiusK || !positive(p.Viscosity) || seen[p.TemperatureC] {
-				return fmt.Errorf("media: \"viscosity_table\" needs distinct finite temperatures above absolute zero and positive viscosities")
+				return errorf("\"viscosity_table\" needs distinct finite temperatures above absolute zero and positive viscosities")
 			}
 			seen[p.TemperatureC] = true
 		}
 	default:
-		return fmt.Errorf("media: unknown temperature \"method\" %q; accepted: %s, %s, %s", d.Method, TempArrhenius, TempTable, TempWaterRatio)
+		return errorf("unknown temperature \"method\" %q; accepted: %s, %s, %s", d.Method, TempArrhenius, TempTable, TempWaterRatio)
 	}
 	return nil
 }
@@ -168,7 +168,7 @@ func (f MediumFile) PropertiesAt(tC float64) (Properties, error) {
 	a := d.Shift(ref, tC)
 	mr := p.Rheology.(MeasuredRheology)
 	if mr.Model, err = shiftModel(mr.Model, a); err != nil {
-		return p, fmt.Errorf("media: the viscosity shifted to %.3g °C is not usable: %v", tC, trimMedia(err))
+		return p, errorf("the viscosity shifted to %.3g °C is not usable: %v", tC, trimMedia(err))
 	}
 	p.Rheology = mr
 	p.TemperatureC = tC

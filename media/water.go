@@ -143,20 +143,20 @@ func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa
 // warnings' texts.
 func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 	if !finite(tC, pPa) {
-		return Properties{}, fmt.Errorf("media: fresh water needs finite temperature and pressure")
+		return Properties{}, errorf("fresh water needs finite temperature and pressure")
 	}
 	if pPa <= 0 {
-		return Properties{}, fmt.Errorf("media: pressure %.6g Pa is not positive; give an absolute pressure above 0 Pa", pPa)
+		return Properties{}, errorf("pressure %.6g Pa is not positive; give an absolute pressure above 0 Pa", pPa)
 	}
 	tK := tC + ZeroCelsiusK
 	if tf := waterFreezingK(pPa); tK < tf-1e-9 {
-		return Properties{}, fmt.Errorf("media: fresh water at %.4g °C and %.6g Pa is below its freezing point (%.4g °C); give a temperature at or above it", tC, pPa, tf-ZeroCelsiusK)
+		return Properties{}, errorf("fresh water at %.4g °C and %.6g Pa is below its freezing point (%.4g °C); give a temperature at or above it", tC, pPa, tf-ZeroCelsiusK)
 	}
 	if tb := waterBoilingC(pPa); tC > tb {
-		return Properties{}, fmt.Errorf("media: fresh water at %.4g °C and %.6g Pa is above its boiling point (%.4g °C); give a lower temperature or a higher pressure", tC, pPa, tb)
+		return Properties{}, errorf("fresh water at %.4g °C and %.6g Pa is above its boiling point (%.4g °C); give a lower temperature or a higher pressure", tC, pPa, tb)
 	}
 	if tC > IF97MaxTemperatureC {
-		return Properties{}, fmt.Errorf("media: fresh water at %.4g °C is above %g °C, the end of IAPWS-IF97 region 1 (623.15 K); give a lower temperature", tC, IF97MaxTemperatureC)
+		return Properties{}, errorf("fresh water at %.4g °C is above %g °C, the end of IAPWS-IF97 region 1 (623.15 K); give a lower temperature", tC, IF97MaxTemperatureC)
 	}
 	if err := checkWaterPressure("fresh-water", pPa); err != nil {
 		return Properties{}, err
@@ -174,7 +174,7 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 		}
 	}
 	if tC < 0 {
-		AddDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: IAPWS-IF97 extrapolated"}, func() string {
+		addDetailed(&p.Warnings, brief, WarnOutOfRange, Detail{Quantity: "water temperature", Value: tC, Unit: "°C", Relation: "< 0 °C: IAPWS-IF97 extrapolated"}, func() string {
 			return fmt.Sprintf("fresh water: %.4g °C is below 0 °C; IAPWS-IF97 region 1 starts at 273.15 K and is extrapolated here", tC)
 		})
 	}

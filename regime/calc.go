@@ -262,7 +262,7 @@ func flowNumbers(r *Result, o *Organism, m *media.Properties, l float64, note no
 		return err
 	}
 	r.Regime = Classify(r.Reynolds)
-	if m.Medium == media.KindAir && !math.IsNaN(m.TemperatureC) {
+	if m.Gas && !math.IsNaN(m.TemperatureC) {
 		if ma := o.Speed / SpeedOfSoundAir(m.TemperatureC); ma > MachIncompressible {
 			note.detail(&r.Warnings, WarnModel, media.Detail{Quantity: "Mach number", Value: ma, Relation: "> 0.3: air is compressible there"}, func() string {
 				return fmt.Sprintf("flow: Mach %.2g: above Mach 0.3 air is compressible and the drag laws here, made for incompressible flow, no longer hold", ma)
@@ -324,7 +324,7 @@ func strouhal(r *Result, o *Organism, m *media.Properties, note noter) {
 		// Screening bound 0.05–1: common practice, no single source; cruising
 		// animals keep to 0.2–0.4 (Taylor, Nudds & Thomas 2003) and
 		// manoeuvres and slow hovering flight go beyond it.
-		if StrouhalUnusual(r.Strouhal, m.Medium == media.KindAir) {
+		if StrouhalUnusual(r.Strouhal, m.Gas) {
 			note.detail(&r.Warnings, WarnStrouhal, strouhalDetail(r.Strouhal), func() string {
 				return fmt.Sprintf("strouhal: St = %.3g is outside 0.05–1, beyond what swimming and flying animals show (cruisers keep to 0.2–0.4, Taylor, Nudds & Thomas 2003); check frequency, amplitude and speed", r.Strouhal)
 			})
@@ -451,10 +451,10 @@ func diffusion(r *Result, o *Organism, m *media.Properties, l float64) {
 	}
 }
 
-// isFlyer reports whether the organism gets flight power: in air, with a
+// isFlyer reports whether the organism gets flight power: in a gas (air), with a
 // mass and a wingspan.
 func isFlyer(o *Organism, m *media.Properties) bool {
-	return m.Medium == media.KindAir && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
+	return m.Gas && !math.IsNaN(o.Mass) && !math.IsNaN(o.Span)
 }
 
 // coast coasts a body of effective mass mEff from speed u against the
@@ -554,7 +554,7 @@ func OrganismPowerCurve(o Organism, m media.Properties, lo, hi float64, steps in
 	if err := o.normalize(); err != nil {
 		return PowerCurve{}, err
 	}
-	if m.Medium != media.KindAir || math.IsNaN(o.Mass) || math.IsNaN(o.Span) {
+	if !m.Gas || math.IsNaN(o.Mass) || math.IsNaN(o.Span) {
 		return PowerCurve{}, errorf("a flight power curve needs a flyer in air with a mass and a wingspan")
 	}
 	if err := o.Body.Validate(); err != nil {

@@ -35,12 +35,16 @@ func warnf(code, format string, args ...any) Warning {
 type noter bool
 
 func (full noter) add(ws *[]Warning, code string, msg func() string) {
-	media.AddWarning(ws, !bool(full), code, msg)
+	full.detail(ws, code, media.Detail{}, msg)
 }
 
 // detail adds a warning with its short reason d (see [media.Detail]).
 func (full noter) detail(ws *[]Warning, code string, d media.Detail, msg func() string) {
-	media.AddDetailed(ws, !bool(full), code, d, msg)
+	w := Warning{Code: code, Detail: d}
+	if full {
+		w.Message = msg()
+	}
+	*ws = append(*ws, w)
 }
 
 // Shape is the idealised body shape used to pick drag laws.

@@ -36,7 +36,7 @@ func screen(o *Organism, r *Result, note noter, ws *[]Warning) {
 		note.detail(ws, WarnSpeed, media.Detail{Quantity: "speed", Value: bl, Unit: "BL/s", Relation: "> 1000"}, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond any organism known (about 1000 BL/s at most)", bl)
 		})
-	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && r.Medium.Medium != "air":
+	case o.Body.Length >= largeBody && bl > maxRelativeSpeedLarge && !r.Medium.Gas:
 		note.detail(ws, WarnSpeed, media.Detail{Quantity: "speed", Value: bl, Unit: "BL/s", Relation: "> 30 for a swimmer of 10 cm or more"}, func() string {
 			return fmt.Sprintf("speed: %.3g body lengths per second is beyond what swimmers of 10 cm and more reach (about 25–30 BL/s in sprints; Wardle 1975)", bl)
 		})

@@ -174,7 +174,7 @@ func (sp *settleProblem) solve(mu float64) (Settling, error) {
 	s := sp.base()
 	m, d := sp.m, sp.d
 	rhoF := m.Density
-	if m.Medium == media.KindAir {
+	if m.Gas && !math.IsNaN(m.TemperatureC) && !math.IsNaN(m.PressurePa) {
 		s.Knudsen = 2 * MeanFreePath(mu, m.TemperatureC+media.ZeroCelsiusK, m.PressurePa) / d
 		s.Cunningham = Cunningham(s.Knudsen)
 	}

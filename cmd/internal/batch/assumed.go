@@ -91,7 +91,9 @@ func Assumptions(out []string, in *inputs.Input, r *regime.Result, shapeGiven bo
 func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) []string {
 	nan := math.IsNaN
 	switch {
-	case m.Medium == media.KindAir:
+	case inputs.IsMediumFile(c.Medium):
+		// a measured medium, whatever its name: its file fixes its properties
+	case m.Gas:
 		if nan(c.TemperatureC) {
 			out = append(out, AssumedAirTemperature)
 		}
@@ -101,8 +103,6 @@ func MediumAssumptions(out []string, c *media.Conditions, m *media.Properties) [
 		if nan(c.HumidityPercent) {
 			out = append(out, AssumedHumidity)
 		}
-	case m.Medium != media.KindFreshWater && m.Medium != media.KindSeawater && media.IsMediumFile(c.Medium):
-		// a measured medium: its file fixes its properties
 	default:
 		if nan(c.TemperatureC) {
 			out = append(out, AssumedWaterTemperature)

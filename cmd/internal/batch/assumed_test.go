@@ -7,6 +7,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"github.com/flowregime/flowregime/media"
 )
 
 // TestAssumedColumn: each default that changes a row's result is named in
@@ -70,5 +72,23 @@ func TestFlagReasons(t *testing.T) {
 	}
 	if got, fl := recs[2][reasons], recs[2][slices.Index(recs[0], "flags")]; (got == "") != (fl == "") || strings.Contains(got, "strouhal") {
 		t.Errorf("St 0.2 row: flags %q, reasons %q", fl, got)
+	}
+}
+
+// A measured medium's file fixes its properties, whatever the file calls
+// the fluid: one named "air" or "seawater" gets no air or sea-water default
+// codes, while the built-in air (a gas) does.
+func TestMediumAssumptionsReadNoName(t *testing.T) {
+	file := media.Unset("fluids/thin.json")
+	for _, name := range []string{media.KindAir, media.KindSeawater} {
+		m := media.Properties{Medium: name}
+		if got := MediumAssumptions(nil, &file, &m); len(got) != 0 {
+			t.Errorf("a medium file named %q: %v", name, got)
+		}
+	}
+	air := media.Unset(media.KindAir)
+	m := media.Properties{Medium: media.KindAir, Gas: true}
+	if got := MediumAssumptions(nil, &air, &m); len(got) != 3 {
+		t.Errorf("built-in air with nothing given: %v, want temperature, altitude and humidity", got)
 	}
 }

@@ -17,7 +17,6 @@ import (
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/survey"
-	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
 )
 
@@ -218,7 +217,7 @@ func TestMeasuredMediumColumn(t *testing.T) {
 	}
 	recs, _ := csv.NewReader(strings.NewReader(out)).ReadAll()
 	re, _ := strconv.ParseFloat(recs[1][4+2], 64)
-	mf, err := media.LoadMediumFile(file)
+	mf, err := inputs.LoadMediumFile(file)
 	if err != nil {
 		t.Fatal(err)
 	}

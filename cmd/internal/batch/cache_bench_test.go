@@ -21,7 +21,7 @@ func BenchmarkCacheHit(b *testing.B) {
 }
 
 // The worker's table must give what a lookup without any cache gives
-// (media.LookupBrief), field by field where a row's computation reads it,
+// (a brief media lookup), field by field where a row's computation reads it,
 // including when a table far too small for the conditions overwrites its
 // slots, and for conditions it does not hold (more than three given).
 func TestLocalMediaMatchesLookup(t *testing.T) {
@@ -44,7 +44,7 @@ func TestLocalMediaMatchesLookup(t *testing.T) {
 				c = media.Unset(media.KindSeawater)
 				c.TemperatureC, c.SalinityPractical, c.DepthM, c.LatitudeDeg = 10, 35, float64(rng.IntN(50)), 45
 			}
-			want, werr := media.LookupBrief(c)
+			want, werr := brief.Lookup(c)
 			got, gerr := lm.lookup(c)
 			if (werr != nil) != (gerr != nil) {
 				t.Fatalf("%+v: error %v, want %v", c, gerr, werr)

@@ -41,6 +41,9 @@ const (
 
 var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.KindSeawater}
 
+// builtinGas is media.Properties.Gas of each built-in medium, by the same index.
+var builtinGas = [4]bool{1: true}
+
 // outOfRange are shared, read-only warnings that rebuilt properties point to.
 var outOfRange = func() []media.Warning {
 	ws := make([]media.Warning, 8)
@@ -119,7 +122,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 			break
 		}
 	}
-	p, err := media.LookupBrief(c)
+	p, err := brief.Lookup(c)
 	if err != nil {
 		return nil, err
 	}
@@ -143,7 +146,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 func (l *localMedia) rebuild(s *mediaSlot) {
 	nan := math.NaN()
 	n := int(s.key.w0 >> warnShift)
-	l.p = media.Properties{Medium: builtinName[s.key.w0&0xff], TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
+	l.p = media.Properties{Medium: builtinName[s.key.w0&0xff], Gas: builtinGas[s.key.w0&0xff], TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
 		KinematicViscosity: s.nu, PressurePa: nan, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan,
 		Warnings: outOfRange[:n:n]}

@@ -269,7 +269,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	p, err := mc.properties(c)
 	e = &cached{err: err}
 	nan := math.NaN()
-	e.p = media.Properties{Medium: p.Medium, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
+	e.p = media.Properties{Medium: p.Medium, Gas: p.Gas, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
 		KinematicViscosity: p.KinematicViscosity, Rheology: p.Rheology, PressurePa: p.PressurePa, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 	for _, w := range p.Warnings {
@@ -284,11 +284,14 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	return &e.p, err
 }
 
+// brief looks built-in media up without method notes or warning texts.
+var brief = media.Options{Brief: true}
+
 // properties looks a medium up: a medium file through mc.files, which
-// holds it to the table's folder, a built-in medium by media.LookupBrief.
+// holds it to the table's folder, a built-in medium by a brief media lookup.
 func (mc *mediumCache) properties(c media.Conditions) (media.Properties, error) {
-	if !media.IsMediumFile(c.Medium) {
-		return media.LookupBrief(c)
+	if !inputs.IsMediumFile(c.Medium) {
+		return brief.Lookup(c)
 	}
 	f, err := mc.files.load(c.Medium)
 	if err != nil {

@@ -194,7 +194,7 @@ func (o *batchOptions) inputFiles(s Streams) []namedFile {
 	if o.input == "-" {
 		ins[0] = namedFile{what: "the standard input", file: stdFile(s.In)}
 	}
-	if media.IsMediumFile(o.medium) {
+	if inputs.IsMediumFile(o.medium) {
 		ins = append(ins, namedFile{what: "the medium file " + o.medium, path: o.medium})
 	}
 	return ins
@@ -375,12 +375,16 @@ func checkConstant(f inputs.Field, v string) error {
 // and returned as an absolute path, so that the table's rows cannot mean
 // another file by the same name.
 func checkMediumFlag(medium string) (string, error) {
-	if media.IsMediumFile(medium) {
+	if inputs.IsMediumFile(medium) {
 		if _, err := os.Stat(medium); err != nil { // an I/O failure, exit 1
 			return "", fmt.Errorf("--medium: cannot read %s: %v", medium, errors.Unwrap(err))
 		}
-		if _, err := media.LoadMediumFile(medium); err != nil {
-			return "", usagef("--medium: %s", strings.ReplaceAll(err.Error(), "media: ", ""))
+		if _, err := inputs.LoadMediumFile(medium); err != nil {
+			msg := inputs.Reason(err)
+			if fe := (*inputs.MediumFileError)(nil); errors.As(err, &fe) {
+				msg = fe.Path + ": " + inputs.Reason(fe.Err)
+			}
+			return "", usagef("--medium: %s", msg)
 		}
 		abs, err := filepath.Abs(medium)
 		if err != nil {

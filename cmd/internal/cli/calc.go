@@ -105,7 +105,7 @@ func (u *uncertaintyFlags) propagate(in inputs.Input) (*regime.Uncertainty, erro
 		return nil, nil
 	}
 	eval := in.Evaluator(idx, func(c media.Conditions) (*media.Properties, error) {
-		p, err := media.LookupBrief(c)
+		p, err := inputs.LookupMedium(c, true)
 		return &p, err
 	})
 	var res regime.Uncertainty
@@ -212,7 +212,7 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 	if og := in.Organism; o.gliding && (in.Conditions.Medium != media.KindAir || math.IsNaN(og.Mass) || math.IsNaN(og.Span)) {
 		return in, media.Properties{}, usagef("--gliding needs a flyer in air with --mass and --span")
 	}
-	m, err := media.Lookup(in.Conditions)
+	m, err := inputs.LookupMedium(in.Conditions, false)
 	if err != nil {
 		return in, m, lookupError(err)
 	}

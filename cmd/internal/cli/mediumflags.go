@@ -47,7 +47,7 @@ func (m *mediumFlags) lookup(command, medium string) (media.Properties, error) {
 	if err != nil {
 		return media.Properties{}, usageError{err}
 	}
-	p, err := media.Lookup(c)
+	p, err := inputs.LookupMedium(c, false)
 	if err != nil {
 		return p, lookupError(err)
 	}

@@ -108,7 +108,7 @@ func (r scaleResult) similarityCaution() string {
 		m := row.Sim.Model
 		switch r.plan.mode {
 		case regime.MatchReynolds:
-			if r.plan.medium.Medium != media.KindAir && math.Abs(m.Froude/r.organism.Froude-1) > froudeTolerance {
+			if !r.plan.medium.Gas && math.Abs(m.Froude/r.organism.Froude-1) > froudeTolerance {
 				return fmt.Sprintf("Froude number not matched (organism %s, model %s in %s): the model holds only well away from a free surface; at the surface use --match froude or both",
 					report.Num(r.organism.Froude, 3), report.Num(m.Froude, 3), row.Fluid)
 			}

@@ -6,6 +6,7 @@ import (
 	"math"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/report"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
@@ -118,7 +119,7 @@ func (p *scalePlan) resolve(name string) (fluidAt, float64, error) {
 		return func(tC float64) (media.Properties, error) {
 			c := media.Unset(medium)
 			c.TemperatureC = tC
-			return media.Lookup(c)
+			return inputs.LookupMedium(c, false)
 		}
 	}
 	switch strings.ToLower(strings.TrimSpace(name)) {

@@ -155,7 +155,7 @@ func runSweep(o *sweepOptions, s Streams) error {
 		}
 		in := base.With(f, v)
 		p := sweepPoint{Value: v, Reynolds: math.NaN(), Drag: math.NaN(), Power: math.NaN()}
-		m, err := media.Lookup(in.Conditions)
+		m, err := inputs.LookupMedium(in.Conditions, false)
 		var r regime.Result
 		if err == nil {
 			err = regime.CalcInto(&r, in.Organism, &m, regime.Options{Brief: true})

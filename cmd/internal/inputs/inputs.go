@@ -381,7 +381,7 @@ func (in Input) Uncertain() ([]regime.UncertainInput, []int) {
 
 // Evaluator returns a function computing, with regime.CalcInto (brief), the
 // result for values of the uncertain fields idx, with the medium from
-// lookup (media.LookupBrief, or a cache in front of it) for each. Every call
+// lookup (LookupMedium brief, or a cache in front of it) for each. Every call
 // sets all of idx, so one copy of the input serves all draws.
 func (in Input) Evaluator(idx []int, lookup func(media.Conditions) (*media.Properties, error)) regime.Evaluator {
 	d := in

@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"github.com/flowregime/flowregime/cmd/internal/inputs"
 	"github.com/flowregime/flowregime/cmd/internal/quantity"
 	"github.com/flowregime/flowregime/media"
 	"github.com/flowregime/flowregime/regime"
@@ -331,7 +332,7 @@ func mediumMethods(name string) string {
 	if name == otherMedia {
 		return "see 'flowregime medium NAME' for each"
 	}
-	if media.IsMediumFile(name) {
+	if inputs.IsMediumFile(name) {
 		return "a measured flow curve fitted with 'flowregime fit'; see 'flowregime medium " + name + "'"
 	}
 	p, err := media.Lookup(media.Unset(name))

@@ -1,20 +1,22 @@
-package media
+package inputs
 
 import (
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/flowregime/flowregime/media"
 )
 
 // A medium file is read only when it is a regular file of at most
-// MaxMediumFileBytes: a folder and an oversized file are refused with a
+// media.MaxMediumFileBytes: a folder and an oversized file are refused with a
 // message that says why, before any byte is read. (A FIFO is refused the
 // same way; the command-line tests check that it does not block.)
 func TestLoadMediumFileRefusesSpecialAndHugeFiles(t *testing.T) {
 	dir := t.TempDir()
 	huge := filepath.Join(dir, "huge.json")
-	if err := os.WriteFile(huge, []byte(`{"format": "flowregime-medium", "name": "`+strings.Repeat("x", MaxMediumFileBytes)+`"}`), 0o644); err != nil {
+	if err := os.WriteFile(huge, []byte(`{"format": "flowregime-medium", "name": "`+strings.Repeat("x", media.MaxMediumFileBytes)+`"}`), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	for path, want := range map[string]string{
@@ -25,7 +27,7 @@ func TestLoadMediumFileRefusesSpecialAndHugeFiles(t *testing.T) {
 			t.Errorf("%s: got %v, want %q", path, err, want)
 		}
 	}
-	if _, err := LoadMediumFile(filepath.Join("..", "testdata", "media", "mucus.json")); err != nil {
+	if _, err := LoadMediumFile(filepath.Join("..", "..", "..", "testdata", "media", "mucus.json")); err != nil {
 		t.Errorf("a small regular medium file: %v", err)
 	}
 }
