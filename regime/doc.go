@@ -9,7 +9,7 @@
 // A fish in sea water (error checks left out; the package's Example_fish
 // has them and its output):
 //
-//	sea, err := media.Seawater(5, 35, media.StandardPressurePa)
+//	sea, err := media.Lookup(media.Conditions{Medium: media.KindSeawater, TemperatureC: 5, SalinityPractical: 35})
 //	fish := regime.Organism{Body: regime.Body{Shape: regime.Spheroid, Length: 0.30, Diameter: 0.06}, Speed: 0.6}
 //	r, err := regime.Calc(fish, sea)
 //	fmt.Println(r.Reynolds, r.Regime, r.Drag.Chosen.Force, r.Power.Total)

@@ -9,19 +9,22 @@ import (
 )
 
 // A fish 30 cm long cruising at 0.6 m/s with a tail beat of 4 Hz and
-// 6 cm, in sea water at 5 °C, practical salinity 35, at the surface. The
-// struct literal gives what was measured; everything left zero is "not
-// given" and Calc says in Warnings what it assumed instead (here towing
-// power, efficiency 1, for want of a propulsive efficiency).
+// 6 cm, in sea water at 5 °C, practical salinity 35, at the surface. Both
+// struct literals give only what was measured: a field left zero is "not
+// given", and the results say what was assumed instead (the medium's
+// Assumed list: at the surface, at one standard atmosphere; the Result's
+// Warnings: towing power, efficiency 1, for want of a propulsive
+// efficiency).
 //
 // Check values: the density is EOS-80's, whose published check value at
 // S = 35, t = 5 °C, 0 bar is 1027.67547 kg/m³ (UNESCO 1981, Tech. Pap.
 // Mar. Sci. 38); St = fA/U = 4 × 0.06/0.6 = 0.40, the top of the band of
 // cruising animals (Taylor, Nudds & Thomas 2003, Nature 425, 707); Re =
 // UL/ν with Sharqawy et al.'s (2010) viscosity. The drag is turbulent skin
-// friction times Hoerner's (1965) form factor on the body's wetted area.
+// friction times Hoerner's (1965) form factor on the body's wetted area:
+// this package's own output, not a published value.
 func Example_fish() {
-	sea, err := media.Seawater(5, 35, media.StandardPressurePa)
+	sea, err := media.Lookup(media.Conditions{Medium: media.KindSeawater, TemperatureC: 5, SalinityPractical: 35})
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -33,10 +36,16 @@ func Example_fish() {
 	fmt.Printf("sea water: %.2f kg/m³\n", sea.Density)
 	fmt.Printf("Re = %.3g (%s), St = %.2f (%s the 0.2–0.4 band)\n", r.Reynolds, r.Regime, r.Strouhal, r.StrouhalBand)
 	fmt.Printf("drag %.3g N (%s), power %.3g W (%s)\n", r.Drag.Chosen.Force, r.Drag.Chosen.Law, r.Power.Total, r.Power.Kind)
+	for _, d := range sea.Assumed {
+		fmt.Println("assumed:", d)
+	}
 	// Output:
 	// sea water: 1027.68 kg/m³
 	// Re = 1.14e+05 (inertial), St = 0.40 (within the 0.2–0.4 band)
 	// drag 0.0691 N (skin friction, turbulent on animal bodies), power 0.0415 W (towing)
+	// assumed: DepthM 0 m (not given)
+	// assumed: AltitudeM 0 m (not given)
+	// assumed: PressurePa 101325 Pa (not given)
 }
 
 // A quartz grain 20 µm across (2650 kg/m³) in water at 20 °C settles in

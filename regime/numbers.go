@@ -64,8 +64,9 @@ const (
 	RegimeInertial     = "inertial"     // Re ≥ 1000: inertia dominates, drag ∝ speed², wakes
 )
 
-// Regimes lists the regime names in order of Reynolds number.
-var Regimes = []string{RegimeViscous, RegimeIntermediate, RegimeInertial}
+// Regimes returns the regime names in order of Reynolds number, as a new
+// slice the caller may keep or change.
+func Regimes() []string { return []string{RegimeViscous, RegimeIntermediate, RegimeInertial} }
 
 // Classify returns the flow regime for a Reynolds number.
 func Classify(re float64) string {

@@ -209,12 +209,12 @@ func (o *calcOptions) inputs(keep bool, fill map[string]string) (inputs.Input, m
 		return in, media.Properties{}, usageError{err}
 	}
 	in.Organism.Gliding = o.gliding
-	if og := in.Organism; o.gliding && (in.Conditions.Medium != media.KindAir || math.IsNaN(og.Mass) || math.IsNaN(og.Span)) {
-		return in, media.Properties{}, usagef("--gliding needs a flyer in air with --mass and --span")
-	}
 	m, err := inputs.LookupMedium(in.Conditions, false)
 	if err != nil {
 		return in, m, lookupError(err)
+	}
+	if og := in.Organism; o.gliding && (!m.Gas || math.IsNaN(og.Mass) || math.IsNaN(og.Span)) {
+		return in, media.Properties{}, usagef("--gliding needs a flyer in air with --mass and --span")
 	}
 	return in, m, nil
 }

@@ -95,7 +95,7 @@ func uncertaintyFields(u *regime.Uncertainty) []report.Field {
 	fs = append(fs, band("strouhal", "  Strouhal number", u.Strouhal)...)
 	fs = append(fs, band("drag_N", "  drag (N)", u.Drag)...)
 	fs = append(fs, band("power_W", "  power (W)", u.Power)...)
-	for _, name := range regime.Regimes {
+	for _, name := range regime.Regimes() {
 		if p, ok := u.RegimeProbability[name]; ok {
 			fs = append(fs, report.F("p_"+name, "  probability "+name, p, 3))
 		}

@@ -401,7 +401,7 @@ func plural(n int, one, many string) string {
 // withoutShares drops the regime shares from the group summaries: the page
 // shows them in the regime table.
 func withoutShares(head []string, rows [][]string) ([]string, [][]string) {
-	n := len(regime.Regimes)
+	n := len(regime.Regimes())
 	for i := range rows {
 		rows[i] = rows[i][:len(rows[i])-n]
 	}

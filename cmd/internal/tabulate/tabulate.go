@@ -55,9 +55,12 @@ type Group struct {
 }
 
 // acc gathers one group's values: per metric (in the order of Metrics),
-// per regime (in the order of regime.Regimes) and per fit, in slices
+// per regime (in the order of regimeNames) and per fit, in slices
 // rather than maps, so that a group costs a few hundred bytes besides its
 // values. line is the line of the group's first row in the input.
+// regimeNames is regime.Regimes, asked once.
+var regimeNames = regime.Regimes()
+
 type acc struct {
 	id      string // key joined by NUL
 	key     []string
@@ -206,7 +209,7 @@ func (s *groupSet) insert(l *layout, k string, key []string, line int) (*acc, er
 	if s.limit > 0 && len(s.order) == s.limit {
 		return nil, TooManyGroups{By: l.spec.By}
 	}
-	a := &acc{id: k, key: key, line: line, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regime.Regimes)),
+	a := &acc{id: k, key: key, line: line, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regimeNames)),
 		fx: make([][]float64, len(l.fits)), fy: make([][]float64, len(l.fits))}
 	s.byKey[k] = a
 	s.order = append(s.order, a)
@@ -222,7 +225,7 @@ func (l *layout) add(a *acc, row []string) {
 		}
 	}
 	if l.regime < len(row) {
-		if i := slices.Index(regime.Regimes, row[l.regime]); i >= 0 {
+		if i := slices.Index(regimeNames, row[l.regime]); i >= 0 {
 			a.regimes[i]++
 		}
 	}
@@ -318,7 +321,7 @@ func (l *layout) summariseGroup(a *acc) Group {
 	for i, m := range Metrics {
 		g.Stats[m] = summarise(a.metric[i])
 	}
-	for i, r := range regime.Regimes {
+	for i, r := range regimeNames {
 		g.Regimes[r] = float64(a.regimes[i]) / float64(a.n)
 	}
 	for i, p := range l.spec.Fits {
