@@ -592,16 +592,7 @@ func thin(pts []RheometerPoint, m int) []RheometerPoint {
 func levenbergMarquardt(res func(theta, r []float64), theta []float64, n, maxIter int) ([]float64, float64) {
 	k := len(theta)
 	r, trial := make([]float64, n), make([]float64, n)
-	sumSq := func(r []float64) float64 {
-		s := 0.0
-		for _, v := range r {
-			s += v * v
-		}
-		if math.IsNaN(s) || math.IsInf(s, 0) {
-			return math.MaxFloat64
-		}
-		return s
-	}
+	sumSq := sumSquares
 	x := append([]float64{}, theta...)
 	res(x, r)
 	f := sumSq(r)
@@ -727,4 +718,18 @@ func standardErrors(sp modelSpec, p []float64, pts []RheometerPoint, ssr float64
 		}
 	}
 	return out
+}
+
+// sumSquares is the sum of squared residuals, or the largest float64 when
+// it is not finite, so that a search step into a region where the model
+// breaks down is never taken.
+func sumSquares(r []float64) float64 {
+	s := 0.0
+	for _, v := range r {
+		s += v * v
+	}
+	if math.IsNaN(s) || math.IsInf(s, 0) {
+		return math.MaxFloat64
+	}
+	return s
 }

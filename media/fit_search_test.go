@@ -17,14 +17,7 @@ func fullSearch(res func(theta, r []float64), n int, x0 []float64, maxIter int) 
 	r := make([]float64, n)
 	f := func(theta []float64) float64 {
 		res(theta, r)
-		s := 0.0
-		for _, v := range r {
-			s += v * v
-		}
-		if math.IsNaN(s) || math.IsInf(s, 0) {
-			return math.MaxFloat64
-		}
-		return s
+		return sumSquares(r)
 	}
 	best, bestF := append([]float64{}, x0...), f(x0)
 	p := optimize.Problem{Func: f}
