@@ -57,7 +57,11 @@ both unless --only says otherwise.
 The input is either batch output or a survey table, which is then run
 through batch first with the same flags. Groups are held in memory, at
 most 100000 of them (more, as with --by on a row id, is refused: a
-summary is for groups of many rows).`,
+summary is for groups of many rows). The values behind the medians,
+percentiles and fits are held in memory up to 64 MiB; past that they are
+written to an unnamed temporary file in the system's temporary folder
+($TMPDIR) and read back a group at a time, so memory stays bounded
+however many rows there are, with the same results.`,
 		Example: `  flowregime tabulate survey.csv --by taxon --fit power_W=mass --fit reynolds=length
   flowregime tabulate survey.csv --by taxon --fit power_W=mass --expect power_W=mass:0.75
   flowregime tabulate survey.csv --by taxon --format csv --only fits > fits.csv
@@ -147,7 +151,7 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		defer mu.Unlock()
 		fmt.Fprintf(s.Err, "flowregime: tabulate: rejected %s\n", rejectText(r))
 	}
-	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, reject)
+	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, 0, reject)
 	if err != nil {
 		return err
 	}
@@ -168,8 +172,9 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 
 // tabulateStream summarises in, running it through batch first unless it
 // already holds batch output. Rows that cannot be read or computed go to
-// reject, are counted and left out.
-func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), reject func(batch.Reject)) ([]tabulate.Group, int, error) {
+// reject, are counted and left out. Past budget values (0 for
+// tabulate.DefaultBudget) they go to a temporary file.
+func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), budget int, reject func(batch.Reject)) ([]tabulate.Group, int, error) {
 	sep := byte(',')
 	if cfg.InFormat == batch.TSV {
 		sep = '\t'
@@ -218,9 +223,15 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		rejected.Add(1)
 		reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
 	}
-	groups, err := tabulate.Chunks(header, next, sp, cfg.Workers, onReject)
+	groups, err := tabulate.Chunks(header, next, sp, tabulate.Options{Workers: cfg.Workers, Budget: budget}, onReject)
 	if rf := (readFailure{}); errors.As(err, &rf) {
 		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", rf.err)
+	}
+	if se := (tabulate.SpillError{}); errors.As(err, &se) {
+		if pr != nil {
+			pr.CloseWithError(err)
+		}
+		return nil, 0, fmt.Errorf("tabulate: %v", se.Err)
 	}
 	if err != nil {
 		if pr != nil {
