@@ -24,7 +24,12 @@ type tabulateOptions struct {
 	only    string
 	format  string
 	fitSet  bool // --fit was given
+	budget  int  // MiB of values held in memory (hidden --memory-budget)
 }
+
+// maxBudgetMiB is the largest --memory-budget: 1 TiB, far above any
+// memory, and small enough that its bytes fit an int.
+const maxBudgetMiB = 1 << 20
 
 // newTabulateCmd builds tabulate; a test passes runF to receive the
 // checked options instead of running.
@@ -75,6 +80,9 @@ however many rows there are, with the same results.`,
 			if err := o.checkOnly(o.fitSet); err != nil {
 				return err
 			}
+			if o.budget < 1 || o.budget > maxBudgetMiB {
+				return usagef("--memory-budget %d: give 1 to %d MiB", o.budget, maxBudgetMiB)
+			}
 			if runF != nil {
 				return runF(o)
 			}
@@ -86,6 +94,8 @@ however many rows there are, with the same results.`,
 	cmd.Flags().StringArrayVar(&o.expects, "expect", nil, "y=x:b: compare the fitted exponent of y against x with b (repeatable; default: isometry where y and x are lengths, areas or mass)")
 	cmd.Flags().StringVar(&o.only, "only", "", "write only the group summaries or only the scaling fits: summaries or fits (CSV holds one of them)")
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
+	cmd.Flags().IntVar(&o.budget, "memory-budget", tabulate.DefaultBudget*8>>20, "MiB of values held in memory before the rest go to a temporary file (for tests and measuring; results do not change)")
+	_ = cmd.Flags().MarkHidden("memory-budget")
 	o.bindInputs(cmd)
 	return cmd
 }
@@ -151,7 +161,7 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		defer mu.Unlock()
 		fmt.Fprintf(s.Err, "flowregime: tabulate: rejected %s\n", rejectText(r))
 	}
-	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, 0, reject)
+	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, o.budget<<20/8, reject)
 	if err != nil {
 		return err
 	}

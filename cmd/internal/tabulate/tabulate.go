@@ -180,8 +180,8 @@ func (s *groupSet) withBudget(budget int, tempFile func() (*os.File, error)) *gr
 	return s
 }
 
-// hold counts n more values in memory and spills them all past the
-// budget.
+// hold counts room for n more values in memory and spills them all past
+// the budget.
 func (s *groupSet) hold(n int) error {
 	s.held += n
 	if s.budget == 0 || s.held <= s.budget {
@@ -260,13 +260,12 @@ func (s *groupSet) insert(l *layout, k string, key []string, line int) (*acc, er
 	return a, nil
 }
 
-// add adds row to a and returns how many values it keeps.
-func (l *layout) add(a *acc, row []string) (kept int) {
+// add adds row to a.
+func (l *layout) add(a *acc, row []string) {
 	a.n++
 	for i, c := range l.metric {
 		if v, ok := number(row, c); ok {
 			a.metric[i].mem = append(a.metric[i].mem, v)
-			kept++
 		}
 	}
 	if l.regime < len(row) {
@@ -280,10 +279,20 @@ func (l *layout) add(a *acc, row []string) (kept int) {
 		if oky && okx {
 			a.fy[i].mem = append(a.fy[i].mem, y)
 			a.fx[i].mem = append(a.fx[i].mem, x)
-			kept += 2
 		}
 	}
-	return kept
+}
+
+// held is the room a's values take in memory, in values (the capacity
+// of its slices, which may be up to twice their length).
+func (a *acc) held() int {
+	n := 0
+	for _, ss := range [][]series{a.metric, a.fx, a.fy} {
+		for i := range ss {
+			n += cap(ss[i].mem)
+		}
+	}
+	return n
 }
 
 // merge adds the rows of partial p (which holds every value in memory),
@@ -299,17 +308,13 @@ func (s *groupSet) merge(l *layout, p *groupSet) (int, error) {
 			}
 			s.byKey[pa.id] = pa
 			s.order = append(s.order, pa)
-			for _, ss := range [][]series{pa.metric, pa.fx, pa.fy} {
-				for i := range ss {
-					added += len(ss[i].mem)
-				}
-			}
+			added += pa.held()
 			continue
 		}
+		before := a.held()
 		a.n += pa.n
 		for i := range a.metric {
 			a.metric[i].mem = append(a.metric[i].mem, pa.metric[i].mem...)
-			added += len(pa.metric[i].mem)
 		}
 		for i := range a.regimes {
 			a.regimes[i] += pa.regimes[i]
@@ -317,8 +322,8 @@ func (s *groupSet) merge(l *layout, p *groupSet) (int, error) {
 		for i := range a.fx {
 			a.fx[i].mem = append(a.fx[i].mem, pa.fx[i].mem...)
 			a.fy[i].mem = append(a.fy[i].mem, pa.fy[i].mem...)
-			added += 2 * len(pa.fx[i].mem)
 		}
+		added += a.held() - before
 	}
 	return 0, s.hold(added)
 }
@@ -344,7 +349,9 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		if err != nil {
 			return nil, err
 		}
-		if err := groups.hold(l.add(a, row)); err != nil {
+		before := a.held()
+		l.add(a, row)
+		if err := groups.hold(a.held() - before); err != nil {
 			return nil, err
 		}
 	}
