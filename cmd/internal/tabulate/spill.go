@@ -1,9 +1,12 @@
 package tabulate
 
 import (
+	"bufio"
+	"encoding/binary"
 	"fmt"
 	"io"
 	"os"
+	"slices"
 	"unsafe"
 )
 
@@ -33,34 +36,44 @@ func (e SpillError) Unwrap() error { return e.Err }
 
 // extent is a run of values written to the spill file.
 type extent struct {
-	off int64 // byte offset
+	off int64 // byte offset of the first value
 	n   int   // values
 }
 
 // series is one column of a group's values in input order: those written
-// to the spill file first (ext, spilled of them), then those in memory.
+// to the spill file first (spilled of them, in blocks chained backwards
+// from the one at last), then those in memory. Its size does not grow
+// with the blocks.
 type series struct {
 	mem     []float64
-	ext     []extent
+	last    int64 // offset of the last block's head; 0 for none
 	spilled int
 }
 
 func (s *series) len() int { return s.spilled + len(s.mem) }
 
-// spillFile is the temporary file values are written to past the budget.
+// blockHead is the head of a block in the spill file: the offset of the
+// series' previous block's head (0 for none) and the number of values.
+const blockHead = 16
+
+// spillFile is the temporary file values are written to past the budget:
+// blocks of a head and values, appended through a buffer (flush before
+// reading), starting past one unused head so that offset 0 means none.
 type spillFile struct {
 	f    *os.File
 	name string // removed on close, "" when already unlinked
-	size int64
+	w    *bufio.Writer
+	size int64 // bytes written, buffered ones included
 }
 
-// newTempFile makes a file in os.TempDir() and unlinks it at once where
-// the system allows it (Unix), so that no exit, a signal or a crash
-// included, can leave it behind; elsewhere close removes it.
+// newTempFile makes a file in os.TempDir().
 func newTempFile() (*os.File, error) {
 	return os.CreateTemp("", "flowregime-tabulate-*")
 }
 
+// openSpill makes the spill file and unlinks it at once where the system
+// allows it (Unix), so that no exit, a signal or a crash included, can
+// leave it behind; elsewhere close removes it.
 func openSpill(create func() (*os.File, error)) (*spillFile, error) {
 	if create == nil {
 		create = newTempFile
@@ -69,9 +82,13 @@ func openSpill(create func() (*os.File, error)) (*spillFile, error) {
 	if err != nil {
 		return nil, SpillError{fmt.Errorf("cannot make a temporary file for values past the memory budget: %v", err)}
 	}
-	sp := &spillFile{f: f, name: f.Name()}
+	sp := &spillFile{f: f, name: f.Name(), w: bufio.NewWriterSize(f, 1<<20), size: blockHead}
 	if os.Remove(sp.name) == nil {
 		sp.name = ""
+	}
+	if _, err := sp.w.Write(make([]byte, blockHead)); err != nil {
+		sp.close()
+		return nil, sp.writeError(err)
 	}
 	return sp, nil
 }
@@ -87,30 +104,74 @@ func (sp *spillFile) close() {
 	}
 }
 
-// spill appends s's values in memory to the file and frees them.
+func (sp *spillFile) writeError(err error) error {
+	return SpillError{fmt.Errorf("cannot write values past the memory budget to a temporary file: %v", err)}
+}
+
+// spill appends s's values in memory to the file as a block and frees
+// them.
 func (sp *spillFile) spill(s *series) error {
 	if len(s.mem) == 0 {
 		return nil
 	}
+	var head [blockHead]byte
+	binary.LittleEndian.PutUint64(head[:8], uint64(s.last))
+	binary.LittleEndian.PutUint64(head[8:], uint64(len(s.mem)))
 	b := unsafe.Slice((*byte)(unsafe.Pointer(unsafe.SliceData(s.mem))), len(s.mem)*8)
-	if _, err := sp.f.WriteAt(b, sp.size); err != nil {
-		return SpillError{fmt.Errorf("cannot write values past the memory budget to a temporary file: %v", err)}
+	if _, err := sp.w.Write(head[:]); err != nil {
+		return sp.writeError(err)
 	}
-	s.ext = append(s.ext, extent{off: sp.size, n: len(s.mem)})
+	if _, err := sp.w.Write(b); err != nil {
+		return sp.writeError(err)
+	}
+	s.last = sp.size
 	s.spilled += len(s.mem)
-	sp.size += int64(len(b))
+	sp.size += blockHead + int64(len(b))
 	s.mem = nil
 	return nil
+}
+
+// flush writes the buffered blocks to the file.
+func (sp *spillFile) flush() error {
+	if err := sp.w.Flush(); err != nil {
+		return sp.writeError(err)
+	}
+	return nil
+}
+
+func readError(err error) error {
+	if err == io.EOF {
+		err = io.ErrUnexpectedEOF
+	}
+	return SpillError{fmt.Errorf("cannot read back values spilled to a temporary file: %v", err)}
+}
+
+// extents are s's blocks in the file, in order, found by following the
+// chain back from the last.
+func (sp *spillFile) extents(s *series) ([]extent, error) {
+	var ext []extent
+	var head [blockHead]byte
+	for off, total := s.last, 0; off != 0; {
+		if _, err := sp.f.ReadAt(head[:], off); err != nil {
+			return nil, readError(err)
+		}
+		n := int(binary.LittleEndian.Uint64(head[8:]))
+		total += n
+		if n <= 0 || total > s.spilled {
+			return nil, readError(fmt.Errorf("block at byte %d is damaged", off))
+		}
+		ext = append(ext, extent{off: off + blockHead, n: n})
+		off = int64(binary.LittleEndian.Uint64(head[:8]))
+	}
+	slices.Reverse(ext)
+	return ext, nil
 }
 
 // read fills v (len(v) ≤ e.n − from) with the values of e from index from.
 func (sp *spillFile) read(e extent, from int, v []float64) error {
 	b := unsafe.Slice((*byte)(unsafe.Pointer(unsafe.SliceData(v))), len(v)*8)
 	if _, err := sp.f.ReadAt(b, e.off+int64(from)*8); err != nil {
-		if err == io.EOF {
-			err = io.ErrUnexpectedEOF
-		}
-		return SpillError{fmt.Errorf("cannot read back values spilled to a temporary file: %v", err)}
+		return readError(err)
 	}
 	return nil
 }
@@ -120,8 +181,12 @@ func (sp *spillFile) load(s *series) ([]float64, error) {
 	if s.spilled == 0 {
 		return s.mem, nil
 	}
+	ext, err := sp.extents(s)
+	if err != nil {
+		return nil, err
+	}
 	v := make([]float64, 0, s.len())
-	for _, e := range s.ext {
+	for _, e := range ext {
 		if err := sp.read(e, 0, v[len(v):len(v)+e.n]); err != nil {
 			return nil, err
 		}
@@ -137,8 +202,18 @@ const blockValues = 1 << 15
 // (a series of the same length, spilled alike), in order, a block at a
 // time.
 func (sp *spillFile) each(xs, ys *series, fn func(x, y []float64)) error {
+	xext, err := sp.extents(xs)
+	if err != nil {
+		return err
+	}
+	var yext []extent
+	if ys != nil {
+		if yext, err = sp.extents(ys); err != nil {
+			return err
+		}
+	}
 	var bx, by []float64
-	for i, e := range xs.ext {
+	for i, e := range xext {
 		for from := 0; from < e.n; from += blockValues {
 			n := min(blockValues, e.n-from)
 			if bx == nil {
@@ -151,7 +226,7 @@ func (sp *spillFile) each(xs, ys *series, fn func(x, y []float64)) error {
 				return err
 			}
 			if ys != nil {
-				if err := sp.read(ys.ext[i], from, by[:n]); err != nil {
+				if err := sp.read(yext[i], from, by[:n]); err != nil {
 					return err
 				}
 				fn(bx[:n], by[:n])

@@ -204,7 +204,7 @@ func (s *groupSet) hold(n int) error {
 		}
 	}
 	s.held = 0
-	return nil
+	return s.spill.flush()
 }
 
 // close removes the spill file, if any.
