@@ -23,7 +23,7 @@ type Options struct {
 	// to a temporary file; 0 for DefaultBudget. Tests set it small.
 	Budget int
 	// TempFile makes the spill file; nil for an unnamed file in
-	// os.TempDir() (see newTempFile).
+	// os.TempDir(), unlinked at once where the system allows (openSpill).
 	TempFile func() (*os.File, error)
 }
 
