@@ -213,7 +213,7 @@ func TestTabulateOptions(t *testing.T) {
 		// uncertainty flags.
 		b := batchDefaults()
 		b.firstLine, b.unc = 0, uncertaintyFlags{}
-		return tabulateOptions{batchOptions: b, format: report.FormatTable}
+		return tabulateOptions{batchOptions: b, format: report.FormatTable, budget: 64}
 	}
 	checkOptionCases(t, newTabulateCmd, defaults, []optionCase[tabulateOptions]{
 		{line: "tabulate survey.csv --by taxon --fit power_W=mass --fit reynolds=length", want: func(o *tabulateOptions) {
@@ -225,6 +225,8 @@ func TestTabulateOptions(t *testing.T) {
 		{line: "tabulate - --by site --format csv --only fits --fit power_W=mass", want: func(o *tabulateOptions) {
 			o.input, o.by, o.format, o.only, o.fits, o.fitSet = "-", "site", report.FormatCSV, "fits", []string{"power_W=mass"}, true
 		}},
+		{line: "tabulate s.csv --memory-budget 8", want: func(o *tabulateOptions) { o.input, o.budget = "s.csv", 8 }},
+		{line: "tabulate s.csv --memory-budget 0", errHas: "--memory-budget"},
 		{line: "tabulate s.csv --fit power_W=mass --format csv", errHas: "--only"},
 		{line: "tabulate s.csv --format pdf", errHas: "pdf"},
 		{line: "tabulate", errHas: "tabulate"},

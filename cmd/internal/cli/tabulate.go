@@ -24,7 +24,12 @@ type tabulateOptions struct {
 	only    string
 	format  string
 	fitSet  bool // --fit was given
+	budget  int  // MiB of values held in memory (hidden --memory-budget)
 }
+
+// maxBudgetMiB is the largest --memory-budget: 1 TiB, far above any
+// memory, and small enough that its bytes fit an int.
+const maxBudgetMiB = 1 << 20
 
 // newTabulateCmd builds tabulate; a test passes runF to receive the
 // checked options instead of running.
@@ -57,7 +62,11 @@ both unless --only says otherwise.
 The input is either batch output or a survey table, which is then run
 through batch first with the same flags. Groups are held in memory, at
 most 100000 of them (more, as with --by on a row id, is refused: a
-summary is for groups of many rows).`,
+summary is for groups of many rows). The values behind the medians,
+percentiles and fits are held in memory up to 64 MiB; past that they are
+written to an unnamed temporary file in the system's temporary folder
+($TMPDIR) and read back a group at a time, so memory stays bounded
+however many rows there are, with the same results.`,
 		Example: `  flowregime tabulate survey.csv --by taxon --fit power_W=mass --fit reynolds=length
   flowregime tabulate survey.csv --by taxon --fit power_W=mass --expect power_W=mass:0.75
   flowregime tabulate survey.csv --by taxon --format csv --only fits > fits.csv
@@ -71,6 +80,9 @@ summary is for groups of many rows).`,
 			if err := o.checkOnly(o.fitSet); err != nil {
 				return err
 			}
+			if o.budget < 1 || o.budget > maxBudgetMiB {
+				return usagef("--memory-budget %d: give 1 to %d MiB", o.budget, maxBudgetMiB)
+			}
 			if runF != nil {
 				return runF(o)
 			}
@@ -82,6 +94,8 @@ summary is for groups of many rows).`,
 	cmd.Flags().StringArrayVar(&o.expects, "expect", nil, "y=x:b: compare the fitted exponent of y against x with b (repeatable; default: isometry where y and x are lengths, areas or mass)")
 	cmd.Flags().StringVar(&o.only, "only", "", "write only the group summaries or only the scaling fits: summaries or fits (CSV holds one of them)")
 	cmd.Flags().StringVar(&o.format, "format", report.FormatTable, "output: table, json or csv")
+	cmd.Flags().IntVar(&o.budget, "memory-budget", tabulate.DefaultBudget*8>>20, "MiB of values held in memory before the rest go to a temporary file (for tests and measuring; results do not change)")
+	_ = cmd.Flags().MarkHidden("memory-budget")
 	o.bindInputs(cmd)
 	return cmd
 }
@@ -147,7 +161,7 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 		defer mu.Unlock()
 		fmt.Fprintf(s.Err, "flowregime: tabulate: rejected %s\n", rejectText(r))
 	}
-	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, reject)
+	groups, rejected, err := tabulateStream(ctx, in, cfg, o.spec, o.budget<<20/8, reject)
 	if err != nil {
 		return err
 	}
@@ -168,8 +182,9 @@ func runTabulate(ctx context.Context, o *tabulateOptions, s Streams) error {
 
 // tabulateStream summarises in, running it through batch first unless it
 // already holds batch output. Rows that cannot be read or computed go to
-// reject, are counted and left out.
-func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), reject func(batch.Reject)) ([]tabulate.Group, int, error) {
+// reject, are counted and left out. Past budget values (0 for
+// tabulate.DefaultBudget) they go to a temporary file.
+func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec func([]string) (tabulate.Spec, error), budget int, reject func(batch.Reject)) ([]tabulate.Group, int, error) {
 	sep := byte(',')
 	if cfg.InFormat == batch.TSV {
 		sep = '\t'
@@ -218,9 +233,15 @@ func tabulateStream(ctx context.Context, in io.Reader, cfg batch.Config, spec fu
 		rejected.Add(1)
 		reject(batch.Reject{Line: rec.Line, Reason: rec.Err.Error(), Record: rec.Text})
 	}
-	groups, err := tabulate.Chunks(header, next, sp, cfg.Workers, onReject)
+	groups, err := tabulate.Chunks(header, next, sp, tabulate.Options{Workers: cfg.Workers, Budget: budget}, onReject)
 	if rf := (readFailure{}); errors.As(err, &rf) {
 		return nil, 0, fmt.Errorf("tabulate: cannot read the table: %v", rf.err)
+	}
+	if se := (tabulate.SpillError{}); errors.As(err, &se) {
+		if pr != nil {
+			pr.CloseWithError(err)
+		}
+		return nil, 0, fmt.Errorf("tabulate: %v", se.Err)
 	}
 	if err != nil {
 		if pr != nil {

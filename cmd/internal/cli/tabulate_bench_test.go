@@ -42,7 +42,7 @@ func BenchmarkTabulate(b *testing.B) {
 	b.SetBytes(int64(len(data)))
 	b.ReportAllocs()
 	for b.Loop() {
-		groups, rejected, err := tabulateStream(context.Background(), bytes.NewReader(data), batch.Config{}, spec, func(batch.Reject) {})
+		groups, rejected, err := tabulateStream(context.Background(), bytes.NewReader(data), batch.Config{}, spec, 0, func(batch.Reject) {})
 		if err != nil || rejected != 0 || len(groups) != 8 {
 			b.Fatalf("%d groups, %d rejected, %v", len(groups), rejected, err)
 		}

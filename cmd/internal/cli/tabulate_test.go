@@ -1,12 +1,16 @@
 package cli
 
 import (
+	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"os"
+	"path/filepath"
 	"regexp"
 	"strings"
 	"testing"
+
+	"github.com/flowregime/flowregime/cmd/internal/survey"
 )
 
 const lakesideCSV = "../../../testdata/batch/lakeside.csv"
@@ -44,6 +48,8 @@ func TestTabulateUsage(t *testing.T) {
 		{"--fit", "power_W=mass", "--expect", "power_W=mass"},
 		{"--fit", "power_W=mass", "--expect", "power_W=mass:three"},
 		{"--fit", "power_W=mass", "--expect", "drag_N=mass:1"},
+		{"--memory-budget", "0"},
+		{"--memory-budget", "2000000"}, // past 1 TiB
 	}
 	for _, args := range cases {
 		out, errs, code := run(t, append([]string{"tabulate", lakesideCSV}, args...)...)
@@ -124,5 +130,39 @@ func TestTabulateNoRows(t *testing.T) {
 	out, errs, code := run(t, "tabulate", path)
 	if code != 0 || !strings.Contains(out, "No rows to summarise") || strings.Contains(out, "Scaling laws") {
 		t.Errorf("exit %d: %q %q", code, out, errs)
+	}
+}
+
+// Past --memory-budget the values go to a temporary file in $TMPDIR and
+// the output is the same as in memory; the file is gone afterwards. With
+// $TMPDIR missing, the run fails in one line saying so (which shows that
+// 1 MiB, 131072 values, is passed on 30000 survey rows).
+func TestTabulateMemoryBudget(t *testing.T) {
+	var survey30k bytes.Buffer
+	if err := survey.Generate(&survey30k, 30000, 3); err != nil {
+		t.Fatal(err)
+	}
+	in := filepath.Join(t.TempDir(), "survey.csv")
+	if err := os.WriteFile(in, survey30k.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	args := []string{"tabulate", in, "--by", "taxon", "--format", "json"}
+	want, errs, code := run(t, args...)
+	if code != 0 {
+		t.Fatalf("in memory: exit %d, %s", code, errs)
+	}
+	tmp := t.TempDir()
+	t.Setenv("TMPDIR", tmp)
+	got, errs, code := run(t, append(args, "--memory-budget", "1")...)
+	if code != 0 || got != want {
+		t.Errorf("spilled: exit %d, %s; same output: %v", code, errs, got == want)
+	}
+	if left, _ := os.ReadDir(tmp); len(left) != 0 {
+		t.Errorf("%d files left in $TMPDIR", len(left))
+	}
+	t.Setenv("TMPDIR", filepath.Join(tmp, "missing"))
+	out, errs, code := run(t, append(args, "--memory-budget", "1")...)
+	if code != ExitFailure || out != "" || strings.Count(errs, "\n") != 1 || !strings.Contains(errs, "temporary file") {
+		t.Errorf("no $TMPDIR: exit %d, stdout %q, stderr %q", code, out, errs)
 	}
 }

@@ -19,14 +19,16 @@ type partial struct {
 // Chunks is Tabulate for a table read a chunk at a time (next is
 // batch.Reader.NextChunk, io.EOF after the last): workers goroutines split
 // and sum chunks at once, and the sums are merged in input order, so the
-// result is Tabulate's on the same rows. reject gets each record that
+// result is Tabulate's on the same rows. Values past opt.Budget are
+// spilled to a temporary file, removed before Chunks returns. reject gets each record that
 // cannot be read (Err set), in input order; those past a refused grouping
 // are not passed on. An error of next is returned as it is.
-func Chunks(header []string, next func() (batch.Chunk, error), spec Spec, workers int, reject func(batch.Record)) ([]Group, error) {
+func Chunks(header []string, next func() (batch.Chunk, error), spec Spec, opt Options, reject func(batch.Record)) ([]Group, error) {
 	l, err := newLayout(header, spec)
 	if err != nil {
 		return nil, err
 	}
+	workers := opt.Workers
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
@@ -72,7 +74,8 @@ func Chunks(header []string, next func() (batch.Chunk, error), spec Spec, worker
 			}
 		}()
 	}
-	groups := newGroupSet(MaxGroups)
+	groups := newGroupSet(MaxGroups).withBudget(opt.Budget, opt.TempFile)
+	defer groups.close()
 	waiting := map[int]partial{}
 	for want := 0; running > 0; {
 		p := <-results
@@ -94,7 +97,7 @@ func Chunks(header []string, next func() (batch.Chunk, error), spec Spec, worker
 		return nil, err
 	default:
 	}
-	return l.summarise(groups), nil
+	return l.summarise(groups)
 }
 
 // sumChunk sums the records of one chunk. A panic becomes the partial's

@@ -91,7 +91,7 @@ func parallel(t *testing.T, data []byte, spec Spec, workers int) ([]Group, []int
 		t.Fatal(err)
 	}
 	var rejected []int
-	groups, err := Chunks(r.Header(), r.NextChunk, spec, workers, func(rec batch.Record) { rejected = append(rejected, rec.Line) })
+	groups, err := Chunks(r.Header(), r.NextChunk, spec, Options{Workers: workers}, func(rec batch.Record) { rejected = append(rejected, rec.Line) })
 	return groups, rejected, err
 }
 
@@ -158,11 +158,11 @@ func TestChunksGroupBound(t *testing.T) {
 func TestChunksReadFailure(t *testing.T) {
 	failure := errors.New("disk gone")
 	header := []string{"reynolds", "strouhal", "drag_N", "power_W", "regime"}
-	_, err := Chunks(header, func() (batch.Chunk, error) { return batch.Chunk{}, failure }, Spec{}, 2, func(batch.Record) {})
+	_, err := Chunks(header, func() (batch.Chunk, error) { return batch.Chunk{}, failure }, Spec{}, Options{Workers: 2}, func(batch.Record) {})
 	if !errors.Is(err, failure) {
 		t.Errorf("got %v", err)
 	}
-	_, err = Chunks(header, func() (batch.Chunk, error) { return batch.Chunk{}, io.EOF }, Spec{}, 2, func(batch.Record) {})
+	_, err = Chunks(header, func() (batch.Chunk, error) { return batch.Chunk{}, io.EOF }, Spec{}, Options{Workers: 2}, func(batch.Record) {})
 	if err != nil {
 		t.Errorf("empty table: %v", err)
 	}

@@ -4,9 +4,11 @@
 package tabulate
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"runtime"
 	"slices"
 	"strings"
@@ -66,9 +68,9 @@ type acc struct {
 	key     []string
 	n       int
 	line    int
-	metric  [][]float64
+	metric  []series
 	regimes []int
-	fx, fy  [][]float64
+	fx, fy  []series
 }
 
 // MaxGroups bounds the number of groups. A summary is for groups of many
@@ -154,17 +156,62 @@ func newLayout(header []string, spec Spec) (*layout, error) {
 }
 
 // groupSet holds accumulators by key, in the order their groups first
-// appear.
+// appear. With a budget, values past it go to a spill file.
 type groupSet struct {
 	byKey map[string]*acc
 	order []*acc
 	limit int    // most groups allowed; 0 for no limit
 	buf   []byte // the key being looked up
+
+	budget   int // most values held in memory; 0 for no limit
+	held     int // values held in memory
+	spill    *spillFile
+	tempFile func() (*os.File, error)
 }
 
 func newGroupSet(limit int) *groupSet {
 	return &groupSet{byKey: map[string]*acc{}, limit: limit}
 }
+
+// withBudget sets the budget of values held in memory (DefaultBudget for
+// 0) and how the spill file is made.
+func (s *groupSet) withBudget(budget int, tempFile func() (*os.File, error)) *groupSet {
+	if budget <= 0 {
+		budget = DefaultBudget
+	}
+	s.budget, s.tempFile = budget, tempFile
+	return s
+}
+
+// hold counts room for n more values in memory and spills them all past
+// the budget.
+func (s *groupSet) hold(n int) error {
+	s.held += n
+	if s.budget == 0 || s.held <= s.budget {
+		return nil
+	}
+	if s.spill == nil {
+		sp, err := openSpill(s.tempFile)
+		if err != nil {
+			return err
+		}
+		s.spill = sp
+	}
+	for _, a := range s.order {
+		for _, ss := range [][]series{a.metric, a.fx, a.fy} {
+			for i := range ss {
+				if err := s.spill.spill(&ss[i]); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	s.held = 0
+	return s.spill.flush()
+}
+
+// close removes the spill file, if any.
+func (s *groupSet) close() { s.spill.close() }
 
 // lookupKey is row's group key: its by fields joined by NUL, pointing
 // into row or into s.buf (valid until the next call).
@@ -209,8 +256,8 @@ func (s *groupSet) insert(l *layout, k string, key []string, line int) (*acc, er
 	if s.limit > 0 && len(s.order) == s.limit {
 		return nil, TooManyGroups{By: l.spec.By}
 	}
-	a := &acc{id: k, key: key, line: line, metric: make([][]float64, len(Metrics)), regimes: make([]int, len(regimeNames)),
-		fx: make([][]float64, len(l.fits)), fy: make([][]float64, len(l.fits))}
+	a := &acc{id: k, key: key, line: line, metric: make([]series, len(Metrics)), regimes: make([]int, len(regimeNames)),
+		fx: make([]series, len(l.fits)), fy: make([]series, len(l.fits))}
 	s.byKey[k] = a
 	s.order = append(s.order, a)
 	return a, nil
@@ -221,7 +268,7 @@ func (l *layout) add(a *acc, row []string) {
 	a.n++
 	for i, c := range l.metric {
 		if v, ok := number(row, c); ok {
-			a.metric[i] = append(a.metric[i], v)
+			a.metric[i].mem = append(a.metric[i].mem, v)
 		}
 	}
 	if l.regime < len(row) {
@@ -233,15 +280,29 @@ func (l *layout) add(a *acc, row []string) {
 		y, oky := number(row, fc[0])
 		x, okx := number(row, fc[1])
 		if oky && okx {
-			a.fy[i] = append(a.fy[i], y)
-			a.fx[i] = append(a.fx[i], x)
+			a.fy[i].mem = append(a.fy[i].mem, y)
+			a.fx[i].mem = append(a.fx[i].mem, x)
 		}
 	}
 }
 
-// merge adds the rows of partial p, which come after those of s, to s.
-// On TooManyGroups it returns the line of the first row past the limit.
+// held is the room a's values take in memory, in values (the capacity
+// of its slices, which may be up to twice their length).
+func (a *acc) held() int {
+	n := 0
+	for _, ss := range [][]series{a.metric, a.fx, a.fy} {
+		for i := range ss {
+			n += cap(ss[i].mem)
+		}
+	}
+	return n
+}
+
+// merge adds the rows of partial p (which holds every value in memory),
+// which come after those of s, to s. On TooManyGroups it returns the line
+// of the first row past the limit.
 func (s *groupSet) merge(l *layout, p *groupSet) (int, error) {
+	added := 0
 	for _, pa := range p.order {
 		a, ok := s.byKey[pa.id]
 		if !ok {
@@ -250,21 +311,24 @@ func (s *groupSet) merge(l *layout, p *groupSet) (int, error) {
 			}
 			s.byKey[pa.id] = pa
 			s.order = append(s.order, pa)
+			added += pa.held()
 			continue
 		}
+		before := a.held()
 		a.n += pa.n
 		for i := range a.metric {
-			a.metric[i] = append(a.metric[i], pa.metric[i]...)
+			a.metric[i].mem = append(a.metric[i].mem, pa.metric[i].mem...)
 		}
 		for i := range a.regimes {
 			a.regimes[i] += pa.regimes[i]
 		}
 		for i := range a.fx {
-			a.fx[i] = append(a.fx[i], pa.fx[i]...)
-			a.fy[i] = append(a.fy[i], pa.fy[i]...)
+			a.fx[i].mem = append(a.fx[i].mem, pa.fx[i].mem...)
+			a.fy[i].mem = append(a.fy[i].mem, pa.fy[i].mem...)
 		}
+		added += a.held() - before
 	}
-	return 0, nil
+	return 0, s.hold(added)
 }
 
 // Tabulate reads rows (header first) of a batch output and summarises them.
@@ -274,7 +338,8 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 	if err != nil {
 		return nil, err
 	}
-	groups := newGroupSet(MaxGroups)
+	groups := newGroupSet(MaxGroups).withBudget(0, nil)
+	defer groups.close()
 	for {
 		row, err := next()
 		if err == io.EOF {
@@ -287,23 +352,31 @@ func Tabulate(header []string, next func() ([]string, error), spec Spec) ([]Grou
 		if err != nil {
 			return nil, err
 		}
+		before := a.held()
 		l.add(a, row)
+		if err := groups.hold(a.held() - before); err != nil {
+			return nil, err
+		}
 	}
-	return l.summarise(groups), nil
+	return l.summarise(groups)
 }
 
 // summarise turns the accumulators into groups sorted by key, the groups
-// shared out among GOMAXPROCS goroutines.
-func (l *layout) summarise(s *groupSet) []Group {
+// shared out among GOMAXPROCS goroutines. Each loads at most a share of
+// the budget of spilled values at once.
+func (l *layout) summarise(s *groupSet) ([]Group, error) {
 	accs := slices.Clone(s.order)
 	slices.SortFunc(accs, func(a, b *acc) int { return strings.Compare(a.id, b.id) })
 	out := make([]Group, len(accs))
+	errs := make([]error, len(accs))
+	workers := min(runtime.GOMAXPROCS(0), len(accs))
+	limit := s.budget / max(workers, 1)
 	work := make(chan int)
 	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(accs)) {
+	for range workers {
 		wg.Go(func() {
 			for i := range work {
-				out[i] = l.summariseGroup(accs[i])
+				out[i], errs[i] = l.summariseGroup(accs[i], s.spill, limit)
 			}
 		})
 	}
@@ -312,22 +385,68 @@ func (l *layout) summarise(s *groupSet) []Group {
 	}
 	close(work)
 	wg.Wait()
-	return out
+	if err := errors.Join(errs...); err != nil {
+		return nil, err
+	}
+	return out, nil
 }
 
-// summariseGroup is one group's summary. It reorders a's values.
-func (l *layout) summariseGroup(a *acc) Group {
+// summariseGroup is one group's summary. It reorders a's values in
+// memory. Spilled series of at most limit values (pairs: limit/2) are
+// loaded whole; longer ones are summarised in passes over the file.
+func (l *layout) summariseGroup(a *acc, sp *spillFile, limit int) (Group, error) {
 	g := Group{Key: a.key, N: a.n, Stats: map[string]Stat{}, Regimes: map[string]float64{}}
 	for i, m := range Metrics {
-		g.Stats[m] = summarise(a.metric[i])
+		st, err := sp.stat(&a.metric[i], limit)
+		if err != nil {
+			return g, err
+		}
+		g.Stats[m] = st
 	}
 	for i, r := range regimeNames {
 		g.Regimes[r] = float64(a.regimes[i]) / float64(a.n)
 	}
 	for i, p := range l.spec.Fits {
-		g.Fits = append(g.Fits, FitResult{Pair: p, Fit: ScalingFit(a.fx[i], a.fy[i])})
+		f, err := sp.fit(&a.fx[i], &a.fy[i], limit/2)
+		if err != nil {
+			return g, err
+		}
+		g.Fits = append(g.Fits, FitResult{Pair: p, Fit: f})
 	}
-	return g
+	return g, nil
+}
+
+// stat is summarise of s's values.
+func (sp *spillFile) stat(s *series, limit int) (Stat, error) {
+	if s.spilled == 0 || s.len() <= limit {
+		v, err := sp.load(s)
+		return summarise(v), err
+	}
+	st := Stat{N: s.len()}
+	for _, q := range []struct {
+		p   float64
+		out *float64
+	}{{0.95, &st.P95}, {0.5, &st.Median}, {0.05, &st.P5}} {
+		v, err := sp.selectSpilled(s, empiricalIndex(q.p, st.N), limit)
+		if err != nil {
+			return st, err
+		}
+		*q.out = v
+	}
+	return st, nil
+}
+
+// fit is ScalingFit of the pairs of xs and ys.
+func (sp *spillFile) fit(xs, ys *series, limit int) (Fit, error) {
+	if xs.spilled == 0 || xs.len() <= limit {
+		x, err := sp.load(xs)
+		if err != nil {
+			return Fit{}, err
+		}
+		y, err := sp.load(ys)
+		return ScalingFit(x, y), err
+	}
+	return streamFit(logPairs(func(fn func(x, y []float64)) error { return sp.each(xs, ys, fn) }))
 }
 
 // number reads column c of row: a plain decimal number at once (as
