@@ -59,3 +59,28 @@ func TestLocalMediaMatchesLookup(t *testing.T) {
 		}
 	}
 }
+
+// The shared cache spreads keys over its shards whichever condition
+// varies: 1600 keys that differ in one condition only (each of the eight
+// in turn, and the medium) give every shard at least half its fair share
+// (100). A hash that ignores a condition puts all 1600 in one shard.
+// Common practice for hash tables, no source.
+func TestSharedCacheSpreadsEveryCondition(t *testing.T) {
+	mc := newMediumCache(newMediumFiles(&Config{}))
+	for word := range len(cacheKey{}) {
+		var counts [len(mc.shards)]int
+		for i := range 1600 {
+			k := mc.key(media.Unset(media.KindSeawater))
+			k[word] = math.Float64bits(float64(i) / 10)
+			if word == 0 {
+				k[0] = uint64(i + 1)
+			}
+			counts[shardOf(&k)]++
+		}
+		for s, n := range counts {
+			if n < 50 {
+				t.Errorf("key word %d: shard %d holds %d of 1600 keys; want ≥ 50", word, s, n)
+			}
+		}
+	}
+}

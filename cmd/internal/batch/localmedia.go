@@ -21,22 +21,54 @@ type localMedia struct {
 	p      media.Properties // the last hit, rebuilt; valid until the next lookup
 }
 
-// localKey is a condition in compact form: the medium id and which of the
-// eight conditions are given (bits 8–15) in word 0, their values in order.
+// localKey is a condition in compact form: its medium and which
+// conditions are given in w0, the given conditions' values in order.
 type localKey struct {
-	w0 uint64
+	w0 condWord
 	v  [3]uint64
 }
 
+// condWord packs into one word a built-in medium, which of the eight
+// conditions are given and, in a table slot only, how many out-of-range
+// warnings the properties carry:
+//
+//	bits  0–7   medium: 1 air, 2 fresh water, 3 sea water (0: an empty slot)
+//	bits  8–15  one bit per given condition, in mediumCache.key's order
+//	bits 16–23  the warning count (slots only)
+type condWord uint64
+
+const (
+	givenShift = 8
+	warnShift  = 16
+	keyMask    = 1<<warnShift - 1 // the medium and the given conditions
+)
+
+// medium is the built-in medium's name ("" for an empty slot).
+func (w condWord) medium() string { return builtinName[w&0xff] }
+
+// given marks condition i (0–7) as given.
+func (w condWord) given(i int) condWord { return w | 1<<(givenShift+i) }
+
+// key is the word without the warning count, as a lookup's key has it.
+func (w condWord) key() condWord { return w & keyMask }
+
+// warnings is the number of out-of-range warnings a slot's properties carry.
+func (w condWord) warnings() int { return int(w >> warnShift) }
+
+// withWarnings is the word with n warnings (n ≤ len(outOfRange)).
+func (w condWord) withWarnings(n int) condWord { return w.key() | condWord(n)<<warnShift }
+
+// empty reports whether a slot holds nothing.
+func (w condWord) empty() bool { return w == 0 }
+
 type mediaSlot struct {
-	key                localKey // key.w0 == 0 marks an empty slot
+	key                localKey // key.w0 holds the warning count too
 	tempC, rho, mu, nu float64
 }
 
 const (
 	localFirst = 1 << 12 // slots at first
 	probes     = 4       // slots tried before one is overwritten
-	warnShift  = 16      // the warning count sits above the mask in a slot's w0
 )
 
 var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.KindSeawater}
@@ -79,25 +111,19 @@ func compact(c *media.Conditions) (localKey, bool) {
 			return lk, false
 		}
 		lk.v[n] = math.Float64bits(v)
-		lk.w0 |= 1 << (8 + i)
+		lk.w0 = lk.w0.given(i)
 		n++
 	}
 	return lk, true
 }
 
 func (k *localKey) hash() uint64 {
-	h := k.w0*0x9e3779b97f4a7c15 + k.v[0]*0xc2b2ae3d27d4eb4f + k.v[1]*0x165667b19e3779f9 + k.v[2]*0xd6e8feb86659fd93
-	// SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast splittable
-	// pseudorandom number generators, OOPSLA '14).
-	h ^= h >> 30
-	h *= 0xbf58476d1ce4e5b9
-	h ^= h >> 27
-	h *= 0x94d049bb133111eb
-	return h ^ h>>31
+	ws := [4]uint64{uint64(k.w0.key()), k.v[0], k.v[1], k.v[2]}
+	return hashWords(ws[:])
 }
 
 func (s *mediaSlot) matches(k *localKey) bool {
-	return s.key.w0&(1<<warnShift-1) == k.w0 && s.key.v == k.v
+	return s.key.w0.key() == k.w0 && s.key.v == k.v
 }
 
 // lookup returns the medium's properties; the result must not be modified
@@ -115,7 +141,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 			l.rebuild(s)
 			return &l.p, nil
 		}
-		if s.key.w0 == 0 {
+		if s.key.w0.empty() {
 			break
 		}
 	}
@@ -132,7 +158,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 		}
 	}
 	s := mediaSlot{key: k, tempC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity}
-	s.key.w0 |= uint64(len(p.Warnings)) << warnShift
+	s.key.w0 = s.key.w0.withWarnings(len(p.Warnings))
 	l.insert(s, h)
 	l.rebuild(&s) // the same properties as a hit gives
 	return &l.p, nil
@@ -142,8 +168,8 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 // for the rest.
 func (l *localMedia) rebuild(s *mediaSlot) {
 	nan := math.NaN()
-	n := int(s.key.w0 >> warnShift)
-	l.p = media.Properties{Medium: builtinName[s.key.w0&0xff], TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
+	n := s.key.w0.warnings()
+	l.p = media.Properties{Medium: s.key.w0.medium(), TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
 		KinematicViscosity: s.nu, PressurePa: nan, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan,
 		Warnings: outOfRange[:n:n]}
@@ -156,18 +182,35 @@ func (l *localMedia) insert(s mediaSlot, h uint64) {
 		old := l.slots
 		l.slots, l.used = make([]mediaSlot, 2*len(old)), 0
 		for i := range old {
-			if old[i].key.w0 != 0 {
+			if !old[i].key.w0.empty() {
 				l.insert(old[i], old[i].key.hash())
 			}
 		}
 	}
 	mask := uint64(len(l.slots) - 1)
 	for i := range uint64(probes) {
-		if t := &l.slots[(h+i)&mask]; t.key.w0 == 0 {
+		if t := &l.slots[(h+i)&mask]; t.key.w0.empty() {
 			*t = s
 			l.used++
 			return
 		}
 	}
 	l.slots[h&mask] = s
+}
+
+// hashWords hashes a key of 64-bit words, every word counting: each is
+// folded into the state by a multiply and a shift, and the state is
+// finished by SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast
+// splittable pseudorandom number generators, OOPSLA '14).
+func hashWords(ws []uint64) uint64 {
+	h := uint64(len(ws))
+	for _, w := range ws {
+		h = (h ^ w) * 0x9e3779b97f4a7c15
+		h ^= h >> 32
+	}
+	h ^= h >> 30
+	h *= 0xbf58476d1ce4e5b9
+	h ^= h >> 27
+	h *= 0x94d049bb133111eb
+	return h ^ h>>31
 }
