@@ -17,6 +17,9 @@ type localMedia struct {
 	slots  []mediaSlot // open addressing, linear probing; length a power of two
 	used   int
 	max    int // slots at most
+	// lookups that hit and missed since the table last grew or was last
+	// judged (grows)
+	hits, misses int
 	shared *mediumCache
 	p      media.Properties // the last hit, rebuilt; valid until the next lookup
 }
@@ -138,6 +141,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 	for i := range uint64(probes) {
 		s := &l.slots[(h+i)&mask]
 		if s.matches(&k) {
+			l.hits++
 			l.rebuild(s)
 			return &l.p, nil
 		}
@@ -157,6 +161,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 			return l.shared.lookup(c)
 		}
 	}
+	l.misses++
 	s := mediaSlot{key: k, tempC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity}
 	s.key.w0 = s.key.w0.withWarnings(len(p.Warnings))
 	l.insert(s, h)
@@ -175,10 +180,10 @@ func (l *localMedia) rebuild(s *mediaSlot) {
 		Warnings: outOfRange[:n:n]}
 }
 
-// insert stores a slot, doubling the table while it is at most half full
-// and below its size limit, and overwriting an old slot when it cannot grow.
+// insert stores a slot, doubling the table when grows says so, and
+// overwriting an old slot when it does not grow.
 func (l *localMedia) insert(s mediaSlot, h uint64) {
-	if 2*(l.used+1) > len(l.slots) && 2*len(l.slots) <= l.max {
+	if l.grows() {
 		old := l.slots
 		l.slots, l.used = make([]mediaSlot, 2*len(old)), 0
 		for i := range old {
@@ -196,6 +201,22 @@ func (l *localMedia) insert(s mediaSlot, h uint64) {
 		}
 	}
 	l.slots[h&mask] = s
+}
+
+// grows reports whether the table should double: it is half full, below
+// its size limit, and it has earned it: since it last grew or was last
+// judged (half its size in misses ago), at least one lookup in three hit.
+// A table of conditions that rarely repeat (most of a realistic survey's)
+// so stays small, in the processor's cache, instead of growing to
+// megabytes that cost a trip to memory on every miss; a table of
+// conditions that repeat grows to hold them.
+func (l *localMedia) grows() bool {
+	if 2*(l.used+1) <= len(l.slots) || 2*len(l.slots) > l.max || 2*l.misses < len(l.slots) {
+		return false
+	}
+	earned := 2*l.hits >= l.misses
+	l.hits, l.misses = 0, 0
+	return earned
 }
 
 // hashWords hashes a key of 64-bit words, every word counting: each is
