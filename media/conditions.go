@@ -150,7 +150,9 @@ func water(c Conditions, brief bool) (Properties, error) {
 			p = surface
 			if depth > 0 {
 				p = freshPressureAtDepth(t, surface, depth)
-				notes = append(notes, "depth to pressure: hydrostatic, IAPWS-IF97 density at the mean pressure, standard gravity")
+				if !brief {
+					notes = append(notes, "depth to pressure: hydrostatic, IAPWS-IF97 density at the mean pressure, standard gravity")
+				}
 			}
 		}
 		props, err = freshWater(t, p, brief)
