@@ -14,14 +14,14 @@ import (
 // no lock. Failed lookups are not kept (they are rejected rows); medium
 // files and rows with more than three conditions go to the shared cache.
 type localMedia struct {
-	slots  []mediaSlot // open addressing, linear probing; length a power of two
-	used   int
-	max    int // slots at most
+	slots []mediaSlot // open addressing, linear probing; length a power of two
+	used  int
+	max   int // slots at most
 	// lookups that hit and missed since the table last grew or was last
 	// judged (grows)
 	hits, misses int
-	shared *mediumCache
-	p      media.Properties // the last hit, rebuilt; valid until the next lookup
+	shared       *mediumCache
+	p            media.Properties // the last hit, rebuilt; valid until the next lookup
 }
 
 // localKey is a condition in compact form: its medium and which
