@@ -117,6 +117,7 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	}
 	ctx, e.cancel = context.WithCancel(ctx)
 	defer e.cancel()
+	e.inFlight = make(chan struct{}, maxInFlight*e.workers())
 	wr := &writer{e: e, w: bufio.NewWriterSize(out, 256<<10), out: out, reject: reject, sum: &sum}
 	wr.header()
 	wr.collect(e.compute(ctx, e.read(ctx)))
@@ -124,6 +125,11 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	sum.Elapsed = time.Since(start)
 	return sum, err
 }
+
+// maxInFlight bounds the chunks read and not yet written, per worker:
+// without it a worker held up (on a busy machine) lets the others' results
+// pile up behind it, waiting to be written in order.
+const maxInFlight = 4
 
 // engine is one run: the configuration completed by the header, the
 // input past the header and how the run's goroutines stop.
@@ -137,7 +143,8 @@ type engine struct {
 	delim, outDelim byte
 	cancel          func()
 	crash           crashNote
-	readErr         error // set by the reader before it closes its channel
+	inFlight        chan struct{} // a token per chunk read and not yet written
+	readErr         error         // set by the reader before it closes its channel
 }
 
 // open reads the header, maps the columns and completes the configuration.
@@ -224,6 +231,11 @@ func (e *engine) read(ctx context.Context) <-chan *chunk {
 			if err != nil {
 				e.readErr = err
 				e.cancel()
+				return
+			}
+			select {
+			case e.inFlight <- struct{}{}:
+			case <-ctx.Done():
 				return
 			}
 			select {
@@ -320,6 +332,7 @@ func (wr *writer) collect(results <-chan result) {
 			if wr.err == nil {
 				wr.write(pr)
 			}
+			<-wr.e.inFlight
 		}
 	}
 }
