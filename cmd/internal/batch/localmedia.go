@@ -219,15 +219,14 @@ func (l *localMedia) grows() bool {
 	return earned
 }
 
-// hashWords hashes a key of 64-bit words, every word counting: each is
-// folded into the state by a multiply and a shift, and the state is
-// finished by SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast
-// splittable pseudorandom number generators, OOPSLA '14).
+// hashWords hashes a key of up to nine 64-bit words, every word counting:
+// each word times its own odd constant, summed (independent multiplies,
+// no chain), then SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast
+// splittable pseudorandom number generators, OOPSLA '14) mixes the sum.
 func hashWords(ws []uint64) uint64 {
-	h := uint64(len(ws))
-	for _, w := range ws {
-		h = (h ^ w) * 0x9e3779b97f4a7c15
-		h ^= h >> 32
+	var h uint64
+	for i, w := range ws {
+		h += w * hashMul[i]
 	}
 	h ^= h >> 30
 	h *= 0xbf58476d1ce4e5b9
@@ -235,3 +234,9 @@ func hashWords(ws []uint64) uint64 {
 	h *= 0x94d049bb133111eb
 	return h ^ h>>31
 }
+
+// hashMul are odd constants with well-mixed bits, one per key word (the
+// golden ratio's and others of the kind used by MurmurHash3, xxHash and
+// SplitMix64; any such constants would do).
+var hashMul = [len(cacheKey{})]uint64{0x9e3779b97f4a7c15, 0xc2b2ae3d27d4eb4f, 0x165667b19e3779f9, 0xd6e8feb86659fd93,
+	0x87c37b91114253d5, 0x4cf5ad432745937f, 0xff51afd7ed558ccd, 0xc4ceb9fe1a85ec53, 0xbf58476d1ce4e5b9}

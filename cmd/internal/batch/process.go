@@ -47,6 +47,7 @@ func putBuffer(b []byte) {
 // assumption counts and the number of the current record within the chunk.
 type chunkRun struct {
 	c               *chunk
+	rec             record // the record being handled
 	res             result
 	counts, assumed flagCounts
 	row             int // within the chunk; the writer adds the rows before it
@@ -72,13 +73,13 @@ func (p *processor) process(c *chunk) result {
 		cr.res.read++
 	}
 	cr.res.out = getBuffer(len(c.data) * p.growth / 4)
-	p.eachRecord(cr, func(r record, err error) { p.handle(cr, r, err) })
+	p.eachRecord(cr)
 	return p.finish(cr)
 }
 
-// eachRecord calls handle for each record of the chunk that is not blank,
-// with its fields read (or the reason they could not be).
-func (p *processor) eachRecord(cr *chunkRun, handle func(record, error)) {
+// eachRecord handles each record of the chunk that is not blank, with its
+// fields read (or the reason they could not be), in cr.rec.
+func (p *processor) eachRecord(cr *chunkRun) {
 	if p.cfg.InFormat == JSONL {
 		eachRecord(cr.c.data, recordRule{}, func(rec string, off int) {
 			if blank(rec) {
@@ -86,7 +87,8 @@ func (p *processor) eachRecord(cr *chunkRun, handle func(record, error)) {
 				return
 			}
 			keys, raws, fields, err := p.alignJSON([]byte(rec))
-			handle(record{text: rec, off: off, fields: fields, keys: keys, raws: raws}, err)
+			cr.rec = record{text: rec, off: off, fields: fields, keys: keys, raws: raws}
+			p.handle(cr, err)
 		})
 		return
 	}
@@ -98,12 +100,14 @@ func (p *processor) eachRecord(cr *chunkRun, handle func(record, error)) {
 		if err == nil && len(fields) != len(p.m.header) {
 			err = fieldCountError(len(fields), len(p.m.header))
 		}
-		handle(record{text: rec, off: off, fields: fields}, err)
+		cr.rec = record{text: rec, off: off, fields: fields}
+		p.handle(cr, err)
 	})
 }
 
-// handle computes one record and writes it, or rejects it.
-func (p *processor) handle(cr *chunkRun, r record, err error) {
+// handle computes cr.rec and writes it, or rejects it.
+func (p *processor) handle(cr *chunkRun, err error) {
+	r := &cr.rec
 	cr.row++
 	cr.res.read++
 	if err != nil {
@@ -126,14 +130,14 @@ func (p *processor) handle(cr *chunkRun, r record, err error) {
 		return
 	}
 	cr.res.written++
-	p.write(cr, r, o)
+	p.write(cr, r, &o)
 }
 
 func (cr *chunkRun) reject(rj Reject) { cr.res.rejects = append(cr.res.rejects, rj) }
 
 // compute computes a record's row: directly when its cells are plain
 // numbers, else through cells.
-func (p *processor) compute(r record) (outcome, error) {
+func (p *processor) compute(r *record) (outcome, error) {
 	if p.cells == nil {
 		p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty, p.cfg.Missing)
 		_, _, _, p.shapeConst = p.cfg.Constants.Lookup(inputs.Shape)
@@ -171,7 +175,7 @@ func (p *processor) rejectFor(err error, rj Reject) Reject {
 }
 
 // write appends a computed row to the chunk's output in the output format.
-func (p *processor) write(cr *chunkRun, r record, o outcome) {
+func (p *processor) write(cr *chunkRun, r *record, o *outcome) {
 	out := cr.res.out
 	switch p.cfg.OutFormat {
 	case CSV, TSV:
