@@ -69,41 +69,64 @@ var r12Hij = []struct {
 // Formulation 1997 for the Thermodynamic Properties of Water and Steam,
 // eq. (7), Tables 2 and 4.
 func WaterDensityIF97(tK, pPa float64) float64 {
-	const (
-		r     = 461.526 // J/(kg K), specific gas constant of IF97
-		pStar = 16.53e6 // Pa
-		tStar = 1386.0  // K
-	)
-	pi, tau := pPa/pStar, tStar/tK
-	a, b := 7.1-pi, tau-1.222
-	// Integer powers by repeated multiplication: a^k for k = 0…31 and
-	// b^j for j = −41…17, indexed j+41.
+	var t if97Isotherm
+	t.set(tK)
+	return t.density(pPa)
+}
+
+// IAPWS-IF97 region 1 constants (R7-97(2012), eq. (7)).
+const (
+	if97R     = 461.526 // J/(kg K), specific gas constant of IF97
+	if97PStar = 16.53e6 // Pa
+	if97TStar = 1386.0  // K
+)
+
+// if97Isotherm is region 1 at one temperature: the powers (τ − 1.222)^J
+// of eq. (7), built once, so that the density at several pressures of one
+// temperature (the depth-to-pressure iteration) does not rebuild them. The
+// arithmetic is the term-by-term evaluation of γ_π, to the last bit.
+type if97Isotherm struct {
+	tK float64
+	pb [59]float64 // (τ − 1.222)^j for j = −41…17, indexed j+41
+}
+
+// set builds the powers for temperature tK (K).
+func (t *if97Isotherm) set(tK float64) {
+	t.tK = tK
+	b := if97TStar/tK - 1.222
+	// Integer powers by repeated multiplication.
+	t.pb[41] = 1
+	for j := 1; j <= 17; j++ {
+		t.pb[41+j] = t.pb[40+j] * b
+	}
+	for j, bi := 1, 1/b; j <= 41; j++ {
+		t.pb[41-j] = t.pb[42-j] * bi
+	}
+}
+
+// density returns the density in kg/m³ at absolute pressure pPa (Pa).
+func (t *if97Isotherm) density(pPa float64) float64 {
+	pi := pPa / if97PStar
+	a := 7.1 - pi
+	// a^k for k = 0…31 by repeated multiplication
 	var pa [32]float64
-	var pb [59]float64
 	pa[0] = 1
 	for k := 1; k < len(pa); k++ {
 		pa[k] = pa[k-1] * a
-	}
-	pb[41] = 1
-	for j := 1; j <= 17; j++ {
-		pb[41+j] = pb[40+j] * b
-	}
-	for j, bi := 1, 1/b; j <= 41; j++ {
-		pb[41-j] = pb[42-j] * bi
 	}
 	gammaPi := 0.0
 	for _, c := range if97Region1 {
 		if c.i == 0 {
 			continue // the I = 0 terms do not depend on π
 		}
-		gammaPi += -c.n * float64(c.i) * pa[c.i-1] * pb[41+c.j]
+		gammaPi += -c.n * float64(c.i) * pa[c.i-1] * t.pb[41+c.j]
 	}
-	v := pi * gammaPi * r * tK / pPa // Table 4: v = (RT/p) π γ_π
+	v := pi * gammaPi * if97R * t.tK / pPa // Table 4: v = (RT/p) π γ_π
 	return 1 / v
 }
 
 // if97Region1 holds I_i, J_i, n_i of IAPWS-IF97 Table 2.
-var if97Region1 = []struct {
+var if97Region1 = [...]struct {
 	i, j int
 	n    float64
 }{

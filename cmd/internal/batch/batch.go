@@ -104,39 +104,94 @@ type result struct {
 // Run reads in, writes rows to out and rejected rows to reject, in input
 // order. It returns an error only for a failure of the whole run (unreadable
 // header, output error, cancellation); row problems are rejects.
+//
+// A reader goroutine cuts the input into chunks of whole records, one
+// worker per core computes them, and this goroutine puts their results
+// back in input order, writes them and adds up the summary.
 func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) error, cfg Config) (Summary, error) {
 	start := time.Now()
 	sum := Summary{Flags: map[string]int{}, Assumed: map[string]int{}}
+	e, err := open(in, cfg, &sum)
+	if err != nil {
+		return sum, err
+	}
+	ctx, e.cancel = context.WithCancel(ctx)
+	defer e.cancel()
+	e.inFlight = make(chan struct{}, maxInFlight*e.workers())
+	wr := &writer{e: e, w: bufio.NewWriterSize(out, 256<<10), out: out, reject: reject, sum: &sum}
+	wr.header()
+	wr.collect(e.compute(ctx, e.read(ctx)))
+	err = wr.finish(ctx)
+	sum.Elapsed = time.Since(start)
+	return sum, err
+}
+
+// maxInFlight bounds the chunks read and not yet written, per worker:
+// without it a worker held up (on a busy machine) lets the others' results
+// pile up behind it, waiting to be written in order.
+const maxInFlight = 4
+
+// engine is one run: the configuration completed by the header, the
+// input past the header and how the run's goroutines stop.
+type engine struct {
+	cfg             Config
+	m               *mapping
+	header          []string
+	headerRaw       []byte // the CSV header's text, copied when it has no quotes
+	body            io.Reader
+	line            int // the line the body starts at
+	delim, outDelim byte
+	cancel          func()
+	crash           crashNote
+	inFlight        chan struct{} // a token per chunk read and not yet written
+	readErr         error         // set by the reader before it closes its channel
+}
+
+// open reads the header, maps the columns and completes the configuration.
+func open(in io.Reader, cfg Config, sum *Summary) (*engine, error) {
 	if cfg.Progress != nil {
 		in = &countingReader{r: in, f: cfg.Progress}
 	}
 	br := bufio.NewReaderSize(in, 64<<10)
 	skipBOM(br)
-	delim := byte(',')
+	e := &engine{delim: ',', outDelim: ','}
 	if cfg.InFormat == TSV {
-		delim = '\t'
+		e.delim = '\t'
 	}
-	outDelim := byte(',')
 	if cfg.OutFormat == TSV {
-		outDelim = '\t'
+		e.outDelim = '\t'
 	}
-	hl, err := readHeader(br, cfg, delim)
+	hl, err := readHeader(br, cfg, e.delim)
 	if err != nil {
-		return sum, err
+		return nil, err
 	}
-	header, headerRaw, line := hl.names, hl.raw, 1+hl.lines
-	var body io.Reader = br
+	e.header, e.headerRaw, e.line, e.body = hl.names, hl.raw, 1+hl.lines, br
 	if hl.first != nil {
-		body = io.MultiReader(bytes.NewReader(hl.first), br)
+		e.body = io.MultiReader(bytes.NewReader(hl.first), br)
 	}
 	if cfg.Missing == nil {
 		cfg.Missing = inputs.DefaultMissing
 	}
-	m, err := readMapping(header, cfg, sampleRows(br, hl.first, header, delim, cfg.InFormat == JSONL))
-	if err != nil {
-		return sum, err
+	if e.m, err = readMapping(e.header, cfg, sampleRows(br, hl.first, e.header, e.delim, cfg.InFormat == JSONL)); err != nil {
+		return nil, err
 	}
-	sum.Mapping = m.mapped()
+	sum.Mapping = e.m.mapped()
+	e.cfg = uncertaintyDefaults(cfg, e.m)
+	if e.cfg.Mapped != nil {
+		e.cfg.Mapped(e.m.describe(e.cfg))
+	}
+	if e.cfg.Uncertainty {
+		sum.Uncertainty = e.cfg.Method
+		if e.cfg.Method != "linear" {
+			sum.Draws = e.cfg.Draws
+		}
+	}
+	return e, nil
+}
+
+// uncertaintyDefaults turns propagation on when the table has uncertainty
+// columns and fills in the method (Monte Carlo) and its draws (10,000).
+func uncertaintyDefaults(cfg Config, m *mapping) Config {
 	if m.hasSD() {
 		cfg.Uncertainty = true
 	}
@@ -146,67 +201,41 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 	if cfg.Uncertainty && cfg.Method != "linear" && cfg.Draws < 10 {
 		cfg.Draws = 10000
 	}
-	if cfg.Mapped != nil {
-		cfg.Mapped(m.describe(cfg))
-	}
-	if cfg.Uncertainty {
-		sum.Uncertainty = cfg.Method
-		if cfg.Method != "linear" {
-			sum.Draws = cfg.Draws
-		}
-	}
-	w := bufio.NewWriterSize(out, 256<<10)
-	var table [][]string
-	if cfg.OutFormat == Table {
-		table = append(table, append(append([]string{}, header...), cfg.columns()...))
-	} else if len(cfg.Names) == 0 {
-		switch cfg.OutFormat {
-		case CSV, TSV:
-			var b []byte
-			if cfg.InFormat == CSV && cfg.OutFormat == CSV && headerRaw != nil && bytes.IndexByte(headerRaw, '"') < 0 {
-				b = append(b, headerRaw...)
-			} else {
-				for i, h := range header {
-					if i > 0 {
-						b = append(b, outDelim)
-					}
-					b = appendField(b, h, outDelim)
-				}
-			}
-			for _, c := range cfg.columns() {
-				b = append(b, outDelim)
-				b = append(b, c...)
-			}
-			w.Write(append(b, '\n'))
-		}
-	}
+	return cfg
+}
 
-	workers := cfg.Workers
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
+func (e *engine) workers() int {
+	if e.cfg.Workers > 0 {
+		return e.cfg.Workers
 	}
-	ctx, cancel := context.WithCancel(ctx)
-	defer cancel()
-	jobs := make(chan *chunk, workers)
-	results := make(chan result, workers)
-	var readErr error
-	var crash crashNote
+	return runtime.GOMAXPROCS(0)
+}
+
+// read cuts the body into chunks in a goroutine; the channel closes at the
+// end of the input, on a read error (e.readErr) or on cancellation.
+func (e *engine) read(ctx context.Context) <-chan *chunk {
+	jobs := make(chan *chunk, e.workers())
 	go func() {
 		defer close(jobs)
-		defer crash.recover(cancel)
+		defer e.crash.recover(e.cancel)
 		size := chunkSize
-		if cfg.Uncertainty {
+		if e.cfg.Uncertainty {
 			size = uncertainChunk
 		}
-		ck := newChunker(body, recordRule{quotes: cfg.InFormat != JSONL, delim: delim, fields: len(header)}, line, size)
+		ck := newChunker(e.body, recordRule{quotes: e.cfg.InFormat != JSONL, delim: e.delim, fields: len(e.header)}, e.line, size)
 		for {
 			c, err := ck.next()
 			if err == io.EOF {
 				return
 			}
 			if err != nil {
-				readErr = err
-				cancel()
+				e.readErr = err
+				e.cancel()
+				return
+			}
+			select {
+			case e.inFlight <- struct{}{}:
+			case <-ctx.Done():
 				return
 			}
 			select {
@@ -216,15 +245,22 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 			}
 		}
 	}()
+	return jobs
+}
+
+// compute starts the workers, each with its own table of media in front of
+// a shared cache; the channel closes when they are all done.
+func (e *engine) compute(ctx context.Context, jobs <-chan *chunk) <-chan result {
+	n := e.workers()
+	results := make(chan result, n)
 	var wg sync.WaitGroup
-	cache := newMediumCache(newMediumFiles(&cfg))
-	for range workers {
+	cache := newMediumCache(newMediumFiles(&e.cfg))
+	for range n {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			defer crash.recover(cancel)
-			local := newLocalMedia(cache, localSlots/workers)
-			p := &processor{cfg: cfg, m: m, delim: delim, outDelim: outDelim, cache: local, growth: 8}
+			defer e.crash.recover(e.cancel)
+			p := &processor{cfg: e.cfg, m: e.m, delim: e.delim, outDelim: e.outDelim, cache: newLocalMedia(cache, localSlots/n), growth: 8}
 			for c := range jobs {
 				r := p.process(c)
 				select {
@@ -236,72 +272,134 @@ func Run(ctx context.Context, in io.Reader, out io.Writer, reject func(Reject) e
 		}()
 	}
 	go func() { wg.Wait(); close(results) }()
+	return results
+}
 
+// writer puts the chunks' results back in input order and writes them:
+// rows to the output, rejects to reject, counts to the summary.
+type writer struct {
+	e             *engine
+	w             *bufio.Writer
+	out           io.Writer
+	reject        func(Reject) error
+	sum           *Summary
+	table         [][]string // table output: the header and the rows of the page being filled
+	pages         int        // table pages written
+	next, rowBase int        // the next chunk to write; data rows before it
+	err           error      // the first failure; what follows is drained, not written
+}
+
+// header writes the output's header line, or starts the table.
+func (wr *writer) header() {
+	cfg := &wr.e.cfg
+	if cfg.OutFormat == Table {
+		wr.table = append(wr.table, append(append([]string{}, wr.e.header...), cfg.columns()...))
+		return
+	}
+	if len(cfg.Names) > 0 || cfg.OutFormat != CSV && cfg.OutFormat != TSV {
+		return
+	}
+	var b []byte
+	if cfg.InFormat == CSV && cfg.OutFormat == CSV && wr.e.headerRaw != nil && bytes.IndexByte(wr.e.headerRaw, '"') < 0 {
+		b = append(b, wr.e.headerRaw...)
+	} else {
+		for i, h := range wr.e.header {
+			if i > 0 {
+				b = append(b, wr.e.outDelim)
+			}
+			b = appendField(b, h, wr.e.outDelim)
+		}
+	}
+	for _, c := range cfg.columns() {
+		b = append(b, wr.e.outDelim)
+		b = append(b, c...)
+	}
+	wr.w.Write(append(b, '\n'))
+}
+
+// collect writes the results in input order as they come.
+func (wr *writer) collect(results <-chan result) {
 	pending := map[int]result{}
-	next, rowBase, pages := 0, 0, 0
-	var runErr error
 	for r := range results {
 		pending[r.seq] = r
 		for {
-			pr, ok := pending[next]
+			pr, ok := pending[wr.next]
 			if !ok {
 				break
 			}
-			delete(pending, next)
-			next++
-			if runErr != nil {
-				continue
+			delete(pending, wr.next)
+			wr.next++
+			if wr.err == nil {
+				wr.write(pr)
 			}
-			if _, err := w.Write(pr.out); err != nil {
-				runErr = err
-				cancel()
-			}
-			putBuffer(pr.out)
-			table = append(table, pr.table...)
-			for runErr == nil && len(table) > TablePage {
-				if runErr = renderPage(sized(w, out), &table, TablePage); runErr != nil {
-					cancel()
-				}
-				pages++
-			}
-			for _, rj := range pr.rejects {
-				rj.Row += rowBase
-				if err := reject(rj); err != nil && runErr == nil {
-					runErr = err
-					cancel()
-				}
-			}
-			rowBase += pr.rows
-			sum.Read += pr.read
-			sum.Written += pr.written
-			sum.Rejected += len(pr.rejects)
-			sum.Blank += pr.blank
-			sum.Filtered += pr.filtered
-			for k, v := range pr.flags {
-				sum.Flags[k] += v
-			}
-			for k, v := range pr.assumed {
-				sum.Assumed[k] += v
-			}
+			<-wr.e.inFlight
 		}
 	}
-	if err := crash.err(); err != nil && runErr == nil {
-		runErr = err
+}
+
+// fail notes the run's first failure and stops the other goroutines.
+func (wr *writer) fail(err error) {
+	if err != nil && wr.err == nil {
+		wr.err = err
+		wr.e.cancel()
 	}
-	if runErr == nil && readErr != nil {
-		runErr = readErr
+}
+
+// write writes one chunk's result.
+func (wr *writer) write(pr result) {
+	if _, err := wr.w.Write(pr.out); err != nil {
+		wr.fail(err)
 	}
-	if runErr == nil && ctx.Err() != nil {
-		runErr = ctx.Err()
+	putBuffer(pr.out)
+	wr.table = append(wr.table, pr.table...)
+	for wr.err == nil && len(wr.table) > TablePage {
+		wr.fail(renderPage(sized(wr.w, wr.out), &wr.table, TablePage))
+		wr.pages++
 	}
-	if runErr == nil && table != nil && (len(table) > 1 || pages == 0) {
-		runErr = renderPage(sized(w, out), &table, len(table)-1)
+	for _, rj := range pr.rejects {
+		rj.Row += wr.rowBase
+		wr.fail(wr.reject(rj))
 	}
-	if err := w.Flush(); err != nil && runErr == nil {
-		runErr = err
+	wr.rowBase += pr.rows
+	wr.sum.add(&pr)
+}
+
+// add counts a chunk's result.
+func (s *Summary) add(r *result) {
+	s.Read += r.read
+	s.Written += r.written
+	s.Rejected += len(r.rejects)
+	s.Blank += r.blank
+	s.Filtered += r.filtered
+	for k, v := range r.flags {
+		s.Flags[k] += v
 	}
-	sum.Elapsed = time.Since(start)
-	return sum, runErr
+	for k, v := range r.assumed {
+		s.Assumed[k] += v
+	}
+}
+
+// finish gives the run's error, if any (the writer's first, then a
+// crash, the reader's, a cancellation), writes the last table page and
+// flushes.
+func (wr *writer) finish(ctx context.Context) error {
+	err := wr.err
+	if err == nil {
+		err = wr.e.crash.err()
+	}
+	if err == nil {
+		err = wr.e.readErr
+	}
+	if err == nil {
+		err = ctx.Err()
+	}
+	if err == nil && wr.table != nil && (len(wr.table) > 1 || wr.pages == 0) {
+		err = renderPage(sized(wr.w, wr.out), &wr.table, len(wr.table)-1)
+	}
+	if ferr := wr.w.Flush(); ferr != nil && err == nil {
+		err = ferr
+	}
+	return err
 }
 
 // crashNote turns a panic in one of Run's goroutines (a bug, never an

@@ -59,3 +59,58 @@ func TestLocalMediaMatchesLookup(t *testing.T) {
 		}
 	}
 }
+
+// The shared cache spreads keys over its shards whichever condition
+// varies: 1600 keys that differ in one condition only (each of the eight
+// in turn, and the medium) give every shard at least half its fair share
+// (100). A hash that ignores a condition puts all 1600 in one shard.
+// Common practice for hash tables, no source.
+func TestSharedCacheSpreadsEveryCondition(t *testing.T) {
+	mc := newMediumCache(newMediumFiles(&Config{}))
+	for word := range len(cacheKey{}) {
+		var counts [len(mc.shards)]int
+		for i := range 1600 {
+			k := mc.key(media.Unset(media.KindSeawater))
+			k[word] = math.Float64bits(float64(i) / 10)
+			if word == 0 {
+				k[0] = uint64(i + 1)
+			}
+			counts[shardOf(&k)]++
+		}
+		for s, n := range counts {
+			if n < 50 {
+				t.Errorf("key word %d: shard %d holds %d of 1600 keys; want ≥ 50", word, s, n)
+			}
+		}
+	}
+}
+
+// A worker's table grows when its conditions repeat and stays at its
+// first, cache-sized length when they rarely do (design rule of grows, no
+// source): 40,000 lookups cycling over 6,000 conditions (more than half
+// the first table) double it at least once; 40,000 distinct conditions
+// leave it at localFirst slots, and the answers stay those of an uncached
+// lookup (TestLocalMediaMatchesLookup).
+func TestLocalMediaGrowsOnlyWhenConditionsRepeat(t *testing.T) {
+	fresh := func(i int) media.Conditions {
+		c := media.Unset(media.KindFreshWater)
+		c.TemperatureC, c.DepthM = float64(i%300)/10, float64(1+i/300)/10
+		return c
+	}
+	repeating := newLocalMedia(newMediumCache(newMediumFiles(&Config{})), localSlots)
+	distinct := newLocalMedia(newMediumCache(newMediumFiles(&Config{})), localSlots)
+	for i := range 40000 {
+		if _, err := repeating.lookup(fresh(i % 6000)); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := distinct.lookup(fresh(i)); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if len(repeating.slots) <= localFirst {
+		t.Errorf("repeating conditions: %d slots, want more than %d", len(repeating.slots), localFirst)
+	}
+	if len(distinct.slots) != localFirst {
+		t.Errorf("distinct conditions: %d slots, want %d", len(distinct.slots), localFirst)
+	}
+}

@@ -14,29 +14,67 @@ import (
 // no lock. Failed lookups are not kept (they are rejected rows); medium
 // files and rows with more than three conditions go to the shared cache.
 type localMedia struct {
-	slots  []mediaSlot // open addressing, linear probing; length a power of two
-	used   int
-	max    int // slots at most
-	shared *mediumCache
-	p      media.Properties // the last hit, rebuilt; valid until the next lookup
+	slots []mediaSlot // open addressing, linear probing; length a power of two
+	used  int
+	max   int // slots at most
+	// lookups that hit and missed since the table last grew or was last
+	// judged (grows)
+	hits, misses int
+	shared       *mediumCache
+	p            media.Properties // the last hit, rebuilt; valid until the next lookup
 }
 
-// localKey is a condition in compact form: the medium id and which of the
-// eight conditions are given (bits 8–15) in word 0, their values in order.
+// localKey is a condition in compact form: its medium and which
+// conditions are given in w0, the given conditions' values in order.
 type localKey struct {
-	w0 uint64
+	w0 condWord
 	v  [3]uint64
 }
 
+// condWord packs into one word a built-in medium, which of the eight
+// conditions are given and, in a table slot only, how many out-of-range
+// warnings the properties carry:
+//
+//	bits  0–7   medium: 1 air, 2 fresh water, 3 sea water (0: an empty slot)
+//	bits  8–15  one bit per given condition, in mediumCache.key's order
+//	bits 16–23  the warning count (slots only)
+type condWord uint64
+
+const (
+	givenShift = 8
+	warnShift  = 16
+	keyMask    = 1<<warnShift - 1 // the medium and the given conditions
+)
+
+// medium is the built-in medium's name ("" for an empty slot).
+func (w condWord) medium() string { return builtinName[w&0xff] }
+
+// gas is media.Properties.Gas of the word's built-in medium.
+func (w condWord) gas() bool { return builtinGas[w&0xff] }
+
+// given marks condition i (0–7) as given.
+func (w condWord) given(i int) condWord { return w | 1<<(givenShift+i) }
+
+// key is the word without the warning count, as a lookup's key has it.
+func (w condWord) key() condWord { return w & keyMask }
+
+// warnings is the number of out-of-range warnings a slot's properties carry.
+func (w condWord) warnings() int { return int(w >> warnShift) }
+
+// withWarnings is the word with n warnings (n ≤ len(outOfRange)).
+func (w condWord) withWarnings(n int) condWord { return w.key() | condWord(n)<<warnShift }
+
+// empty reports whether a slot holds nothing.
+func (w condWord) empty() bool { return w == 0 }
+
 type mediaSlot struct {
-	key                localKey // key.w0 == 0 marks an empty slot
+	key                localKey // key.w0 holds the warning count too
 	tempC, rho, mu, nu float64
 }
 
 const (
 	localFirst = 1 << 12 // slots at first
 	probes     = 4       // slots tried before one is overwritten
-	warnShift  = 16      // the warning count sits above the mask in a slot's w0
 )
 
 var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.KindSeawater}
@@ -82,25 +120,19 @@ func compact(c *media.Conditions) (localKey, bool) {
 			return lk, false
 		}
 		lk.v[n] = math.Float64bits(v)
-		lk.w0 |= 1 << (8 + i)
+		lk.w0 = lk.w0.given(i)
 		n++
 	}
 	return lk, true
 }
 
 func (k *localKey) hash() uint64 {
-	h := k.w0*0x9e3779b97f4a7c15 + k.v[0]*0xc2b2ae3d27d4eb4f + k.v[1]*0x165667b19e3779f9 + k.v[2]*0xd6e8feb86659fd93
-	// SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast splittable
-	// pseudorandom number generators, OOPSLA '14).
-	h ^= h >> 30
-	h *= 0xbf58476d1ce4e5b9
-	h ^= h >> 27
-	h *= 0x94d049bb133111eb
-	return h ^ h>>31
+	ws := [4]uint64{uint64(k.w0.key()), k.v[0], k.v[1], k.v[2]}
+	return hashWords(ws[:])
 }
 
 func (s *mediaSlot) matches(k *localKey) bool {
-	return s.key.w0&(1<<warnShift-1) == k.w0 && s.key.v == k.v
+	return s.key.w0.key() == k.w0 && s.key.v == k.v
 }
 
 // lookup returns the medium's properties; the result must not be modified
@@ -115,10 +147,11 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 	for i := range uint64(probes) {
 		s := &l.slots[(h+i)&mask]
 		if s.matches(&k) {
+			l.hits++
 			l.rebuild(s)
 			return &l.p, nil
 		}
-		if s.key.w0 == 0 {
+		if s.key.w0.empty() {
 			break
 		}
 	}
@@ -134,8 +167,9 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 			return l.shared.lookup(c)
 		}
 	}
+	l.misses++
 	s := mediaSlot{key: k, tempC: p.TemperatureC, rho: p.Density, mu: p.DynamicViscosity, nu: p.KinematicViscosity}
-	s.key.w0 |= uint64(len(p.Warnings)) << warnShift
+	s.key.w0 = s.key.w0.withWarnings(len(p.Warnings))
 	l.insert(s, h)
 	l.rebuild(&s) // the same properties as a hit gives
 	return &l.p, nil
@@ -145,28 +179,28 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 // for the rest.
 func (l *localMedia) rebuild(s *mediaSlot) {
 	nan := math.NaN()
-	n := int(s.key.w0 >> warnShift)
-	l.p = media.Properties{Medium: builtinName[s.key.w0&0xff], Gas: builtinGas[s.key.w0&0xff], TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
+	n := s.key.w0.warnings()
+	l.p = media.Properties{Medium: s.key.w0.medium(), Gas: s.key.w0.gas(), TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
 		KinematicViscosity: s.nu, PressurePa: nan, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan,
 		Warnings: outOfRange[:n:n]}
 }
 
-// insert stores a slot, doubling the table while it is at most half full
-// and below its size limit, and overwriting an old slot when it cannot grow.
+// insert stores a slot, doubling the table when grows says so, and
+// overwriting an old slot when it does not grow.
 func (l *localMedia) insert(s mediaSlot, h uint64) {
-	if 2*(l.used+1) > len(l.slots) && 2*len(l.slots) <= l.max {
+	if l.grows() {
 		old := l.slots
 		l.slots, l.used = make([]mediaSlot, 2*len(old)), 0
 		for i := range old {
-			if old[i].key.w0 != 0 {
+			if !old[i].key.w0.empty() {
 				l.insert(old[i], old[i].key.hash())
 			}
 		}
 	}
 	mask := uint64(len(l.slots) - 1)
 	for i := range uint64(probes) {
-		if t := &l.slots[(h+i)&mask]; t.key.w0 == 0 {
+		if t := &l.slots[(h+i)&mask]; t.key.w0.empty() {
 			*t = s
 			l.used++
 			return
@@ -174,3 +208,41 @@ func (l *localMedia) insert(s mediaSlot, h uint64) {
 	}
 	l.slots[h&mask] = s
 }
+
+// grows reports whether the table should double: it is half full, below
+// its size limit, and it has earned it: since it last grew or was last
+// judged (half its size in misses ago), at least one lookup in three hit.
+// A table of conditions that rarely repeat (most of a realistic survey's)
+// so stays small, in the processor's cache, instead of growing to
+// megabytes that cost a trip to memory on every miss; a table of
+// conditions that repeat grows to hold them.
+func (l *localMedia) grows() bool {
+	if 2*(l.used+1) <= len(l.slots) || 2*len(l.slots) > l.max || 2*l.misses < len(l.slots) {
+		return false
+	}
+	earned := 2*l.hits >= l.misses
+	l.hits, l.misses = 0, 0
+	return earned
+}
+
+// hashWords hashes a key of up to nine 64-bit words, every word counting:
+// each word times its own odd constant, summed (independent multiplies,
+// no chain), then SplitMix64's finaliser (Steele, Lea & Flood 2014, Fast
+// splittable pseudorandom number generators, OOPSLA '14) mixes the sum.
+func hashWords(ws []uint64) uint64 {
+	var h uint64
+	for i, w := range ws {
+		h += w * hashMul[i]
+	}
+	h ^= h >> 30
+	h *= 0xbf58476d1ce4e5b9
+	h ^= h >> 27
+	h *= 0x94d049bb133111eb
+	return h ^ h>>31
+}
+
+// hashMul are odd constants with well-mixed bits, one per key word (the
+// golden ratio's and others of the kind used by MurmurHash3, xxHash and
+// SplitMix64; any such constants would do).
+var hashMul = [len(cacheKey{})]uint64{0x9e3779b97f4a7c15, 0xc2b2ae3d27d4eb4f, 0x165667b19e3779f9, 0xd6e8feb86659fd93,
+	0x87c37b91114253d5, 0x4cf5ad432745937f, 0xff51afd7ed558ccd, 0xc4ceb9fe1a85ec53, 0xbf58476d1ce4e5b9}

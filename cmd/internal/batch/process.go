@@ -43,125 +43,180 @@ func putBuffer(b []byte) {
 	}
 }
 
+// chunkRun is what processing one chunk gathers: the result, the flag and
+// assumption counts and the number of the current record within the chunk.
+type chunkRun struct {
+	c               *chunk
+	rec             record // the record being handled
+	res             result
+	counts, assumed flagCounts
+	row             int // within the chunk; the writer adds the rows before it
+}
+
+// record is one record of a chunk: its text, its offset in lines from the
+// chunk's first line, its fields and, for JSON Lines, its keys and raw
+// values.
+type record struct {
+	text   string
+	off    int
+	fields []string
+	keys   []string
+	raws   []json.RawMessage
+}
+
+// process computes the records of a chunk.
 func (p *processor) process(c *chunk) result {
-	res := result{seq: c.seq, flags: map[string]int{}, assumed: map[string]int{}}
-	var counts, assumed flagCounts
-	row := 0 // within the chunk; the writer adds the rows before it
+	cr := &chunkRun{c: c, res: result{seq: c.seq, flags: map[string]int{}, assumed: map[string]int{}}}
 	for _, l := range c.overlong {
-		row++
-		res.rejects = append(res.rejects, Reject{Line: l, Row: row, Reason: errOverlong.Error()})
-		res.read++
+		cr.row++
+		cr.res.rejects = append(cr.res.rejects, Reject{Line: l, Row: cr.row, Reason: errOverlong.Error()})
+		cr.res.read++
 	}
-	out := getBuffer(len(c.data) * p.growth / 4)
-	// handle computes one record whose fields have been read (or not: err).
-	handle := func(rec string, off int, fields, keys []string, raws []json.RawMessage, err error) {
-		row++
-		res.read++
-		line := c.firstLine + off
-		if err != nil {
-			res.rejects = append(res.rejects, Reject{Line: line, Row: row, Reason: err.Error(), Record: strings.Clone(rec)})
-			return
-		}
-		if p.cells == nil {
-			p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty, p.cfg.Missing)
-			_, _, _, p.shapeConst = p.cfg.Constants.Lookup(inputs.Shape)
-		}
-		p.scratch.shapeGiven = p.shapeGiven(fields)
-		var seed uint64
-		if p.cfg.Uncertainty {
-			seed = p.cfg.Seed ^ fnv64(rec)
-		}
-		o, direct, err := p.computeDirect(fields)
-		if !direct {
-			o, err = compute(p.cells.fill(fields), &p.cfg, p.cache, seed, &p.scratch)
-		}
-		if err == nil && !p.cfg.Uncertainty && !direct && p.cells.uncertain {
-			o.flags = append(o.flags, WarnUncertaintyIgnored)
-			o.ignored = true
-		}
-		if err != nil {
-			rj := Reject{Line: line, Row: row, Reason: inputs.Reason(err), Record: strings.Clone(rec)}
-			var fe *inputs.FieldError
-			if errors.As(err, &fe) {
-				rj.Reason = fe.Err.Error()
-				rj.Column = fe.Label
-				if c := p.m.col[fe.Field]; c >= 0 {
-					rj.Column = strings.TrimSpace(p.m.header[c])
-				}
-			}
-			res.rejects = append(res.rejects, rj)
-			return
-		}
-		for _, f := range o.flags {
-			counts.add(f)
-		}
-		for _, a := range o.assumed {
-			assumed.add(a)
-		}
-		if p.cfg.FlaggedOnly && len(o.flags) == 0 {
-			res.filtered++
-			return
-		}
-		res.written++
-		if p.cfg.OutFormat != CSV && p.cfg.OutFormat != TSV {
-			p.vals = o.values(p.vals[:0], p.cfg.Uncertainty, &p.scratch)
-		}
-		switch p.cfg.OutFormat {
-		case CSV, TSV:
-			if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV && strings.IndexByte(rec, '"') < 0 {
-				out = append(out, rec...) // a record with quotes is written anew: a stray quote gets quoted
-			} else {
-				for i, f := range fields {
-					if i > 0 {
-						out = append(out, p.outDelim)
-					}
-					out = appendField(out, f, p.outDelim)
-				}
-			}
-			out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty, &p.scratch)
-			out = append(out, '\n')
-		case JSONL:
-			out = p.appendJSON(out, fields, keys, raws)
-			out = append(out, '\n')
-		case Table:
-			res.table = append(res.table, append(append([]string{}, fields...), p.vals...))
-		}
-	}
+	cr.res.out = getBuffer(len(c.data) * p.growth / 4)
+	p.eachRecord(cr)
+	return p.finish(cr)
+}
+
+// eachRecord handles each record of the chunk that is not blank, with its
+// fields read (or the reason they could not be), in cr.rec.
+func (p *processor) eachRecord(cr *chunkRun) {
 	if p.cfg.InFormat == JSONL {
-		eachRecord(c.data, recordRule{}, func(rec string, off int) {
+		eachRecord(cr.c.data, recordRule{}, func(rec string, off int) {
 			if blank(rec) {
-				res.blank++
+				cr.res.blank++
 				return
 			}
 			keys, raws, fields, err := p.alignJSON([]byte(rec))
-			handle(rec, off, fields, keys, raws, err)
+			cr.rec = record{text: rec, off: off, fields: fields, keys: keys, raws: raws}
+			p.handle(cr, err)
 		})
-	} else {
-		p.fields = eachCSVRecord(c.data, recordRule{quotes: true, delim: p.delim, fields: len(p.m.header)}, p.fields, func(rec string, fields []string, err error, off int) {
-			if blank(rec) {
-				res.blank++
-				return
+		return
+	}
+	p.fields = eachCSVRecord(cr.c.data, recordRule{quotes: true, delim: p.delim, fields: len(p.m.header)}, p.fields, func(rec string, fields []string, err error, off int) {
+		if blank(rec) {
+			cr.res.blank++
+			return
+		}
+		if err == nil && len(fields) != len(p.m.header) {
+			err = fieldCountError(len(fields), len(p.m.header))
+		}
+		cr.rec = record{text: rec, off: off, fields: fields}
+		p.handle(cr, err)
+	})
+}
+
+// handle computes cr.rec and writes it, or rejects it.
+func (p *processor) handle(cr *chunkRun, err error) {
+	r := &cr.rec
+	cr.row++
+	cr.res.read++
+	if err != nil {
+		cr.reject(Reject{Line: cr.c.firstLine + r.off, Row: cr.row, Reason: err.Error(), Record: strings.Clone(r.text)})
+		return
+	}
+	o, err := p.compute(r)
+	if err != nil {
+		cr.reject(p.rejectFor(err, Reject{Line: cr.c.firstLine + r.off, Row: cr.row, Record: strings.Clone(r.text)}))
+		return
+	}
+	for _, f := range o.flags {
+		cr.counts.add(f)
+	}
+	for _, a := range o.assumed {
+		cr.assumed.add(a)
+	}
+	if p.cfg.FlaggedOnly && len(o.flags) == 0 {
+		cr.res.filtered++
+		return
+	}
+	cr.res.written++
+	p.write(cr, r, &o)
+}
+
+func (cr *chunkRun) reject(rj Reject) { cr.res.rejects = append(cr.res.rejects, rj) }
+
+// compute computes a record's row: directly when its cells are plain
+// numbers, else through cells.
+func (p *processor) compute(r *record) (outcome, error) {
+	if p.cells == nil {
+		p.cells = newRowCells(p.m, p.cfg.Constants, p.cfg.DefaultMedium, p.cfg.Uncertainty, p.cfg.Missing)
+		_, _, _, p.shapeConst = p.cfg.Constants.Lookup(inputs.Shape)
+	}
+	p.scratch.shapeGiven = p.shapeGiven(r.fields)
+	o, direct, err := p.computeDirect(r.fields)
+	if direct {
+		return o, err
+	}
+	var seed uint64
+	if p.cfg.Uncertainty {
+		seed = p.cfg.Seed ^ fnv64(r.text)
+	}
+	o, err = compute(p.cells.fill(r.fields), &p.cfg, p.cache, seed, &p.scratch)
+	if err == nil && !p.cfg.Uncertainty && p.cells.uncertain {
+		o.flags = append(o.flags, WarnUncertaintyIgnored)
+		o.ignored = true
+	}
+	return o, err
+}
+
+// rejectFor completes a reject for a row that could not be computed: the
+// reason without the packages' prefixes, and the column at fault.
+func (p *processor) rejectFor(err error, rj Reject) Reject {
+	rj.Reason = inputs.Reason(err)
+	var fe *inputs.FieldError
+	if errors.As(err, &fe) {
+		rj.Reason = fe.Err.Error()
+		rj.Column = fe.Label
+		if c := p.m.col[fe.Field]; c >= 0 {
+			rj.Column = strings.TrimSpace(p.m.header[c])
+		}
+	}
+	return rj
+}
+
+// write appends a computed row to the chunk's output in the output format.
+func (p *processor) write(cr *chunkRun, r *record, o *outcome) {
+	out := cr.res.out
+	switch p.cfg.OutFormat {
+	case CSV, TSV:
+		if p.cfg.InFormat == CSV && p.cfg.OutFormat == CSV && strings.IndexByte(r.text, '"') < 0 {
+			out = append(out, r.text...) // a record with quotes is written anew: a stray quote gets quoted
+		} else {
+			for i, f := range r.fields {
+				if i > 0 {
+					out = append(out, p.outDelim)
+				}
+				out = appendField(out, f, p.outDelim)
 			}
-			if err == nil && len(fields) != len(p.m.header) {
-				err = fieldCountError(len(fields), len(p.m.header))
-			}
-			handle(rec, off, fields, nil, nil, err)
-		})
+		}
+		out = o.appendCSV(out, p.outDelim, p.cfg.Uncertainty, &p.scratch)
+		out = append(out, '\n')
+	case JSONL:
+		p.vals = o.values(p.vals[:0], p.cfg.Uncertainty, &p.scratch)
+		out = p.appendJSON(out, r.fields, r.keys, r.raws)
+		out = append(out, '\n')
+	case Table:
+		p.vals = o.values(p.vals[:0], p.cfg.Uncertainty, &p.scratch)
+		cr.res.table = append(cr.res.table, append(append([]string{}, r.fields...), p.vals...))
 	}
-	for _, fc := range counts {
-		res.flags[fc.code] += fc.n
+	cr.res.out = out
+}
+
+// finish totals the chunk's counts and learns its output size.
+func (p *processor) finish(cr *chunkRun) result {
+	for _, fc := range cr.counts {
+		cr.res.flags[fc.code] += fc.n
 	}
-	for _, fc := range assumed {
-		res.assumed[fc.code] += fc.n
+	for _, fc := range cr.assumed {
+		cr.res.assumed[fc.code] += fc.n
 	}
-	res.out = out
-	if len(c.data) > 0 {
+	if n := len(cr.c.data); n > 0 {
 		// Output size per input byte for the next chunk, in quarters, with
 		// room to spare, so that the buffer is not regrown row by row.
-		p.growth = max(p.growth, 4*len(out)/len(c.data)+2)
+		p.growth = max(p.growth, 4*len(cr.res.out)/n+2)
 	}
-	res.rows = row
-	return res
+	cr.res.rows = cr.row
+	return cr.res
 }
 
 // computeDirect computes a row of plain numbers without reading it into

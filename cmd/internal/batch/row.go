@@ -206,7 +206,8 @@ type cacheShard struct {
 }
 
 // cacheKey is a medium id and the bits of the eight conditions (NaN for
-// unset has one bit pattern, so unset conditions compare equal).
+// unset has one bit pattern, so unset conditions compare equal); shardOf
+// hashes all nine words.
 type cacheKey [9]uint64
 
 type cached struct {
@@ -223,6 +224,11 @@ func newMediumCache(files *mediumFiles) *mediumCache {
 }
 
 const shardLimit = 1 << 13 // entries per shard; 131072 in all
+
+// shardOf is the shard that holds a key: one hash over the whole key.
+func shardOf(k *cacheKey) int {
+	return int(hashWords(k[:]) % uint64(len(mediumCache{}.shards)))
+}
 
 var canonicalNaN = math.Float64bits(math.NaN())
 
@@ -258,8 +264,7 @@ func (mc *mediumCache) key(c media.Conditions) cacheKey {
 // lookup returns the medium's properties; the result must not be modified.
 func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	k := mc.key(c)
-	h := k[1]*31 + k[3]*17 + k[6]*7 + k[0]
-	sh := &mc.shards[(h^h>>29)%uint64(len(mc.shards))]
+	sh := &mc.shards[shardOf(&k)]
 	sh.mu.Lock()
 	e, ok := sh.m[k]
 	sh.mu.Unlock()

@@ -32,8 +32,17 @@ var templates = []template{
 	{"swallow", "air", 170, 30, 60, 7, 0, 19, 330},
 }
 
-// Generate writes the header and n rows, reproducibly for a seed.
-func Generate(w io.Writer, n int, seed uint64) error {
+// Generate writes the header and n rows, reproducibly for a seed. Its
+// medium conditions are of middling variety: temperatures in 0.1 °C steps
+// and altitudes in 10 m steps give about 60,000 distinct conditions.
+func Generate(w io.Writer, n int, seed uint64) error { return generate(w, n, seed, false) }
+
+// GenerateFew is [Generate] with few distinct medium conditions (5 °C
+// steps of temperature, 2 PSU of salinity and 500 m of altitude; 38 in
+// all), as in a survey of a few sites, each at its own conditions.
+func GenerateFew(w io.Writer, n int, seed uint64) error { return generate(w, n, seed, true) }
+
+func generate(w io.Writer, n int, seed uint64, few bool) error {
 	r := rand.New(rand.NewPCG(seed, 0x5eed))
 	bw := bufio.NewWriterSize(w, 1<<20)
 	bw.WriteString(Header)
@@ -49,18 +58,26 @@ func Generate(w io.Writer, n int, seed uint64) error {
 		b = append(b, ',')
 		b = append(b, t.medium...)
 		b = append(b, ',')
+		// coarse keeps k of n steps of a draw: the same draws either way,
+		// so that Generate's rows do not depend on GenerateFew.
+		coarse := func(draw, steps, k int) float64 {
+			if few {
+				draw -= draw % (steps / k)
+			}
+			return float64(draw)
+		}
 		switch t.medium {
 		case "air":
-			f(5+float64(r.IntN(250))/10, 1) // 5.0–29.9 °C in 0.1 °C steps, as loggers report
+			f(5+coarse(r.IntN(250), 250, 5)/10, 1) // 5.0–29.9 °C in 0.1 °C steps, as loggers report
 			b = append(b, ",,"...)
-			f(float64(10*r.IntN(200)), 0) // 0–1990 m in 10 m steps
+			f(10*coarse(r.IntN(200), 200, 4), 0) // 0–1990 m in 10 m steps
 		case "seawater":
-			f(float64(r.IntN(200))/10, 1)
+			f(coarse(r.IntN(200), 200, 4)/10, 1)
 			b = append(b, ',')
-			f(30+float64(r.IntN(60))/10, 1)
+			f(30+coarse(r.IntN(60), 60, 3)/10, 1)
 			b = append(b, ',')
 		default:
-			f(float64(r.IntN(300))/10, 1)
+			f(coarse(r.IntN(300), 300, 6)/10, 1)
 			b = append(b, ",,"...)
 		}
 		l := t.length * scale
