@@ -93,6 +93,11 @@ type Properties struct {
 	// the name.
 	Gas bool
 
+	// Water is true for the built-in fresh and sea water: the solvent is
+	// water, so dissolved oxygen's diffusivity in water applies (scaled by
+	// viscosity for salt). Physics reads this, never the name.
+	Water bool
+
 	Rheology Rheology // nil for a Newtonian fluid
 
 	Methods  []string

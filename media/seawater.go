@@ -142,6 +142,7 @@ func seawater(tC, sp, pPa float64, brief bool) (Properties, error) {
 		return Properties{}, err
 	}
 	p := blank("seawater")
+	p.Water = true
 	p.TemperatureC, p.PressurePa = tC, pPa
 	p.SalinityPractical, p.SalinityAbsolute = sp, AbsoluteFromPractical(sp)
 	p.SeaPressureDbar = dbar

@@ -185,6 +185,7 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 		return Properties{}, err
 	}
 	p := blank("freshwater")
+	p.Water = true
 	p.TemperatureC, p.PressurePa = tC, pPa
 	p.SeaPressureDbar = (pPa - StandardPressurePa) / 1e4
 	p.Density = WaterDensityIF97(tK, pPa)

@@ -438,13 +438,13 @@ func diffusion(r *Result, o *Organism, m *media.Properties, l float64) {
 	switch {
 	case !math.IsNaN(o.Diffusivity):
 		r.Diffusivity = o.Diffusivity
-	case m.Medium == media.KindFreshWater:
-		r.Diffusivity = OxygenDiffusivityWater(m.TemperatureC)
-	case m.Medium == media.KindSeawater:
+	case m.Water && m.SalinityAbsolute > 0:
 		// Sea water's viscosity is pure water's at the same temperature and
 		// pressure times the Sharqawy et al. factor, so that factor alone is
 		// the viscosity ratio.
 		r.Diffusivity = StokesEinsteinScale(OxygenDiffusivityWater(m.TemperatureC), 1, media.SeawaterViscosity(1, m.TemperatureC, m.SalinityAbsolute))
+	case m.Water:
+		r.Diffusivity = OxygenDiffusivityWater(m.TemperatureC)
 	}
 	if !math.IsNaN(r.Diffusivity) {
 		r.Peclet = Peclet(o.Speed, l, r.Diffusivity)

@@ -58,3 +58,43 @@ func TestGasNotNameSwitchesPhysics(t *testing.T) {
 		}
 	}
 }
+
+// The dissolved-oxygen default of the Péclet number follows
+// Properties.Water, not the medium's name: fresh and sea water have it
+// (Han & Bartels 1996 at 25 °C, 2.00e-9 m²/s by their formula, as in
+// TestOxygenDiffusivity; sea water lower by Sharqawy et al.'s viscosity
+// factor, Stokes–Einstein), a copy of fresh water with Water unset has no
+// diffusivity, and a renamed one keeps it.
+func TestWaterNotNameGivesOxygenDiffusivity(t *testing.T) {
+	fresh, err := media.FreshWater(25, media.StandardPressurePa)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sea, err := media.Seawater(25, 35, media.StandardPressurePa)
+	if err != nil {
+		t.Fatal(err)
+	}
+	notWater, renamed := fresh, fresh
+	notWater.Water = false
+	renamed.Medium = "tank water"
+	o := Organism{Body: Body{Shape: Sphere, Length: 1e-4}, Speed: 1e-3}
+	want := OxygenDiffusivityWater(25)
+	ratio := media.SeawaterViscosity(1, 25, sea.SalinityAbsolute)
+	for _, c := range []struct {
+		name string
+		m    media.Properties
+		d    float64 // NaN: none
+	}{{"fresh", fresh, want}, {"renamed", renamed, want}, {"not water", notWater, math.NaN()}, {"sea", sea, want / ratio}} {
+		r, err := Calc(o, c.m)
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if math.IsNaN(c.d) != math.IsNaN(r.Diffusivity) || (!math.IsNaN(c.d) && math.Abs(r.Diffusivity/c.d-1) > 1e-12) {
+			t.Errorf("%s: diffusivity %g, want %g", c.name, r.Diffusivity, c.d)
+		}
+	}
+	checkRel(t, "fresh water at 25 °C", OxygenDiffusivityWater(25), 2.00e-9, 0.005)
+	// Sharqawy et al. (2010) eq. 22 by hand at 25 °C and S = 0.035165 kg/kg:
+	// A = 1.981, B = 6.379, 1 + A S + B S² = 1.0775.
+	checkRel(t, "sea/fresh viscosity ratio, 25 °C", ratio, 1.0775, 0.001)
+}

@@ -52,6 +52,9 @@ func (w condWord) medium() string { return builtinName[w&0xff] }
 // gas is media.Properties.Gas of the word's built-in medium.
 func (w condWord) gas() bool { return builtinGas[w&0xff] }
 
+// water is media.Properties.Water of the word's built-in medium.
+func (w condWord) water() bool { return builtinWater[w&0xff] }
+
 // given marks condition i (0–7) as given.
 func (w condWord) given(i int) condWord { return w | 1<<(givenShift+i) }
 
@@ -81,6 +84,9 @@ var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.
 
 // builtinGas is media.Properties.Gas of each built-in medium, by the same index.
 var builtinGas = [4]bool{1: true}
+
+// builtinWater is media.Properties.Water of each built-in medium, by the same index.
+var builtinWater = [4]bool{2: true, 3: true}
 
 // outOfRange are shared, read-only warnings that rebuilt properties point to.
 var outOfRange = func() []media.Warning {
@@ -180,7 +186,7 @@ func (l *localMedia) lookup(c media.Conditions) (*media.Properties, error) {
 func (l *localMedia) rebuild(s *mediaSlot) {
 	nan := math.NaN()
 	n := s.key.w0.warnings()
-	l.p = media.Properties{Medium: s.key.w0.medium(), Gas: s.key.w0.gas(), TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
+	l.p = media.Properties{Medium: s.key.w0.medium(), Gas: s.key.w0.gas(), Water: s.key.w0.water(), TemperatureC: s.tempC, Density: s.rho, DynamicViscosity: s.mu,
 		KinematicViscosity: s.nu, PressurePa: nan, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan,
 		Warnings: outOfRange[:n:n]}

@@ -274,7 +274,7 @@ func (mc *mediumCache) lookup(c media.Conditions) (*media.Properties, error) {
 	p, err := mc.properties(c)
 	e = &cached{err: err}
 	nan := math.NaN()
-	e.p = media.Properties{Medium: p.Medium, Gas: p.Gas, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
+	e.p = media.Properties{Medium: p.Medium, Gas: p.Gas, Water: p.Water, TemperatureC: p.TemperatureC, Density: p.Density, DynamicViscosity: p.DynamicViscosity,
 		KinematicViscosity: p.KinematicViscosity, Rheology: p.Rheology, PressurePa: p.PressurePa, SalinityPractical: nan, SalinityAbsolute: nan,
 		SeaPressureDbar: nan, DepthM: nan, AltitudeM: nan, GeopotentialM: nan, HumidityPercent: nan}
 	for _, w := range p.Warnings {
