@@ -22,6 +22,7 @@
 //
 // A [Properties] value is a fluid at fixed conditions. Physics reads its
 // properties, never its name: [Properties.Gas] says organisms fly in it,
+// [Properties.Water] that dissolved oxygen diffuses as in water, and
 // [Properties.ApparentViscosity] takes a shear rate, so that a measured
 // non-Newtonian fluid (with a [Rheology]) fits the same type as water.
 //
