@@ -55,6 +55,24 @@ func ScalingFit(x, y []float64) Fit {
 	t := distuv.StudentsT{Mu: 0, Sigma: 1, Nu: n - 2}.Quantile(0.975)
 
 	f.OLSIntercept, f.OLSSlope = stat.LinearRegression(lx, ly, nil, false)
+	f.slopeIntervals(r, sx, sy, n, t)
+	f.SMAIntercept = stat.Mean(ly, nil) - f.SMASlope*stat.Mean(lx, nil)
+
+	mx := stat.Mean(lx, nil)
+	sxx := sx * sx * (n - 1)
+	olsSE := math.Sqrt(residualVariance(lx, ly, f.OLSIntercept, f.OLSSlope) * (1/n + mx*mx/sxx))
+	f.OLSInterceptLow, f.OLSInterceptHigh = f.OLSIntercept-t*olsSE, f.OLSIntercept+t*olsSE
+	varB := f.SMASlope * f.SMASlope * (1 - r*r) / (n - 2)
+	smaSE := math.Sqrt(residualVariance(lx, ly, f.SMAIntercept, f.SMASlope)/n + mx*mx*varB)
+	f.SMAInterceptLow, f.SMAInterceptHigh = f.SMAIntercept-t*smaSE, f.SMAIntercept+t*smaSE
+	return f
+}
+
+// slopeIntervals sets the OLS slope's 95 % interval, the SMA slope and its
+// interval from the correlation r, the standard deviations of the logs, n
+// and Student's t (the formulas in ScalingFit's comment), once f.OLSSlope
+// is set.
+func (f *Fit) slopeIntervals(r, sx, sy, n, t float64) {
 	se := sy / sx * math.Sqrt((1-r*r)/(n-2))
 	f.OLSLow, f.OLSHigh = f.OLSSlope-t*se, f.OLSSlope+t*se
 
@@ -66,16 +84,6 @@ func ScalingFit(x, y []float64) Fit {
 	b := (1 - r*r) * t * t / (n - 2)
 	lo, hi := f.SMASlope*(math.Sqrt(b+1)-math.Sqrt(b)), f.SMASlope*(math.Sqrt(b+1)+math.Sqrt(b))
 	f.SMALow, f.SMAHigh = math.Min(lo, hi), math.Max(lo, hi)
-	f.SMAIntercept = stat.Mean(ly, nil) - f.SMASlope*stat.Mean(lx, nil)
-
-	mx := stat.Mean(lx, nil)
-	sxx := sx * sx * (n - 1)
-	olsSE := math.Sqrt(residualVariance(lx, ly, f.OLSIntercept, f.OLSSlope) * (1/n + mx*mx/sxx))
-	f.OLSInterceptLow, f.OLSInterceptHigh = f.OLSIntercept-t*olsSE, f.OLSIntercept+t*olsSE
-	varB := f.SMASlope * f.SMASlope * (1 - r*r) / (n - 2)
-	smaSE := math.Sqrt(residualVariance(lx, ly, f.SMAIntercept, f.SMASlope)/n + mx*mx*varB)
-	f.SMAInterceptLow, f.SMAInterceptHigh = f.SMAIntercept-t*smaSE, f.SMAIntercept+t*smaSE
-	return f
 }
 
 // residualVariance is Σ(y − a − b x)²/(n − 2).

@@ -142,17 +142,7 @@ func streamFit(pass pairPass) (Fit, error) {
 	cov := (sxy - cx*cy/n) / (n - 1)
 	f.OLSSlope = cov / varX
 	f.OLSIntercept = my - f.OLSSlope*mx
-	se := sy / sx * math.Sqrt((1-r*r)/(n-2))
-	f.OLSLow, f.OLSHigh = f.OLSSlope-t*se, f.OLSSlope+t*se
-
-	sign := 1.0
-	if r < 0 {
-		sign = -1
-	}
-	f.SMASlope = sign * sy / sx
-	b := (1 - r*r) * t * t / (n - 2)
-	lo, hi := f.SMASlope*(math.Sqrt(b+1)-math.Sqrt(b)), f.SMASlope*(math.Sqrt(b+1)+math.Sqrt(b))
-	f.SMALow, f.SMAHigh = math.Min(lo, hi), math.Max(lo, hi)
+	f.slopeIntervals(r, sx, sy, n, t)
 	f.SMAIntercept = my - f.SMASlope*mx
 
 	var olsRes, smaRes float64 // residualVariance of each line
