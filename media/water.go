@@ -160,11 +160,12 @@ func waterFreezingK(pPa float64) float64 {
 // those conditions, above 350 °C (the end of IF97 region 1) or above
 // [WaterMaxPressurePa]; below 0 °C and between 100 and 200 MPa the result
 // carries a warning.
-func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false) }
+func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false, nil) }
 
 // freshWater is [FreshWater]; brief leaves out the method notes and the
-// warnings' texts.
-func freshWater(tC, pPa float64, brief bool) (Properties, error) {
+// warnings' texts. iso, when not nil, is the IF97 isotherm already built
+// for tC (by the depth-to-pressure step), so it is not built twice.
+func freshWater(tC, pPa float64, brief bool, iso *if97Isotherm) (Properties, error) {
 	if !finite(tC, pPa) {
 		return Properties{}, errorf("fresh water needs finite temperature and pressure")
 	}
@@ -187,7 +188,11 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 	p := blank("freshwater")
 	p.TemperatureC, p.PressurePa = tC, pPa
 	p.SeaPressureDbar = (pPa - StandardPressurePa) / 1e4
-	p.Density = WaterDensityIF97(tK, pPa)
+	if iso == nil {
+		iso = new(if97Isotherm)
+		iso.set(tK)
+	}
+	p.Density = iso.density(pPa)
 	p.DynamicViscosity = WaterViscosity(tK, p.Density)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
 	if !brief {
