@@ -321,8 +321,9 @@ type scratch struct {
 	flags      []string
 	assumed    []string
 	reasons    []byte
-	cell       []byte // one computed text cell (computedColumn.text)
-	shapeGiven bool   // the row names its shape (set before each row)
+	cell       []byte  // one computed text cell (computedColumn.text)
+	row        outcome // the row's outcome, whose address the text columns take (kept here, not copied to the heap per row)
+	shapeGiven bool    // the row names its shape (set before each row)
 }
 
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
@@ -413,12 +414,13 @@ func (o outcome) reasons(s *scratch) []byte {
 // values returns the computed columns as text, in the order of columns().
 func (o outcome) values(dst []string, withUnc bool, s *scratch) []string {
 	var buf [32]byte
+	s.row = o
 	for i := range computedColumns {
 		c := &computedColumns[i]
 		if c.num != nil {
 			dst = append(dst, string(appendNum(buf[:0], c.num(o.r))))
 		} else {
-			s.cell = c.text(s.cell[:0], &o, s)
+			s.cell = c.text(s.cell[:0], &s.row, s)
 			dst = append(dst, string(s.cell))
 		}
 	}
@@ -461,6 +463,7 @@ func (o outcome) uncValues() []float64 {
 // by the delimiter, without building intermediate strings.
 func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byte {
 	b = slices.Grow(b, 256)
+	s.row = o
 	for i := range computedColumns {
 		c := &computedColumns[i]
 		b = append(b, delim)
@@ -468,10 +471,10 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byt
 		case c.num != nil:
 			b = appendNum(b, c.num(o.r))
 		case c.quoted:
-			s.cell = c.text(s.cell[:0], &o, s)
+			s.cell = c.text(s.cell[:0], &s.row, s)
 			b = appendBytesField(b, s.cell, delim)
 		default:
-			b = c.text(b, &o, s)
+			b = c.text(b, &s.row, s)
 		}
 	}
 	if withUnc {
