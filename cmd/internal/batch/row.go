@@ -7,6 +7,7 @@ import (
 	"sort"
 	"strings"
 	"sync"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/cmd/internal/decimal"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -459,6 +460,21 @@ func (o outcome) uncValues() []float64 {
 		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
+// appendTextField appends the text column c of the row s.row to b as a
+// CSV or TSV field: written in place, and rewritten in quotes only when it
+// holds something that needs them (the rare case), so the common cell is
+// not copied twice.
+func appendTextField(b []byte, c *computedColumn, delim byte, s *scratch) []byte {
+	start := len(b)
+	b = c.text(b, &s.row, s)
+	cell := b[start:]
+	if !needsQuote(unsafe.String(unsafe.SliceData(cell), len(cell)), delim) {
+		return b
+	}
+	s.cell = append(s.cell[:0], cell...)
+	return appendBytesField(b[:start], s.cell, delim)
+}
+
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
 // by the delimiter, without building intermediate strings.
 func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byte {
@@ -471,8 +487,7 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byt
 		case c.num != nil:
 			b = appendNum(b, c.num(o.r))
 		case c.quoted:
-			s.cell = c.text(s.cell[:0], &s.row, s)
-			b = appendBytesField(b, s.cell, delim)
+			b = appendTextField(b, c, delim, s)
 		default:
 			b = c.text(b, &s.row, s)
 		}
