@@ -94,13 +94,18 @@ type if97Isotherm struct {
 func (t *if97Isotherm) set(tK float64) {
 	t.tK = tK
 	b := if97TStar/tK - 1.222
-	// Integer powers by repeated multiplication.
+	// Integer powers by repeated multiplication, the running power kept in
+	// a register rather than read back from the table at each step.
 	t.pb[41] = 1
+	up := 1.0
 	for j := 1; j <= 17; j++ {
-		t.pb[41+j] = t.pb[40+j] * b
+		up *= b
+		t.pb[41+j] = up
 	}
-	for j, bi := 1, 1/b; j <= 41; j++ {
-		t.pb[41-j] = t.pb[42-j] * bi
+	down, bi := 1.0, 1/b
+	for j := 1; j <= 41; j++ {
+		down *= bi
+		t.pb[41-j] = down
 	}
 }
 
