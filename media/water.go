@@ -113,11 +113,13 @@ func (t *if97Isotherm) set(tK float64) {
 func (t *if97Isotherm) density(pPa float64) float64 {
 	pi := pPa / if97PStar
 	a := 7.1 - pi
-	// a^k for k = 0…31 by repeated multiplication
+	// a^k for k = 0…31 by repeated multiplication, the running power in a
+	// register
 	var pa [32]float64
 	pa[0] = 1
-	for k := 1; k < len(pa); k++ {
-		pa[k] = pa[k-1] * a
+	for k, ak := 1, 1.0; k < len(pa); k++ {
+		ak *= a
+		pa[k] = ak
 	}
 	gammaPi := 0.0
 	for _, c := range if97Region1 {
