@@ -122,14 +122,31 @@ func (t *if97Isotherm) density(pPa float64) float64 {
 		pa[k] = ak
 	}
 	gammaPi := 0.0
-	for _, c := range if97Region1 {
-		if c.i == 0 {
-			continue // the I = 0 terms do not depend on π
-		}
-		gammaPi += -c.n * float64(c.i) * pa[c.i-1] * t.pb[41+c.j]
+	for _, c := range if97GammaPiTerms {
+		gammaPi += c.nI * pa[c.a] * t.pb[c.b]
 	}
 	v := pi * gammaPi * if97R * t.tK / pPa // Table 4: v = (RT/p) π γ_π
 	return 1 / v
+}
+
+// if97GammaPiTerms are the terms of γ_π = Σ −n_i I_i (7.1 − π)^(I_i−1)
+// (τ − 1.222)^J_i, in the order of Table 2, without the I = 0 terms, which
+// do not depend on π: −n_i·I_i (the same product the sum would form) and
+// the indices of the two powers in the density's and the isotherm's tables.
+var if97GammaPiTerms = func() (terms []if97GammaPiTerm) {
+	for _, c := range if97Region1 {
+		if c.i != 0 {
+			terms = append(terms, if97GammaPiTerm{nI: -c.n * float64(c.i), a: c.i - 1, b: 41 + c.j})
+		}
+	}
+	return terms
+}()
+
+// if97GammaPiTerm is one term of γ_π: −n·I and where (7.1 − π)^(I−1) and
+// (τ − 1.222)^J are found.
+type if97GammaPiTerm struct {
+	nI   float64
+	a, b int
 }
 
 // if97Region1 holds I_i, J_i, n_i of IAPWS-IF97 Table 2.
