@@ -289,16 +289,19 @@ func water(c Conditions, brief bool) (Properties, error) {
 		}
 		props, err = seawater(t, sp, p, brief)
 	} else {
+		var iso *if97Isotherm // built once for the depth step and the density
 		if math.IsNaN(p) {
 			p = surface
 			if depth > 0 {
-				p = freshPressureAtDepth(t, surface, depth)
+				iso = new(if97Isotherm)
+				iso.set(t + ZeroCelsiusK)
+				p = freshPressureAtDepth(iso, surface, depth)
 				if !brief {
 					notes = append(notes, "depth to pressure: hydrostatic, IAPWS-IF97 density at the mean pressure, standard gravity")
 				}
 			}
 		}
-		props, err = freshWater(t, p, brief)
+		props, err = freshWater(t, p, brief, iso)
 	}
 	if err != nil {
 		return Properties{}, err
@@ -311,7 +314,7 @@ func water(c Conditions, brief bool) (Properties, error) {
 }
 
 // freshPressureAtDepth returns the absolute pressure at depth z (m) in fresh
-// water of temperature tC below a surface at pressure ps, integrating
+// water of the isotherm iso below a surface at pressure ps, integrating
 // dp = ρ g dz with the IAPWS-IF97 density at the mean pressure of the column.
 //
 // The fixed-point iteration p ← ps + ρ((ps+p)/2)·g·z contracts by
@@ -321,9 +324,7 @@ func water(c Conditions, brief bool) (Properties, error) {
 // estimate of the error left, is below depthPressureTol, or after five
 // steps. TestFreshPressureAtDepthConverged bounds the difference from the
 // converged pressure over the accepted temperatures and depths.
-func freshPressureAtDepth(tC, ps, z float64) float64 {
-	var iso if97Isotherm
-	iso.set(tC + ZeroCelsiusK)
+func freshPressureAtDepth(iso *if97Isotherm, ps, z float64) float64 {
 	p := ps + 1000*StandardGravity*z
 	prev := 0.0 // the step before, 0 before the second step
 	for range 5 {

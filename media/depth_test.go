@@ -52,8 +52,10 @@ func TestFreshPressureAtDepthConverged(t *testing.T) {
 					continue // refused as boiling
 				}
 				n++
-				got := freshPressureAtDepth(tC, ps, z)
 				tK := tC + ZeroCelsiusK
+				var iso if97Isotherm
+				iso.set(tK)
+				got := freshPressureAtDepth(&iso, ps, z)
 				worstP = math.Max(worstP, math.Abs(got-want)-math.Abs(five-want))
 				worstRho = math.Max(worstRho, math.Abs(WaterDensityIF97(tK, got)/WaterDensityIF97(tK, five)-1))
 			}

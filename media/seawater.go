@@ -82,11 +82,12 @@ func SeawaterFreezingC(sp, dbar float64) float64 {
 // Tech. Pap. Mar. Sci. 44, p. 28 (a standard ocean of 0 °C and SP 35 with
 // gravity varying with latitude and pressure).
 func SeaPressureAtDepth(z, lat float64) float64 {
-	p := z // dbar ≈ m as a first guess
+	x := sinSquared(lat) // once, not at every evaluation of the depth
+	p := z               // dbar ≈ m as a first guess
 	for range 30 {
-		f := DepthAtSeaPressure(p, lat) - z
+		f := depthAtSeaPressure(p, x) - z
 		h := 1e-3
-		df := (DepthAtSeaPressure(p+h, lat) - DepthAtSeaPressure(p-h, lat)) / (2 * h)
+		df := (depthAtSeaPressure(p+h, x) - depthAtSeaPressure(p-h, x)) / (2 * h)
 		step := f / df
 		p -= step
 		if math.Abs(step) < 1e-9 {
@@ -100,8 +101,18 @@ func SeaPressureAtDepth(z, lat float64) float64 {
 // latitude lat (degrees) by the formula of Saunders & Fofonoff (1976) in
 // Fofonoff & Millard (1983), p. 28.
 func DepthAtSeaPressure(p, lat float64) float64 {
+	return depthAtSeaPressure(p, sinSquared(lat))
+}
+
+// sinSquared returns sin²(lat) for lat in degrees, the x of the
+// Saunders–Fofonoff gravity formula.
+func sinSquared(lat float64) float64 {
 	x := math.Sin(lat * math.Pi / 180)
-	x *= x
+	return x * x
+}
+
+// depthAtSeaPressure is [DepthAtSeaPressure] with x = sin²(latitude).
+func depthAtSeaPressure(p, x float64) float64 {
 	g := 9.780318*(1+(5.2788e-3+2.36e-5*x)*x) + 1.092e-6*p
 	return (((-1.82e-15*p+2.279e-10)*p-2.2512e-5)*p + 9.72659) * p / g
 }

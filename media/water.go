@@ -94,13 +94,18 @@ type if97Isotherm struct {
 func (t *if97Isotherm) set(tK float64) {
 	t.tK = tK
 	b := if97TStar/tK - 1.222
-	// Integer powers by repeated multiplication.
+	// Integer powers by repeated multiplication, the running power kept in
+	// a register rather than read back from the table at each step.
 	t.pb[41] = 1
+	up := 1.0
 	for j := 1; j <= 17; j++ {
-		t.pb[41+j] = t.pb[40+j] * b
+		up *= b
+		t.pb[41+j] = up
 	}
-	for j, bi := 1, 1/b; j <= 41; j++ {
-		t.pb[41-j] = t.pb[42-j] * bi
+	down, bi := 1.0, 1/b
+	for j := 1; j <= 41; j++ {
+		down *= bi
+		t.pb[41-j] = down
 	}
 }
 
@@ -108,21 +113,40 @@ func (t *if97Isotherm) set(tK float64) {
 func (t *if97Isotherm) density(pPa float64) float64 {
 	pi := pPa / if97PStar
 	a := 7.1 - pi
-	// a^k for k = 0…31 by repeated multiplication
+	// a^k for k = 0…31 by repeated multiplication, the running power in a
+	// register
 	var pa [32]float64
 	pa[0] = 1
-	for k := 1; k < len(pa); k++ {
-		pa[k] = pa[k-1] * a
+	for k, ak := 1, 1.0; k < len(pa); k++ {
+		ak *= a
+		pa[k] = ak
 	}
 	gammaPi := 0.0
-	for _, c := range if97Region1 {
-		if c.i == 0 {
-			continue // the I = 0 terms do not depend on π
-		}
-		gammaPi += -c.n * float64(c.i) * pa[c.i-1] * t.pb[41+c.j]
+	for _, c := range if97GammaPiTerms {
+		gammaPi += c.nI * pa[c.a] * t.pb[c.b]
 	}
 	v := pi * gammaPi * if97R * t.tK / pPa // Table 4: v = (RT/p) π γ_π
 	return 1 / v
+}
+
+// if97GammaPiTerms are the terms of γ_π = Σ −n_i I_i (7.1 − π)^(I_i−1)
+// (τ − 1.222)^J_i, in the order of Table 2, without the I = 0 terms, which
+// do not depend on π: −n_i·I_i (the same product the sum would form) and
+// the indices of the two powers in the density's and the isotherm's tables.
+var if97GammaPiTerms = func() (terms []if97GammaPiTerm) {
+	for _, c := range if97Region1 {
+		if c.i != 0 {
+			terms = append(terms, if97GammaPiTerm{nI: -c.n * float64(c.i), a: c.i - 1, b: 41 + c.j})
+		}
+	}
+	return terms
+}()
+
+// if97GammaPiTerm is one term of γ_π: −n·I and where (7.1 − π)^(I−1) and
+// (τ − 1.222)^J are found.
+type if97GammaPiTerm struct {
+	nI   float64
+	a, b int
 }
 
 // if97Region1 holds I_i, J_i, n_i of IAPWS-IF97 Table 2.
@@ -160,11 +184,12 @@ func waterFreezingK(pPa float64) float64 {
 // those conditions, above 350 °C (the end of IF97 region 1) or above
 // [WaterMaxPressurePa]; below 0 °C and between 100 and 200 MPa the result
 // carries a warning.
-func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false) }
+func FreshWater(tC, pPa float64) (Properties, error) { return freshWater(tC, pPa, false, nil) }
 
 // freshWater is [FreshWater]; brief leaves out the method notes and the
-// warnings' texts.
-func freshWater(tC, pPa float64, brief bool) (Properties, error) {
+// warnings' texts. iso, when not nil, is the IF97 isotherm already built
+// for tC (by the depth-to-pressure step), so it is not built twice.
+func freshWater(tC, pPa float64, brief bool, iso *if97Isotherm) (Properties, error) {
 	if !finite(tC, pPa) {
 		return Properties{}, errorf("fresh water needs finite temperature and pressure")
 	}
@@ -188,7 +213,11 @@ func freshWater(tC, pPa float64, brief bool) (Properties, error) {
 	p.Water = true
 	p.TemperatureC, p.PressurePa = tC, pPa
 	p.SeaPressureDbar = (pPa - StandardPressurePa) / 1e4
-	p.Density = WaterDensityIF97(tK, pPa)
+	if iso == nil {
+		iso = new(if97Isotherm)
+		iso.set(tK)
+	}
+	p.Density = iso.density(pPa)
 	p.DynamicViscosity = WaterViscosity(tK, p.Density)
 	p.KinematicViscosity = p.DynamicViscosity / p.Density
 	if !brief {

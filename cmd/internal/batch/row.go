@@ -7,6 +7,7 @@ import (
 	"sort"
 	"strings"
 	"sync"
+	"unsafe"
 
 	"github.com/flowregime/flowregime/cmd/internal/decimal"
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
@@ -321,8 +322,9 @@ type scratch struct {
 	flags      []string
 	assumed    []string
 	reasons    []byte
-	cell       []byte // one computed text cell (computedColumn.text)
-	shapeGiven bool   // the row names its shape (set before each row)
+	cell       []byte  // one computed text cell (computedColumn.text)
+	row        outcome // the row's outcome, whose address the text columns take (kept here, not copied to the heap per row)
+	shapeGiven bool    // the row names its shape (set before each row)
 }
 
 // compute evaluates one row. With cfg.Uncertainty it also propagates the
@@ -413,12 +415,13 @@ func (o outcome) reasons(s *scratch) []byte {
 // values returns the computed columns as text, in the order of columns().
 func (o outcome) values(dst []string, withUnc bool, s *scratch) []string {
 	var buf [32]byte
+	s.row = o
 	for i := range computedColumns {
 		c := &computedColumns[i]
 		if c.num != nil {
 			dst = append(dst, string(appendNum(buf[:0], c.num(o.r))))
 		} else {
-			s.cell = c.text(s.cell[:0], &o, s)
+			s.cell = c.text(s.cell[:0], &s.row, s)
 			dst = append(dst, string(s.cell))
 		}
 	}
@@ -457,10 +460,26 @@ func (o outcome) uncValues() []float64 {
 		u.Drag.Low95, u.Drag.High95, u.Power.Low95, u.Power.High95, p}
 }
 
+// appendTextField appends the text column c of the row s.row to b as a
+// CSV or TSV field: written in place, and rewritten in quotes only when it
+// holds something that needs them (the rare case), so the common cell is
+// not copied twice.
+func appendTextField(b []byte, c *computedColumn, delim byte, s *scratch) []byte {
+	start := len(b)
+	b = c.text(b, &s.row, s)
+	cell := b[start:]
+	if !needsQuote(unsafe.String(unsafe.SliceData(cell), len(cell)), delim) {
+		return b
+	}
+	s.cell = append(s.cell[:0], cell...)
+	return appendBytesField(b[:start], s.cell, delim)
+}
+
 // appendCSV appends the computed columns to a CSV or TSV row, each preceded
 // by the delimiter, without building intermediate strings.
 func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byte {
 	b = slices.Grow(b, 256)
+	s.row = o
 	for i := range computedColumns {
 		c := &computedColumns[i]
 		b = append(b, delim)
@@ -468,10 +487,9 @@ func (o outcome) appendCSV(b []byte, delim byte, withUnc bool, s *scratch) []byt
 		case c.num != nil:
 			b = appendNum(b, c.num(o.r))
 		case c.quoted:
-			s.cell = c.text(s.cell[:0], &o, s)
-			b = appendBytesField(b, s.cell, delim)
+			b = appendTextField(b, c, delim, s)
 		default:
-			b = c.text(b, &o, s)
+			b = c.text(b, &s.row, s)
 		}
 	}
 	if withUnc {
