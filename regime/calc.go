@@ -155,6 +155,10 @@ type Result struct {
 	Peclet           float64
 	Diffusivity      float64 // m²/s
 	Warnings         []Warning
+
+	// flightStore is where Power.Flight points: made once and reused by
+	// CalcInto, so that a flyer's row allocates nothing.
+	flightStore *FlightPower
 }
 
 // Calc computes Reynolds and Strouhal numbers, regime, drag and power for
@@ -178,8 +182,10 @@ type Options struct {
 }
 
 // CalcInto is [Calc] with options, writing into r. It reuses the storage of
-// r's warning slices, so a loop over millions of organisms allocates
-// nothing once they have grown; r is valid until the next call with it.
+// r's warning slices and of its flight power (Power.Flight points into
+// storage r keeps), so a loop over millions of organisms allocates nothing
+// once they have grown; r, and any copy of it, is valid until the next call
+// with it.
 func CalcInto(r *Result, o Organism, m *media.Properties, opt Options) error {
 	if err := calc(r, &o, m, !opt.Brief); err != nil {
 		return err
@@ -223,7 +229,7 @@ func calc(r *Result, o *Organism, m *media.Properties, all bool) error {
 // storage, with every quantity that may not apply set to NaN.
 func resetResult(r *Result, o *Organism, m *media.Properties) {
 	n := math.NaN()
-	*r = Result{Warnings: r.Warnings[:0], Drag: DragResult{Warnings: r.Drag.Warnings[:0]}, Shape: o.Body.Shape, Medium: *m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
+	*r = Result{Warnings: r.Warnings[:0], Drag: DragResult{Warnings: r.Drag.Warnings[:0]}, flightStore: r.flightStore, Shape: o.Body.Shape, Medium: *m, Strouhal: n, AdvanceRatio: n, ReducedFrequency: n, CoastTime: n, CoastDistance: n, Peclet: n, Diffusivity: n,
 		GeneralizedRe: n, BinghamNumber: n, Deborah: n, Weissenberg: n}
 }
 
@@ -389,7 +395,11 @@ func flightPower(r *Result, o *Organism, m *media.Properties, wings Wings, note 
 	if err != nil {
 		return err
 	}
-	r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: &fp}
+	if r.flightStore == nil {
+		r.flightStore = new(FlightPower)
+	}
+	*r.flightStore = fp
+	r.Power = Power{Kind: PowerFlight, Total: fp.Total, Flight: r.flightStore}
 	switch {
 	case o.Gliding && !math.IsNaN(o.Frequency):
 		r.Power.Kind = PowerGliding

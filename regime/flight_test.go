@@ -228,7 +228,7 @@ func TestZeroMeansNotGiven(t *testing.T) {
 // flight model's parts through the pointer).
 func resultText(r Result) string {
 	fp := r.Power.Flight
-	r.Power.Flight = nil
+	r.Power.Flight, r.flightStore = nil, nil // compared by value below, not by address
 	if fp != nil {
 		return fmt.Sprintf("%+v %+v", r, *fp)
 	}
@@ -251,5 +251,28 @@ func TestFlightZeroInducedFactorIsDefault(t *testing.T) {
 	in.InducedFactor = 0.5
 	if _, err := Flight(in); err == nil {
 		t.Error("k = 0.5 accepted")
+	}
+}
+
+// CalcInto reuses r's storage for a flyer's power, so a loop over many
+// flyers allocates nothing per organism once r has grown (common practice
+// for batch hot paths, no source); Calc still hands each result its own.
+func TestCalcIntoFlyerAllocatesNothing(t *testing.T) {
+	air, err := media.Air(media.AirConditions{TemperatureC: 15, PressurePa: math.NaN()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	bird := Organism{Body: Body{Shape: Spheroid, Length: 0.16, Diameter: 0.035}, Speed: 10, Mass: 0.04, Span: 0.42, WingArea: 0.0168, Frequency: 8}
+	var r Result
+	if err := CalcInto(&r, bird, &air, Options{Brief: true, Screen: true}); err != nil || r.Power.Flight == nil {
+		t.Fatalf("%v, flight %v", err, r.Power.Flight)
+	}
+	if n := testing.AllocsPerRun(100, func() { _ = CalcInto(&r, bird, &air, Options{Brief: true, Screen: true}) }); n != 0 {
+		t.Errorf("CalcInto for a flyer: %v allocations per call, want 0", n)
+	}
+	a, _ := Calc(bird, air)
+	b, _ := Calc(bird, air)
+	if a.Power.Flight == b.Power.Flight {
+		t.Error("two Calc results share one flight power")
 	}
 }
