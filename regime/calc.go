@@ -391,6 +391,9 @@ func powerNeeded(r *Result, o *Organism, m *media.Properties, wings Wings, note 
 func flightPower(r *Result, o *Organism, m *media.Properties, wings Wings, note noter) error {
 	in := o.flightInput(*m, r.Viscosity, wings, note)
 	in.Drag = r.Drag.Chosen.Force // at this speed, already computed
+	if r.flightStore != nil {
+		in.warnings = r.flightStore.Warnings // reused: r is CalcInto's
+	}
 	fp, err := Flight(in)
 	if err != nil {
 		return err

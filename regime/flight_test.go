@@ -270,6 +270,12 @@ func TestCalcIntoFlyerAllocatesNothing(t *testing.T) {
 	if n := testing.AllocsPerRun(100, func() { _ = CalcInto(&r, bird, &air, Options{Brief: true, Screen: true}) }); n != 0 {
 		t.Errorf("CalcInto for a flyer: %v allocations per call, want 0", n)
 	}
+	// Without a wing area the flight model warns: its warnings reuse r's storage too.
+	noArea := bird
+	noArea.WingArea = 0
+	if n := testing.AllocsPerRun(100, func() { _ = CalcInto(&r, noArea, &air, Options{Brief: true, Screen: true}) }); n != 0 || len(r.Power.Flight.Warnings) == 0 {
+		t.Errorf("CalcInto for a flyer with a flight warning: %v allocations per call (want 0), %d flight warnings", n, len(r.Power.Flight.Warnings))
+	}
 	a, _ := Calc(bird, air)
 	b, _ := Calc(bird, air)
 	if a.Power.Flight == b.Power.Flight {

@@ -79,7 +79,8 @@ type FlightInput struct {
 
 	Gliding bool // wings held still: no flapping power, a glide instead
 
-	brief noter // warnings with codes only (batch work)
+	brief    noter     // warnings with codes only (batch work)
+	warnings []Warning // storage the result's warnings may reuse (CalcInto)
 }
 
 // DefaultInducedFactor is the induced-power factor k used when none is
@@ -212,7 +213,7 @@ func Flight(in FlightInput) (FlightPower, error) {
 		w.Length = w.Span / 2
 	}
 	nan := math.NaN()
-	fp := FlightPower{ProfileRatio: nan, ProfileCD: nan, SinkSpeed: nan, GlideRatio: nan, Gliding: in.Gliding}
+	fp := FlightPower{ProfileRatio: nan, ProfileCD: nan, SinkSpeed: nan, GlideRatio: nan, Gliding: in.Gliding, Warnings: in.warnings[:0]}
 	note := !in.brief
 	thrust := in.Mass * media.StandardGravity
 	switch in.Disc {
