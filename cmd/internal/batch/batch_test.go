@@ -40,6 +40,23 @@ func runBatch(t testing.TB, input []byte, cfg Config) (string, []Reject, Summary
 	return out.String(), rejects, sum
 }
 
+// batchRecords runs a CSV table through batch to CSV and returns the
+// output's records, read by Go's strict encoding/csv; a rejected row or
+// output that is not CSV fails the test.
+func batchRecords(t testing.TB, in string, cfg Config) [][]string {
+	t.Helper()
+	cfg.InFormat, cfg.OutFormat = CSV, CSV
+	out, rejects, _ := runBatch(t, []byte(in), cfg)
+	if len(rejects) > 0 {
+		t.Fatalf("rejects: %v", rejects)
+	}
+	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+	if err != nil {
+		t.Fatalf("output is not CSV: %v", err)
+	}
+	return recs
+}
+
 // Every record of a deliberately corrupted file is in the output or in the
 // rejects, with its line number; nothing is lost and nothing panics.
 func TestCorruptFileLosesNoRow(t *testing.T) {
@@ -143,20 +160,13 @@ func TestOrderKept(t *testing.T) {
 
 func itoa(i int) string { return strconv.Itoa(i) }
 
-func TestHeaderMatching(t *testing.T) {
-	cases := []struct {
-		h     string
-		field string
-		unit  string
-	}{
-		{"length (mm)", "length", "mm"},
-		{"speed [cm/s]", "speed", "cm/s"},
-		{"temp_C", "temperature", "C"},
-		{"Body Length", "length", ""},
-		{"length_mm", "length", "mm"},
-		{"Wing-span (cm)", "span", "cm"},
-		{"species", "", ""},
-	}
+// headerCase is a header, the field it must map to ("" for none) and the
+// unit read from it.
+type headerCase struct{ h, field, unit string }
+
+// checkSplitHeader checks splitHeader on every case.
+func checkSplitHeader(t *testing.T, cases []headerCase) {
+	t.Helper()
 	for _, c := range cases {
 		f, u := splitHeader(c.h)
 		name := ""
@@ -167,6 +177,18 @@ func TestHeaderMatching(t *testing.T) {
 			t.Errorf("splitHeader(%q) = %q, %q; want %q, %q", c.h, name, u, c.field, c.unit)
 		}
 	}
+}
+
+func TestHeaderMatching(t *testing.T) {
+	checkSplitHeader(t, []headerCase{
+		{"length (mm)", "length", "mm"},
+		{"speed [cm/s]", "speed", "cm/s"},
+		{"temp_C", "temperature", "C"},
+		{"Body Length", "length", ""},
+		{"length_mm", "length", "mm"},
+		{"Wing-span (cm)", "span", "cm"},
+		{"species", "", ""},
+	})
 	if _, err := newMapping([]string{"length (mm)", "size (cm)"}, nil, nil); err == nil || !strings.Contains(err.Error(), "both hold length") {
 		t.Errorf("duplicate length columns: %v", err)
 	}
@@ -211,11 +233,7 @@ func TestMeasuredMediumColumn(t *testing.T) {
 	dir := "../../../testdata/media"
 	file := filepath.Join(dir, "mucus.json")
 	in := "taxon,length (um),speed (um/s),medium\nciliate,200,50,mucus.json\n"
-	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV, MediaDir: dir})
-	if len(rejects) > 0 {
-		t.Fatalf("rejects: %v", rejects)
-	}
-	recs, _ := csv.NewReader(strings.NewReader(out)).ReadAll()
+	recs := batchRecords(t, in, Config{MediaDir: dir})
 	re, _ := strconv.ParseFloat(recs[1][4+2], 64)
 	mf, err := inputs.LoadMediumFile(file)
 	if err != nil {
@@ -323,14 +341,7 @@ func TestUncertaintyIgnoredFlag(t *testing.T) {
 		"plain,12,40\n" +
 		"given,12±1,40\n" +
 		"note says ±,12,40\n"
-	out, rejects, _ := runBatch(t, []byte(in), Config{InFormat: CSV, OutFormat: CSV})
-	if len(rejects) > 0 {
-		t.Fatalf("rejects: %v", rejects)
-	}
-	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
+	recs := batchRecords(t, in, Config{})
 	for i, want := range []bool{false, true, false} {
 		flags := recs[i+1][slices.Index(recs[0], "flags")]
 		if reason := recs[i+1][slices.Index(recs[0], "flag_reasons")]; want != strings.Contains(reason, "±") {

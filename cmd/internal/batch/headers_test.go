@@ -345,7 +345,7 @@ func TestExplainReadsOnlyTheStart(t *testing.T) {
 // matter; a trailing unit token counts only when it is a unit of the
 // quantity.
 func TestHeaderSpellings(t *testing.T) {
-	cases := []struct{ h, field, unit string }{
+	checkSplitHeader(t, []headerCase{
 		{"Water Temp (°C)", "temperature", "°C"},
 		{"water_temp_C", "temperature", "C"},
 		{"WATER-TEMP [degC]", "temperature", "degC"},
@@ -374,17 +374,7 @@ func TestHeaderSpellings(t *testing.T) {
 		{"Flight altitude (ft)", "altitude", "ft"},
 		{"length_furlongs", "", ""}, // not a unit of length: no match by suffix
 		{"Notes", "", ""},
-	}
-	for _, c := range cases {
-		f, u := splitHeader(c.h)
-		name := ""
-		if f >= 0 {
-			name = inputs.Fields[f].Name
-		}
-		if name != c.field || u != c.unit {
-			t.Errorf("splitHeader(%q) = %q, %q; want %q, %q", c.h, name, u, c.field, c.unit)
-		}
-	}
+	})
 }
 
 // A second column for a quantity that --column took from another is not

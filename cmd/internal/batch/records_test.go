@@ -1,11 +1,9 @@
 package batch
 
 import (
-	"bytes"
 	"context"
 	"encoding/csv"
 	"errors"
-	"fmt"
 	"io"
 	"math/rand/v2"
 	"reflect"
@@ -13,6 +11,7 @@ import (
 	"testing"
 
 	"github.com/flowregime/flowregime/cmd/internal/inputs"
+	"github.com/flowregime/flowregime/cmd/internal/survey"
 )
 
 // eachCSVRecord must find and split records exactly as eachRecord followed
@@ -302,33 +301,13 @@ func FuzzRecordsMatchEncodingCSV(f *testing.F) {
 	})
 }
 
-// surveyWithNotes writes a survey of n rows with a notes column; notes
-// gives the note of some rows (by row number, 1-based), the rest say
-// "plain". The caller knows how many rows it asked for: the count does not
-// come from the reader under test.
-func surveyWithNotes(n int, notes map[int]string, finalNewline bool) []byte {
-	var b bytes.Buffer
-	b.WriteString("species,length (mm),speed (cm/s),notes\n")
-	for i := 1; i <= n; i++ {
-		note, ok := notes[i]
-		if !ok {
-			note = "plain"
-		}
-		fmt.Fprintf(&b, "fish %d,%d,%d,%s", i, 100+i%200, 20+i%50, note)
-		if i < n || finalNewline {
-			b.WriteByte('\n')
-		}
-	}
-	return b.Bytes()
-}
-
 // A stray quote inside an unquoted cell is text: a 20,000-row survey with
 // `fish 5" long` in row 5 comes out whole (the issue's million-row survey,
 // scaled down, read as 9 rows). The output is valid RFC 4180, checked with
 // Go's strict encoding/csv: the cell is quoted on the way out.
 func TestStrayQuoteLosesNoRow(t *testing.T) {
 	const n = 20000
-	in := surveyWithNotes(n, map[int]string{5: `fish 5" long`, n: `last 2" fin`}, true)
+	in := survey.WithNotes(n, map[int]string{5: `fish 5" long`, n: `last 2" fin`}, true)
 	out, rejects, sum := runBatch(t, in, Config{InFormat: CSV, OutFormat: CSV})
 	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
 	if err != nil {
@@ -361,7 +340,7 @@ func TestUnclosedQuoteCostsItsRowOnly(t *testing.T) {
 	}
 	for _, c := range cases {
 		for _, final := range []bool{true, false} {
-			in := surveyWithNotes(n, c.notes, final)
+			in := survey.WithNotes(n, c.notes, final)
 			for _, cfg := range []Config{{InFormat: CSV, OutFormat: CSV}, {InFormat: CSV, OutFormat: CSV, Uncertainty: true, Method: "linear", Workers: 3}} {
 				out, rejects, sum := runBatch(t, in, cfg)
 				written := strings.Count(out, "\n") - 1

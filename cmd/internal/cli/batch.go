@@ -216,6 +216,12 @@ func (o *batchOptions) outputFiles(s Streams) []namedFile {
 	return outs
 }
 
+// readsTSV reports whether a table is read as TSV: by --format, else by
+// its file name's extension.
+func readsTSV(format, name string) bool {
+	return format == "tsv" || format == "" && formatFromName(name) == "tsv"
+}
+
 func formatFromName(name string) string {
 	switch strings.ToLower(filepath.Ext(name)) {
 	case ".tsv", ".tab":

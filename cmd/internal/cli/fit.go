@@ -201,7 +201,7 @@ func runFit(o *fitOptions, s Streams) error {
 		return err
 	}
 	defer done()
-	tsv := o.inFormat == "tsv" || o.inFormat == "" && formatFromName(o.input) == "tsv"
+	tsv := readsTSV(o.inFormat, o.input)
 	pts, err := readRheometer(in, tsv, units)
 	if err != nil {
 		return err

@@ -153,7 +153,7 @@ func runPlotFlow(o *plotFlowOptions, name, format string, s Streams) error {
 		return fmt.Errorf("cannot read %s: %v", name, withoutPath(err))
 	}
 	defer f.Close()
-	tsv := o.inFormat == "tsv" || o.inFormat == "" && formatFromName(name) == "tsv"
+	tsv := readsTSV(o.inFormat, name)
 	pts, err := readRheometer(f, tsv, units)
 	if err != nil {
 		return err

@@ -10,6 +10,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/flowregime/flowregime/cmd/internal/survey"
 )
 
 // runIn runs the command line with stdin.
@@ -18,24 +20,6 @@ func runIn(t *testing.T, stdin string, args ...string) (stdout, stderr string, c
 	var out, errb bytes.Buffer
 	code = Main(args, Streams{In: strings.NewReader(stdin), Out: &out, Err: &errb})
 	return out.String(), errb.String(), code
-}
-
-// notesSurvey is a survey of n rows with a notes column, some rows' notes
-// given (by row, 1-based). The test knows n; no reader counts it.
-func notesSurvey(n int, notes map[int]string, finalNewline bool) string {
-	var b strings.Builder
-	b.WriteString("species,length (mm),speed (cm/s),notes\n")
-	for i := 1; i <= n; i++ {
-		note, ok := notes[i]
-		if !ok {
-			note = "plain"
-		}
-		fmt.Fprintf(&b, "fish %d,%d,%d,%s", i, 100+i%200, 20+i%50, note)
-		if i < n || finalNewline {
-			b.WriteByte('\n')
-		}
-	}
-	return b.String()
 }
 
 // writeTemp writes a file in a fresh folder and returns its path.
@@ -71,7 +55,7 @@ func TestBatchCLIStrayAndUnclosedQuotes(t *testing.T) {
 		code     int
 	}{{`fish 5" long`, 0, ExitOK}, {`"fish 5 long`, 1, ExitRejected}}
 	for _, c := range cases {
-		in := notesSurvey(n, map[int]string{5: c.note}, true)
+		in := notesText(n, map[int]string{5: c.note}, true)
 		file := writeTemp(t, "survey.csv", in)
 		for _, src := range []string{file, "-"} {
 			out, errs, code := runIn(t, in, "batch", src)
@@ -119,16 +103,16 @@ func TestTabulateCLIRows(t *testing.T) {
 		}
 		return g[0].Rows
 	}
-	out, errs, code := runIn(t, notesSurvey(n, map[int]string{5: `fish 5" long`}, true), "tabulate", "-", "--format", "json")
+	out, errs, code := runIn(t, notesText(n, map[int]string{5: `fish 5" long`}, true), "tabulate", "-", "--format", "json")
 	if code != ExitOK || rows(out) != n {
 		t.Errorf("stray quote: exit %d, stderr %q", code, errs)
 	}
-	out, errs, code = runIn(t, notesSurvey(n, map[int]string{5: `"fish 5 long`}, true), "tabulate", "-", "--format", "json")
+	out, errs, code = runIn(t, notesText(n, map[int]string{5: `"fish 5 long`}, true), "tabulate", "-", "--format", "json")
 	if code != ExitRejected || rows(out) != n-1 || !strings.Contains(errs, "rejected line 6") || !strings.Contains(errs, "1 rows rejected") {
 		t.Errorf("open quote, through batch: exit %d, stderr %q", code, errs)
 	}
 	// Batch output with a row broken afterwards, and a ragged one.
-	good, _, _ := runIn(t, notesSurvey(100, nil, true), "batch", "-")
+	good, _, _ := runIn(t, notesText(100, nil, true), "batch", "-")
 	lines := strings.SplitAfter(good, "\n")
 	lines[4] = `"broken,` + lines[4]
 	lines[7] = "ragged,1\n"
@@ -172,4 +156,9 @@ func FuzzReadRheometer(f *testing.F) {
 			t.Fatalf("%q: %v", data, err)
 		}
 	})
+}
+
+// notesText is survey.WithNotes as text.
+func notesText(n int, notes map[int]string, finalNewline bool) string {
+	return string(survey.WithNotes(n, notes, finalNewline))
 }

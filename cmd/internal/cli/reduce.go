@@ -245,7 +245,7 @@ func runReduce(o *reduceOptions, g media.Geometry, s Streams) error {
 		return err
 	}
 	defer done()
-	tsv := o.inFormat == "tsv" || o.inFormat == "" && formatFromName(o.input) == "tsv"
+	tsv := readsTSV(o.inFormat, o.input)
 	byTime := falling && o.fallDistance != ""
 	table, err := readReadings(in, tsv, rolesFor(o.geometry, byTime), units)
 	if err != nil {
