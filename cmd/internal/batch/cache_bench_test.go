@@ -53,7 +53,8 @@ func TestLocalMediaMatchesLookup(t *testing.T) {
 				continue
 			}
 			if got.Medium != want.Medium || got.Density != want.Density || got.DynamicViscosity != want.DynamicViscosity ||
-				got.KinematicViscosity != want.KinematicViscosity || got.TemperatureC != want.TemperatureC || len(got.Warnings) != len(want.Warnings) {
+				got.KinematicViscosity != want.KinematicViscosity || got.TemperatureC != want.TemperatureC || len(got.Warnings) != len(want.Warnings) ||
+				got.Gas != want.Gas || got.Water != want.Water {
 				t.Fatalf("%+v: got %+v, want %+v", c, *got, want)
 			}
 		}

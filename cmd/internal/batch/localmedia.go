@@ -82,11 +82,20 @@ const (
 
 var builtinName = [4]string{1: media.KindAir, 2: media.KindFreshWater, 3: media.KindSeawater}
 
-// builtinGas is media.Properties.Gas of each built-in medium, by the same index.
-var builtinGas = [4]bool{1: true}
+// builtinGas and builtinWater are media.Properties.Gas and Water of each
+// built-in medium, by the same index, as media's own lookup sets them.
+var builtinGas, builtinWater = builtinFlags()
 
-// builtinWater is media.Properties.Water of each built-in medium, by the same index.
-var builtinWater = [4]bool{2: true, 3: true}
+func builtinFlags() (gas, water [4]bool) {
+	for i, name := range builtinName {
+		if name == "" {
+			continue
+		}
+		p, _ := media.Lookup(media.Unset(name)) // at default conditions it cannot fail (TestLocalMediaMatchesLookup checks the flags)
+		gas[i], water[i] = p.Gas, p.Water
+	}
+	return gas, water
+}
 
 // outOfRange are shared, read-only warnings that rebuilt properties point to.
 var outOfRange = func() []media.Warning {
