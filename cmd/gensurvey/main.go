@@ -32,6 +32,10 @@ func main() {
 		fmt.Fprintf(os.Stderr, "gensurvey: -kind %q is not simple, rich or few\n", *kind)
 		os.Exit(2)
 	}
+	if *rows < 0 || flag.NArg() > 0 {
+		fmt.Fprintf(os.Stderr, "gensurvey: -rows must be 0 or more and no other arguments are taken (got -rows %d, %q)\n", *rows, flag.Args())
+		os.Exit(2)
+	}
 	if err := gen(os.Stdout, *rows, *seed); err != nil {
 		fmt.Fprintln(os.Stderr, "gensurvey:", err)
 		os.Exit(1)
